@@ -1,0 +1,181 @@
+/**
+ * The damped Newton iteration on a compiled system: load, factor, solve, limit, test. One workspace
+ * per compiled system holds every array, so an iteration allocates nothing.
+ */
+import type { Conditions, DcLoadContext } from '../devices/device.js';
+import { singularMatrix } from '../errors/messages.js';
+import { createRealSolver, type RealLinearSolver } from '../linalg/index.js';
+import type { CompiledSystem } from '../mna/system.js';
+import type { ResolvedOptions } from './options.js';
+
+/** Arrays and the solver of one compiled system, reused by every Newton run on it. */
+export class NewtonWorkspace {
+  readonly x: Float64Array;
+  readonly previous: Float64Array;
+  readonly A: Float64Array;
+  readonly b: Float64Array;
+  readonly residual: Float64Array;
+  readonly rowScale: Float64Array;
+  readonly solver: RealLinearSolver;
+  readonly context: DcLoadContext;
+  /** Norms of the last run, for diagnostics. */
+  lastUpdateNorm = Number.POSITIVE_INFINITY;
+  lastResidualNorm = Number.POSITIVE_INFINITY;
+
+  constructor(readonly system: CompiledSystem) {
+    const { n, nnz } = system;
+    this.x = new Float64Array(n + 1);
+    this.previous = new Float64Array(n + 1);
+    this.A = new Float64Array(nnz + 1);
+    this.b = new Float64Array(n + 1);
+    this.residual = new Float64Array(n + 1);
+    this.rowScale = new Float64Array(n + 1);
+    this.solver = createRealSolver(system.pattern);
+    this.context = { x: this.x, A: this.A, b: this.b, sourceScale: 1, limited: false, first: true };
+  }
+}
+
+/** What one Newton run reached. */
+export interface NewtonOutcome {
+  readonly converged: boolean;
+  readonly iterations: number;
+}
+
+/** Hand the analysis conditions to every device. */
+export function prepareDevices(system: CompiledSystem, conditions: Conditions): void {
+  for (const d of system.devices) d.prepare?.(conditions);
+}
+
+/** Load every device at ws.x, plus a conductance `shunt` from every node to ground. */
+function loadAll(ws: NewtonWorkspace, sourceScale: number, shunt: number, first: boolean): boolean {
+  const ctx = ws.context as { -readonly [K in keyof DcLoadContext]: DcLoadContext[K] };
+  ws.A.fill(0);
+  ws.b.fill(0);
+  ctx.sourceScale = sourceScale;
+  ctx.first = first;
+  ctx.limited = false;
+  const devices = ws.system.devices;
+  for (let k = 0; k < devices.length; k++) devices[k]!.load(ctx);
+  if (shunt > 0) {
+    const diag = ws.system.nodeDiagonal;
+    for (let k = 0; k < diag.length; k++) ws.A[diag[k]!]! += shunt;
+  }
+  return ctx.limited;
+}
+
+/**
+ * The residual r = A·x − b of the loaded equations at x and whether every row is within tolerance:
+ * |r_i| ≤ rel·(Σ_j |A_ij·x_j| + |b_i|) + abs_i, abs being amperes for node rows, volts for branch rows.
+ */
+function residualWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
+  const { n, nodeCount, pattern } = ws.system;
+  const { Ap, Ai } = pattern;
+  const { A, b, x, residual: r, rowScale } = ws;
+  for (let i = 0; i < n; i++) {
+    r[i] = -b[i]!;
+    rowScale[i] = Math.abs(b[i]!);
+  }
+  for (let j = 0; j < n; j++) {
+    const xj = x[j]!;
+    for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+      const term = A[p]! * xj;
+      r[Ai[p]!]! += term;
+      rowScale[Ai[p]!]! += Math.abs(term);
+    }
+  }
+  let ok = true;
+  let norm = 0;
+  for (let i = 0; i < n; i++) {
+    const abs = i < nodeCount ? o.currentTolerance : o.voltageTolerance;
+    const ri = Math.abs(r[i]!);
+    if (!(ri <= o.relativeTolerance * rowScale[i]! + abs)) ok = false;
+    if (ri > norm || Number.isNaN(ri)) norm = ri;
+  }
+  ws.lastResidualNorm = norm;
+  return ok;
+}
+
+/** Whether the update from `previous` to `x` is within tolerance in every unknown. */
+function updateWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
+  const { n, nodeCount } = ws.system;
+  const { x, previous } = ws;
+  let ok = true;
+  let norm = 0;
+  for (let i = 0; i < n; i++) {
+    const abs = i < nodeCount ? o.voltageTolerance : o.currentTolerance;
+    const d = Math.abs(x[i]! - previous[i]!);
+    if (!(d <= o.relativeTolerance * Math.max(Math.abs(x[i]!), Math.abs(previous[i]!)) + abs)) ok = false;
+    if (d > norm || Number.isNaN(d)) norm = d;
+  }
+  ws.lastUpdateNorm = norm;
+  return ok;
+}
+
+/** Factor and solve in place: previous ← x, x ← A⁻¹b. Throws `singular` naming the unknowns. */
+function step(ws: NewtonWorkspace, context: string): void {
+  const status = ws.solver.factor(ws.A);
+  if (status !== 0) throw singularAt(ws.system, status - 1, context);
+  ws.previous.set(ws.x);
+  ws.x.set(ws.b);
+  ws.solver.solve(ws.x);
+  ws.x[ws.system.n] = 0;
+}
+
+/** The `singular` error for unknown k: its node or branch, and the elements that touch it. */
+export function singularAt(system: CompiledSystem, k: number, context: string) {
+  const label = system.labels[k];
+  const nodes = label?.kind === 'node' ? [label.name] : [];
+  const elements = [...(system.elementsAt[k] ?? [])];
+  return singularMatrix(elements, nodes, context);
+}
+
+function allFinite(x: Float64Array, n: number): boolean {
+  for (let i = 0; i < n; i++) if (!Number.isFinite(x[i]!)) return false;
+  return true;
+}
+
+/**
+ * Run Newton from ws.x with sources scaled by `sourceScale` and `shunt` siemens from every node to
+ * ground. Converged means: the last load was taken at x itself (no junction step limited), every
+ * KCL and branch residual there is within tolerance, and the update that led to x was too.
+ * A step that makes the residual grow is halved (up to four times) before it is accepted.
+ */
+export function runNewton(
+  ws: NewtonWorkspace,
+  o: ResolvedOptions,
+  sourceScale: number,
+  shunt: number,
+  maxIterations: number,
+): NewtonOutcome {
+  const n = ws.system.n;
+  let updateOk = false;
+  let bestResidual = Number.POSITIVE_INFINITY;
+  let halvings = 0;
+  for (let iteration = 0; iteration <= maxIterations; iteration++) {
+    const limited = loadAll(ws, sourceScale, shunt, iteration === 0);
+    const residualOk = residualWithin(ws, o);
+    if (!allFinite(ws.x, n)) return { converged: false, iterations: iteration };
+    if (iteration > 0 && !limited && updateOk && residualOk)
+      return { converged: true, iterations: iteration };
+    // Global damping: go halfway back along a step that made an unlimited residual grow.
+    if (iteration > 1 && !limited && ws.lastResidualNorm > bestResidual && halvings < 4) {
+      halvings++;
+      for (let i = 0; i < n; i++) ws.x[i] = 0.5 * (ws.x[i]! + ws.previous[i]!);
+      continue;
+    }
+    halvings = 0;
+    if (!limited) bestResidual = Math.min(bestResidual, ws.lastResidualNorm);
+    if (iteration === maxIterations) break;
+    step(ws, 'at the operating point');
+    updateOk = updateWithin(ws, o);
+  }
+  return { converged: false, iterations: maxIterations };
+}
+
+/** Solve a linear system once (no Newton needed) and check its residual. */
+export function solveLinear(ws: NewtonWorkspace, o: ResolvedOptions): NewtonOutcome {
+  loadAll(ws, 1, 0, true);
+  step(ws, 'at the operating point');
+  loadAll(ws, 1, 0, false);
+  return { converged: residualWithin(ws, o) && allFinite(ws.x, ws.system.n), iterations: 1 };
+}

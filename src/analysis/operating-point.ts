@@ -1,0 +1,278 @@
+/**
+ * The DC operating point: plain Newton first, then conductance stepping, then source ramping, each
+ * tried only when the one before failed. The result is immutable and answers by node and element name.
+ */
+import type { Circuit } from '../circuit/circuit.js';
+import { GROUND } from '../circuit/elements.js';
+import type { Conditions } from '../devices/device.js';
+import { thermalVoltage } from '../devices/junction.js';
+import { noConvergence, unknownElement, unknownNode } from '../errors/messages.js';
+import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
+import { type CompiledSystem, compileCircuit } from '../mna/system.js';
+import { NewtonWorkspace, prepareDevices, runNewton, solveLinear } from './newton.js';
+import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
+import type { BjtReport, DeviceReport, DiodeReport, MosfetReport } from './reports.js';
+
+/** The DC solution of a circuit: node voltages, element currents and every device's operating values. */
+export class OperatingPoint {
+  /** @internal */
+  readonly system: CompiledSystem;
+  /** @internal The solution vector, length n+1 with x[n] = 0 (ground). */
+  readonly x: Float64Array;
+  /** @internal */
+  readonly conditions: Conditions;
+  /** Newton iterations taken, over all strategies tried. */
+  readonly iterations: number;
+  /** The strategy that found the solution: `'linear'`, `'newton'`, `'conductance-stepping'` or `'source-ramping'`. */
+  readonly strategy: string;
+  /** Every strategy tried, in order, with its iterations. */
+  readonly attempts: readonly StrategyAttempt[];
+
+  /** @internal Built by {@link operatingPoint} and the sweeps. */
+  constructor(
+    system: CompiledSystem,
+    x: Float64Array,
+    conditions: Conditions,
+    attempts: readonly StrategyAttempt[],
+  ) {
+    this.system = system;
+    this.x = x;
+    this.conditions = conditions;
+    this.attempts = attempts;
+    this.iterations = attempts.reduce((sum, a) => sum + a.iterations, 0);
+    this.strategy = attempts[attempts.length - 1]?.strategy ?? 'linear';
+  }
+
+  /** The temperature of the analysis, in K. */
+  get temperature(): number {
+    return this.conditions.temperature;
+  }
+
+  /** k·T/q at the analysis temperature, in V. */
+  get thermalVoltage(): number {
+    return this.conditions.thermalVoltage;
+  }
+
+  /** The names of the circuit's nodes (ground included). */
+  get nodes(): readonly string[] {
+    return [...this.system.nodeIndex.keys()];
+  }
+
+  /** The voltage of `node` with respect to `reference` (ground by default), in V. */
+  voltage(node: string, reference: string = GROUND): number {
+    return this.x[nodeAt(this.system, node)]! - this.x[nodeAt(this.system, reference)]!;
+  }
+
+  /**
+   * The current of an element, in A, by the sign conventions of the contract: for two-terminal
+   * elements from the first node named to the second, for controlled sources their output branch,
+   * for an op-amp the current out of its output into the circuit. Transistors are read through
+   * {@link OperatingPoint.device}.
+   */
+  current(element: string): number {
+    const d = this.system.deviceByName.get(element);
+    if (d === undefined) throw unknownElement(element);
+    if (d.current === undefined) {
+      throw unknownElement(element, 'a transistor has no single current; read it through device()');
+    }
+    d.prepare?.(this.conditions);
+    return d.current(this.x);
+  }
+
+  /** The operating values and small-signal parameters of a diode, bipolar transistor or MOSFET. */
+  device(name: string): DeviceReport {
+    const d = this.system.deviceByName.get(name);
+    if (d === undefined) throw unknownElement(name);
+    if (d.report === undefined)
+      throw unknownElement(name, 'only diodes and transistors have a device report');
+    d.prepare?.(this.conditions);
+    return Object.freeze({ kind: d.record.kind, ...d.report(this.x) }) as DeviceReport;
+  }
+
+  /** The report of a diode (throws `unknown-element` if `name` is not one). */
+  diode(name: string): DiodeReport {
+    return this.#typed(name, 'diode') as DiodeReport;
+  }
+  /** The report of a bipolar transistor (throws `unknown-element` if `name` is not one). */
+  bjt(name: string): BjtReport {
+    return this.#typed(name, 'bjt') as BjtReport;
+  }
+  /** The report of a MOSFET (throws `unknown-element` if `name` is not one). */
+  mosfet(name: string): MosfetReport {
+    return this.#typed(name, 'mosfet') as MosfetReport;
+  }
+
+  #typed(name: string, kind: string): DeviceReport {
+    const report = this.device(name);
+    if (report.kind !== kind) throw unknownElement(name, `it is a ${report.kind}, not a ${kind}`);
+    return report;
+  }
+}
+
+/** The unknown index of a node, or `unknown-node`. */
+export function nodeAt(system: CompiledSystem, node: string): number {
+  const k = typeof node === 'string' ? system.nodeIndex.get(node) : undefined;
+  if (k === undefined) throw unknownNode(String(node));
+  return k;
+}
+
+/** The compiled system and its Newton workspace, for analyses that solve many points. */
+export interface Solver {
+  readonly system: CompiledSystem;
+  readonly workspace: NewtonWorkspace;
+  readonly options: ResolvedOptions;
+}
+
+/** Compile a circuit for repeated operating-point solves. */
+export function prepareSolver(circuit: Circuit, options?: OperatingPointOptions): Solver {
+  const resolved = resolveOptions(options);
+  const system = compileCircuit(circuit.elements);
+  for (const node of Object.keys(resolved.initialGuess)) nodeAt(system, node);
+  return { system, workspace: new NewtonWorkspace(system), options: resolved };
+}
+
+/** The conditions of an analysis at temperature T. */
+export function conditionsAt(temperature: number, options: ResolvedOptions): Conditions {
+  return {
+    temperature,
+    thermalVoltage: thermalVoltage(temperature),
+    junctionConductance: options.junctionConductance,
+  };
+}
+
+/**
+ * Solve from the workspace's present x (a warm start) at the given conditions, walking the
+ * strategies in order. Returns the attempts; throws `no-convergence` when all fail.
+ */
+export function solveFromCurrent(solver: Solver, conditions: Conditions): OperatingPoint {
+  const { system, workspace: ws, options: o } = solver;
+  prepareDevices(system, conditions);
+  if (!system.nonlinear) {
+    const outcome = solveLinear(ws, o);
+    const attempts = [{ strategy: 'linear', iterations: outcome.iterations, converged: outcome.converged }];
+    if (!outcome.converged) throw failure(solver, attempts);
+    return new OperatingPoint(system, ws.x.slice(), conditions, attempts);
+  }
+  const attempts: StrategyAttempt[] = [];
+  const start = ws.x.slice();
+  for (const strategy of STRATEGIES) {
+    ws.x.set(start);
+    const outcome = strategy.run(ws, o);
+    attempts.push({ strategy: strategy.name, iterations: outcome.iterations, converged: outcome.converged });
+    if (outcome.converged) return new OperatingPoint(system, ws.x.slice(), conditions, attempts);
+  }
+  throw failure(solver, attempts);
+}
+
+interface Strategy {
+  readonly name: string;
+  run(ws: NewtonWorkspace, o: ResolvedOptions): { converged: boolean; iterations: number };
+}
+
+/** The fallback chain, in order of cost. */
+const STRATEGIES: readonly Strategy[] = [
+  { name: 'newton', run: (ws, o) => runNewton(ws, o, 1, 0, o.maxIterations) },
+  {
+    // Start with every node tied to ground by 10 mS, and loosen the tie tenfold per solve, then remove it.
+    name: 'conductance-stepping',
+    run(ws, o) {
+      let iterations = 0;
+      let shunt = 1e-2;
+      let factor = 10;
+      let good = ws.x.slice();
+      while (true) {
+        const r = runNewton(ws, o, 1, shunt, o.maxIterations);
+        iterations += r.iterations;
+        if (r.converged) {
+          if (shunt === 0) return { converged: true, iterations };
+          good = ws.x.slice();
+          shunt = shunt / factor < 1e-13 ? 0 : shunt / factor;
+        } else {
+          ws.x.set(good);
+          if (shunt === 0) shunt = 1e-13;
+          if (factor < 1.01) return { converged: false, iterations };
+          const back = shunt * factor;
+          factor = Math.sqrt(factor);
+          shunt = back / factor;
+        }
+        if (iterations > 20 * o.maxIterations) return { converged: false, iterations };
+      }
+    },
+  },
+  {
+    // Ramp every independent source from zero, shortening the step where Newton struggles.
+    name: 'source-ramping',
+    run(ws, o) {
+      let iterations = 0;
+      ws.x.fill(0);
+      let scale = 0;
+      let stepSize = 0.1;
+      let good = ws.x.slice();
+      while (scale < 1) {
+        const next = Math.min(1, scale + stepSize);
+        const r = runNewton(ws, o, next, 0, o.maxIterations);
+        iterations += r.iterations;
+        if (r.converged) {
+          scale = next;
+          good = ws.x.slice();
+          stepSize = Math.min(0.5, stepSize * 2);
+        } else {
+          ws.x.set(good);
+          stepSize /= 4;
+          if (stepSize < 1e-7) return { converged: false, iterations };
+        }
+      }
+      return { converged: true, iterations };
+    },
+  },
+];
+
+/** The `no-convergence` error with the worst residuals and the nonlinear devices touching them. */
+function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
+  const { system, workspace: ws } = solver;
+  const order = Array.from({ length: system.n }, (_, i) => i).sort(
+    (a, b) => Math.abs(ws.residual[b]!) - Math.abs(ws.residual[a]!),
+  );
+  const worstResiduals: ResidualEntry[] = order.slice(0, 5).map((i) => ({
+    name: system.labels[i]!.name,
+    kind: system.labels[i]!.kind,
+    residual: ws.residual[i]!,
+  }));
+  const devices = new Set<string>();
+  for (const i of order.slice(0, 5)) {
+    for (const name of system.elementsAt[i] ?? []) {
+      if (system.deviceByName.get(name)?.nonlinear) devices.add(name);
+    }
+  }
+  return noConvergence({
+    strategies: attempts,
+    worstResiduals,
+    devices: [...devices],
+    lastUpdateNorm: ws.lastUpdateNorm,
+    lastResidualNorm: ws.lastResidualNorm,
+  });
+}
+
+/**
+ * Find the DC operating point of a circuit.
+ *
+ * @param circuit - the circuit to solve
+ * @param options - temperature (K), junction conductance, tolerances, iteration limit, initial guess
+ * @returns the immutable {@link OperatingPoint}
+ * @throws QuiescentError `no-ground`, `floating-node`, `singular`, `unknown-element`, `no-convergence`,
+ *   `invalid-value`
+ *
+ * @example
+ * ```ts
+ * const op = operatingPoint(circuit);
+ * op.voltage('out');          // volts
+ * op.device('D1').resistance; // the diode's dynamic resistance, Ω
+ * ```
+ */
+export function operatingPoint(circuit: Circuit, options?: OperatingPointOptions): OperatingPoint {
+  const solver = prepareSolver(circuit, options);
+  const { system, workspace, options: o } = solver;
+  for (const [node, v] of Object.entries(o.initialGuess)) workspace.x[nodeAt(system, node)] = v;
+  workspace.x[system.n] = 0;
+  return solveFromCurrent(solver, conditionsAt(o.temperature, o));
+}

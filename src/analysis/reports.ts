@@ -1,0 +1,82 @@
+/**
+ * The shapes of `OperatingPoint.device()`: a diode's, a bipolar transistor's and a MOSFET's operating
+ * values and small-signal parameters at the solution.
+ */
+
+/** A bipolar transistor's operating region, by the bias of its two junctions. */
+export type BjtRegion = 'cutoff' | 'forward-active' | 'reverse-active' | 'saturation';
+
+/** A MOSFET's operating region. */
+export type MosfetRegion = 'cutoff' | 'triode' | 'saturation';
+
+/** A diode at its operating point. Voltages in V, currents in A, conductance in S, capacitance in F. */
+export interface DiodeReport {
+  readonly kind: 'diode';
+  /** Anode minus cathode, at the terminals (series resistance included). */
+  readonly voltage: number;
+  /** The voltage across the junction itself (series resistance excluded). */
+  readonly junctionVoltage: number;
+  /** Anode to cathode. */
+  readonly current: number;
+  /** ∂i/∂v of the junction, its small parallel conductance included. */
+  readonly conductance: number;
+  /** The dynamic resistance r_d = 1/conductance, in Ω (series resistance not included). */
+  readonly resistance: number;
+  /** Depletion plus diffusion capacitance at the operating point. */
+  readonly capacitance: number;
+}
+
+/**
+ * A bipolar transistor at its operating point. Voltages are the signed terminal differences their names
+ * say; currents flow into the terminal for npn and out of it for pnp. Small-signal parameters are
+ * derivatives with respect to the mirrored voltages, so they are non-negative in normal operation.
+ */
+export interface BjtReport {
+  readonly kind: 'bjt';
+  readonly vbe: number;
+  readonly vbc: number;
+  readonly vce: number;
+  readonly ic: number;
+  readonly ib: number;
+  /** ic + ib. */
+  readonly ie: number;
+  /** Transconductance ∂ic/∂vbe at constant vce, in S. */
+  readonly gm: number;
+  /** 1/(∂ib/∂vbe) at constant vce, in Ω. */
+  readonly rpi: number;
+  /** 1/(∂ic/∂vce) at constant vbe, in Ω (Infinity without the Early effect in forward-active operation). */
+  readonly ro: number;
+  /** Base-emitter capacitance (depletion plus diffusion), in F. */
+  readonly cpi: number;
+  /** Base-collector capacitance, in F. */
+  readonly cmu: number;
+  readonly region: BjtRegion;
+}
+
+/**
+ * A MOSFET at its operating point. Voltages are signed terminal differences; `id` flows into the drain
+ * for nmos and out of it for pmos. Derivatives are with respect to the mirrored voltages.
+ */
+export interface MosfetReport {
+  readonly kind: 'mosfet';
+  readonly vgs: number;
+  readonly vds: number;
+  readonly vbs: number;
+  readonly id: number;
+  /** ∂id/∂vgs, in S. */
+  readonly gm: number;
+  /** ∂id/∂vds, in S. */
+  readonly gds: number;
+  /** ∂id/∂vbs, in S. */
+  readonly gmb: number;
+  readonly cgs: number;
+  readonly cgd: number;
+  readonly region: MosfetRegion;
+  /** The threshold voltage at the present body bias, with its sign (negative for an enhancement pmos). */
+  readonly thresholdVoltage: number;
+  /** |vgs − Vth| in the conducting regions, 0 in cutoff, in V. */
+  readonly overdrive: number;
+}
+
+/** Any device report; narrow it by `kind`. */
+export type DeviceReport = DiodeReport | BjtReport | MosfetReport;

@@ -1,0 +1,434 @@
+/**
+ * The circuit builder. Each method checks its own arguments at once and appends one element record;
+ * checks that need the whole circuit run when an analysis starts (see topology.ts).
+ */
+import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt-model.js';
+import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode-model.js';
+import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet-model.js';
+import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp-model.js';
+import { parseParameters } from '../devices/parameters.js';
+import { duplicateName, invalidCircuit, invalidValue } from '../errors/messages.js';
+import { parseValue, type Unit } from '../values/index.js';
+import type { Value } from '../values/value.js';
+import { type AcExcitation, type ElementRecord, terminalsOf } from './elements.js';
+import { type CircuitDocument, circuitFromJson, circuitToJson } from './json.js';
+
+/** The excitation of an independent source: its DC value and its AC phasor (peak magnitude, phase in degrees). */
+export interface SourceSpec {
+  /** DC value, V or A (default 0). */
+  dc?: Value;
+  /** AC peak magnitude, or magnitude with phase in degrees (default 0: no AC signal). */
+  ac?: Value | { magnitude: Value; phase?: number };
+}
+
+/** Terminals of an op-amp. */
+export interface OpAmpTerminals {
+  plus: string;
+  minus: string;
+  output: string;
+}
+/** Terminals of a bipolar transistor. */
+export interface BjtTerminals {
+  collector: string;
+  base: string;
+  emitter: string;
+}
+/** Terminals of a MOSFET; `body` defaults to `source`. */
+export interface MosfetTerminals {
+  drain: string;
+  gate: string;
+  source: string;
+  body?: string;
+}
+
+/**
+ * A circuit under construction. Every method returns the circuit, so calls chain.
+ *
+ * @example
+ * ```ts
+ * const c = new Circuit()
+ *   .voltageSource('V1', 'in', GROUND, { dc: 5 })
+ *   .resistor('R1', 'in', 'out', '1k')
+ *   .diode('D1', 'out', GROUND);
+ * ```
+ */
+export class Circuit {
+  #elements: ElementRecord[] = [];
+  #byName = new Map<string, ElementRecord>();
+  #revision = 0;
+
+  /**
+   * A counter that grows with every change, so that caches built from the circuit (compiled
+   * equations, say) can tell whether they are stale.
+   */
+  get revision(): number {
+    return this.#revision;
+  }
+
+  /** The element records, in the order they were added (a copy). */
+  get elements(): readonly ElementRecord[] {
+    return this.#elements.slice();
+  }
+
+  /** The element record of that name, or undefined. */
+  element(name: string): ElementRecord | undefined {
+    return this.#byName.get(name);
+  }
+
+  /** The names of all nodes, ground included if used, in order of first appearance. */
+  get nodes(): readonly string[] {
+    const seen = new Set<string>();
+    for (const e of this.#elements) {
+      for (const [, node] of terminalsOf(e)) seen.add(node);
+    }
+    return [...seen];
+  }
+
+  /** Add a resistor of `resistance` Ω (> 0) between nodes `a` and `b`. */
+  resistor(name: string, a: string, b: string, resistance: Value): this {
+    const path = this.#start(name);
+    return this.#add({
+      kind: 'resistor',
+      name,
+      a: node(a, [...path, 'a']),
+      b: node(b, [...path, 'b']),
+      resistance: positive(resistance, 'Ω', [...path, 'resistance']),
+    });
+  }
+
+  /** Add a capacitor of `capacitance` F (≥ 0) between nodes `a` and `b`. */
+  capacitor(name: string, a: string, b: string, capacitance: Value): this {
+    const path = this.#start(name);
+    return this.#add({
+      kind: 'capacitor',
+      name,
+      a: node(a, [...path, 'a']),
+      b: node(b, [...path, 'b']),
+      capacitance: nonNegative(capacitance, 'F', [...path, 'capacitance']),
+    });
+  }
+
+  /** Add an inductor of `inductance` H (≥ 0; a short at DC) between nodes `a` and `b`. */
+  inductor(name: string, a: string, b: string, inductance: Value): this {
+    const path = this.#start(name);
+    return this.#add({
+      kind: 'inductor',
+      name,
+      a: node(a, [...path, 'a']),
+      b: node(b, [...path, 'b']),
+      inductance: nonNegative(inductance, 'H', [...path, 'inductance']),
+    });
+  }
+
+  /**
+   * Add an independent voltage source: v(plus) − v(minus) = dc, and the AC phasor `ac`. Its
+   * current flows from `plus` through the source to `minus`.
+   */
+  voltageSource(name: string, plus: string, minus: string, spec: SourceSpec = {}): this {
+    const path = this.#start(name);
+    const { dc, ac } = sourceSpec(spec, 'V', path);
+    return this.#add({
+      kind: 'voltage-source',
+      name,
+      plus: node(plus, [...path, 'plus']),
+      minus: node(minus, [...path, 'minus']),
+      dc,
+      ac,
+    });
+  }
+
+  /** Add an independent current source; its positive value flows from `from`, through the source, into `to`. */
+  currentSource(name: string, from: string, to: string, spec: SourceSpec = {}): this {
+    const path = this.#start(name);
+    const { dc, ac } = sourceSpec(spec, 'A', path);
+    return this.#add({
+      kind: 'current-source',
+      name,
+      from: node(from, [...path, 'from']),
+      to: node(to, [...path, 'to']),
+      dc,
+      ac,
+    });
+  }
+
+  /** Add a voltage-controlled voltage source: v(outPlus) − v(outMinus) = gain·(v(ctrlPlus) − v(ctrlMinus)). */
+  vcvs(name: string, out: readonly [string, string], control: readonly [string, string], gain: Value): this {
+    const path = this.#start(name);
+    const [outPlus, outMinus] = pair(out, [...path, 'out']);
+    const [controlPlus, controlMinus] = pair(control, [...path, 'control']);
+    return this.#add({
+      kind: 'vcvs',
+      name,
+      outPlus,
+      outMinus,
+      controlPlus,
+      controlMinus,
+      gain: finite(gain, undefined, [...path, 'gain']),
+    });
+  }
+
+  /** Add a voltage-controlled current source: gm·(v(ctrlPlus) − v(ctrlMinus)) flows from outFrom through the source into outTo. */
+  vccs(
+    name: string,
+    out: readonly [string, string],
+    control: readonly [string, string],
+    transconductance: Value,
+  ): this {
+    const path = this.#start(name);
+    const [outFrom, outTo] = pair(out, [...path, 'out']);
+    const [controlPlus, controlMinus] = pair(control, [...path, 'control']);
+    return this.#add({
+      kind: 'vccs',
+      name,
+      outFrom,
+      outTo,
+      controlPlus,
+      controlMinus,
+      transconductance: finite(transconductance, 'S', [...path, 'transconductance']),
+    });
+  }
+
+  /**
+   * Add a current-controlled voltage source: v(outPlus) − v(outMinus) = r·i(control), where the
+   * controlling element is a voltage source, inductor, vcvs or ccvs (checked when an analysis starts).
+   */
+  ccvs(name: string, out: readonly [string, string], control: string, transresistance: Value): this {
+    const path = this.#start(name);
+    const [outPlus, outMinus] = pair(out, [...path, 'out']);
+    return this.#add({
+      kind: 'ccvs',
+      name,
+      outPlus,
+      outMinus,
+      control: elementName(control, [...path, 'control']),
+      transresistance: finite(transresistance, 'Ω', [...path, 'transresistance']),
+    });
+  }
+
+  /** Add a current-controlled current source: gain·i(control) flows from outFrom through the source into outTo. */
+  cccs(name: string, out: readonly [string, string], control: string, gain: Value): this {
+    const path = this.#start(name);
+    const [outFrom, outTo] = pair(out, [...path, 'out']);
+    return this.#add({
+      kind: 'cccs',
+      name,
+      outFrom,
+      outTo,
+      control: elementName(control, [...path, 'control']),
+      gain: finite(gain, undefined, [...path, 'gain']),
+    });
+  }
+
+  /** Add an op-amp: ideal without options, single-pole with `{ openLoopGain, gainBandwidth, outputResistance }`. */
+  opAmp(name: string, terminals: OpAmpTerminals, options?: OpAmpOptions): this {
+    const path = this.#start(name);
+    const t = terminalObject(terminals, ['plus', 'minus', 'output'], path);
+    return this.#add({
+      kind: 'op-amp',
+      name,
+      plus: t.plus,
+      minus: t.minus,
+      output: t.output,
+      options:
+        options === undefined
+          ? undefined
+          : parseParameters(OP_AMP_PARAMETERS, options, [...path, 'options'], 'op-amp'),
+    });
+  }
+
+  /** Add a junction diode from `anode` to `cathode`. */
+  diode(name: string, anode: string, cathode: string, model: DiodeModel = {}): this {
+    const path = this.#start(name);
+    return this.#add({
+      kind: 'diode',
+      name,
+      anode: node(anode, [...path, 'anode']),
+      cathode: node(cathode, [...path, 'cathode']),
+      model: parseParameters(DIODE_PARAMETERS, model, [...path, 'model'], 'diode'),
+    });
+  }
+
+  /** Add a bipolar transistor; `model.polarity` is `'npn'` or `'pnp'`. */
+  bjt(name: string, terminals: BjtTerminals, model: BjtModel): this {
+    const path = this.#start(name);
+    const t = terminalObject(terminals, ['collector', 'base', 'emitter'], path);
+    const polarity = polarityOf(model, ['npn', 'pnp'], [...path, 'model']);
+    return this.#add({
+      kind: 'bjt',
+      name,
+      collector: t.collector,
+      base: t.base,
+      emitter: t.emitter,
+      polarity,
+      model: parseParameters(BJT_PARAMETERS, model, [...path, 'model'], 'bipolar transistor', ['polarity']),
+    });
+  }
+
+  /** Add a MOSFET; `model.polarity` is `'nmos'` or `'pmos'`; the body defaults to the source. */
+  mosfet(name: string, terminals: MosfetTerminals, model: MosfetModel): this {
+    const path = this.#start(name);
+    const t = terminalObject(terminals, ['drain', 'gate', 'source'], path, ['body']);
+    const polarity = polarityOf(model, ['nmos', 'pmos'], [...path, 'model']);
+    return this.#add({
+      kind: 'mosfet',
+      name,
+      drain: t.drain,
+      gate: t.gate,
+      source: t.source,
+      body: t.body ?? t.source,
+      polarity,
+      model: parseParameters(MOSFET_PARAMETERS, model, [...path, 'model'], 'MOSFET', ['polarity']),
+    });
+  }
+
+  /** The circuit as a plain JSON document (see {@link CircuitDocument}). */
+  toJSON(): CircuitDocument {
+    return circuitToJson(this.#elements);
+  }
+
+  /** Rebuild a circuit from a document made by {@link Circuit.toJSON}; bad documents throw `invalid-circuit`. */
+  static fromJSON(json: unknown): Circuit {
+    const circuit = new Circuit();
+    circuitFromJson(json, circuit);
+    return circuit;
+  }
+
+  #start(name: unknown): string[] {
+    if (typeof name !== 'string' || name.length === 0) {
+      throw invalidCircuit(['name'], `an element name must be a non-empty string, not ${describe(name)}`);
+    }
+    if (this.#byName.has(name)) throw duplicateName(name);
+    return [name];
+  }
+
+  #add(record: ElementRecord): this {
+    this.#elements.push(Object.freeze(record));
+    this.#byName.set(record.name, record);
+    this.#revision++;
+    return this;
+  }
+}
+
+function describe(x: unknown): string {
+  if (typeof x === 'string') return JSON.stringify(x);
+  if (x === null) return 'null';
+  return typeof x;
+}
+
+function node(x: unknown, path: readonly (string | number)[]): string {
+  if (typeof x !== 'string' || x.length === 0) {
+    throw invalidCircuit(path, `a node name must be a non-empty string, not ${describe(x)}`);
+  }
+  return x;
+}
+
+function elementName(x: unknown, path: readonly (string | number)[]): string {
+  if (typeof x !== 'string' || x.length === 0) {
+    throw invalidCircuit(path, `must name the controlling element, not ${describe(x)}`);
+  }
+  return x;
+}
+
+function pair(x: unknown, path: readonly (string | number)[]): [string, string] {
+  if (!Array.isArray(x) || x.length !== 2) {
+    throw invalidCircuit(path, 'must be a pair of node names [plus, minus]');
+  }
+  return [node(x[0], [...path, 0]), node(x[1], [...path, 1])];
+}
+
+function terminalObject<K extends string, O extends string = never>(
+  x: unknown,
+  required: readonly K[],
+  path: readonly (string | number)[],
+  optional: readonly O[] = [],
+): Record<K, string> & Partial<Record<O, string>> {
+  if (x === null || typeof x !== 'object' || Array.isArray(x)) {
+    throw invalidCircuit(path, `terminals must be an object with ${required.join(', ')}`);
+  }
+  const obj = x as Record<string, unknown>;
+  for (const key of Object.keys(obj)) {
+    if (!(required as readonly string[]).includes(key) && !(optional as readonly string[]).includes(key)) {
+      throw invalidCircuit(
+        [...path, key],
+        `is not a terminal; the terminals are ${[...required, ...optional].join(', ')}`,
+      );
+    }
+  }
+  const out: Record<string, string> = {};
+  for (const key of required) out[key] = node(obj[key], [...path, key]);
+  for (const key of optional) if (obj[key] !== undefined) out[key] = node(obj[key], [...path, key]);
+  return out as Record<K, string> & Partial<Record<O, string>>;
+}
+
+function polarityOf<P extends string>(
+  model: unknown,
+  allowed: readonly P[],
+  path: readonly (string | number)[],
+): P {
+  if (model === null || typeof model !== 'object') {
+    throw invalidCircuit(path, `a model object with a polarity (${allowed.join(' or ')}) is required`);
+  }
+  const p = (model as { polarity?: unknown }).polarity;
+  if (typeof p !== 'string' || !(allowed as readonly string[]).includes(p)) {
+    throw invalidCircuit(
+      [...path, 'polarity'],
+      `must be ${allowed.map((a) => `'${a}'`).join(' or ')}, not ${describe(p)}`,
+    );
+  }
+  return p as P;
+}
+
+function finite(v: unknown, unit: Unit | undefined, path: readonly (string | number)[]): number {
+  if (typeof v !== 'number' && typeof v !== 'string')
+    throw invalidValue(path, v, 'a number or a value string');
+  return parseValue(v, unit, path);
+}
+
+function positive(v: unknown, unit: Unit, path: readonly (string | number)[]): number {
+  const x = finite(v, unit, path);
+  if (!(x > 0)) throw invalidValue(path, v, `a positive value in ${unit}`);
+  return x;
+}
+
+function nonNegative(v: unknown, unit: Unit, path: readonly (string | number)[]): number {
+  const x = finite(v, unit, path);
+  if (!(x >= 0)) throw invalidValue(path, v, `a value of 0 or more in ${unit}`);
+  return x;
+}
+
+function sourceSpec(spec: unknown, unit: Unit, path: readonly string[]): { dc: number; ac: AcExcitation } {
+  if (spec === null || typeof spec !== 'object' || Array.isArray(spec)) {
+    throw invalidCircuit(path, 'a source takes an object { dc?, ac? }');
+  }
+  const s = spec as Record<string, unknown>;
+  for (const key of Object.keys(s)) {
+    if (key !== 'dc' && key !== 'ac')
+      throw invalidCircuit([...path, key], 'is not a source setting; use dc and ac');
+  }
+  const dc = s.dc === undefined ? 0 : finite(s.dc, unit, [...path, 'dc']);
+  let ac: AcExcitation = { magnitude: 0, phase: 0 };
+  if (s.ac !== undefined) {
+    if (typeof s.ac === 'number' || typeof s.ac === 'string') {
+      ac = { magnitude: nonNegative(s.ac, unit, [...path, 'ac']), phase: 0 };
+    } else if (s.ac !== null && typeof s.ac === 'object' && !Array.isArray(s.ac)) {
+      const a = s.ac as Record<string, unknown>;
+      for (const key of Object.keys(a)) {
+        if (key !== 'magnitude' && key !== 'phase') {
+          throw invalidCircuit(
+            [...path, 'ac', key],
+            'is not an AC setting; use magnitude and phase (degrees)',
+          );
+        }
+      }
+      const magnitude = nonNegative(a.magnitude, unit, [...path, 'ac', 'magnitude']);
+      const phase = a.phase === undefined ? 0 : a.phase;
+      if (typeof phase !== 'number' || !Number.isFinite(phase)) {
+        throw invalidValue([...path, 'ac', 'phase'], phase, 'a finite phase in degrees');
+      }
+      ac = { magnitude, phase };
+    } else {
+      throw invalidCircuit([...path, 'ac'], 'must be a magnitude or { magnitude, phase }');
+    }
+  }
+  return { dc, ac };
+}

@@ -1,0 +1,229 @@
+/**
+ * The JSON form of a circuit: a versioned document of element records. Reading validates every
+ * field and replays the builder, so a document is held to exactly the checks a program is.
+ */
+import { invalidCircuit } from '../errors/messages.js';
+import { QuiescentError } from '../errors/quiescent-error.js';
+import type { Circuit } from './circuit.js';
+import type { ElementKind, ElementRecord } from './elements.js';
+
+/** The name that marks a circuit document. */
+export const DOCUMENT_FORMAT = 'quiescent-circuit';
+/** The version of the document shape written by this release. */
+export const DOCUMENT_VERSION = 1;
+
+/** A circuit as plain JSON: `{ format, version, elements }`, each element its record with numbers in SI units. */
+export interface CircuitDocument {
+  readonly format: typeof DOCUMENT_FORMAT;
+  readonly version: number;
+  readonly elements: readonly Record<string, unknown>[];
+}
+
+/** Serialize element records; parameters that are Infinity (their default) are left out, as JSON has no Infinity. */
+export function circuitToJson(elements: readonly ElementRecord[]): CircuitDocument {
+  const out = elements.map((e) => {
+    const copy: Record<string, unknown> = { ...e };
+    for (const key of ['model', 'options'] as const) {
+      const params = (e as Partial<Record<typeof key, Record<string, number> | undefined>>)[key];
+      if (params === undefined) {
+        delete copy[key];
+        continue;
+      }
+      const kept: Record<string, number> = {};
+      for (const [k, v] of Object.entries(params)) if (Number.isFinite(v)) kept[k] = v;
+      copy[key] = kept;
+    }
+    return copy;
+  });
+  return { format: DOCUMENT_FORMAT, version: DOCUMENT_VERSION, elements: out };
+}
+
+type FieldType = 'string' | 'number' | 'ac' | 'object' | 'polarity';
+
+/** The fields of each kind of record, with their JSON types; optional fields end in '?'. */
+const FIELDS: Readonly<Record<ElementKind, Readonly<Record<string, FieldType>>>> = {
+  resistor: { a: 'string', b: 'string', resistance: 'number' },
+  capacitor: { a: 'string', b: 'string', capacitance: 'number' },
+  inductor: { a: 'string', b: 'string', inductance: 'number' },
+  'voltage-source': { plus: 'string', minus: 'string', 'dc?': 'number', 'ac?': 'ac' },
+  'current-source': { from: 'string', to: 'string', 'dc?': 'number', 'ac?': 'ac' },
+  vcvs: {
+    outPlus: 'string',
+    outMinus: 'string',
+    controlPlus: 'string',
+    controlMinus: 'string',
+    gain: 'number',
+  },
+  vccs: {
+    outFrom: 'string',
+    outTo: 'string',
+    controlPlus: 'string',
+    controlMinus: 'string',
+    transconductance: 'number',
+  },
+  ccvs: { outPlus: 'string', outMinus: 'string', control: 'string', transresistance: 'number' },
+  cccs: { outFrom: 'string', outTo: 'string', control: 'string', gain: 'number' },
+  'op-amp': { plus: 'string', minus: 'string', output: 'string', 'options?': 'object' },
+  diode: { anode: 'string', cathode: 'string', 'model?': 'object' },
+  bjt: { collector: 'string', base: 'string', emitter: 'string', polarity: 'polarity', 'model?': 'object' },
+  mosfet: {
+    drain: 'string',
+    gate: 'string',
+    source: 'string',
+    'body?': 'string',
+    polarity: 'polarity',
+    'model?': 'object',
+  },
+};
+
+function isPlainObject(x: unknown): x is Record<string, unknown> {
+  return x !== null && typeof x === 'object' && !Array.isArray(x);
+}
+
+function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (string | number)[]): void {
+  const fields = FIELDS[kind];
+  const allowed = new Set(['kind', 'name']);
+  for (const [spec, type] of Object.entries(fields)) {
+    const optional = spec.endsWith('?');
+    const key = optional ? spec.slice(0, -1) : spec;
+    allowed.add(key);
+    const present = Object.hasOwn(raw, key);
+    if (!present) {
+      if (optional) continue;
+      throw invalidCircuit([...path, key], `is missing (a ${kind} needs ${key})`);
+    }
+    const v = raw[key];
+    const ok =
+      type === 'string'
+        ? typeof v === 'string'
+        : type === 'number'
+          ? typeof v === 'number'
+          : type === 'polarity'
+            ? typeof v === 'string'
+            : type === 'ac'
+              ? typeof v === 'number' || isPlainObject(v)
+              : isPlainObject(v);
+    if (!ok)
+      throw invalidCircuit(
+        [...path, key],
+        `must be ${type === 'ac' ? 'a number or { magnitude, phase }' : `a ${type === 'polarity' ? 'string' : type}`}`,
+      );
+  }
+  for (const key of Object.keys(raw)) {
+    if (!allowed.has(key)) throw invalidCircuit([...path, key], `is not a field of a ${kind}`);
+  }
+}
+
+/** Prefix the path of an error raised by the builder with the element's place in the document. */
+function relocate(error: unknown, path: (string | number)[]): never {
+  if (!(error instanceof QuiescentError)) throw error;
+  const d = error.details;
+  const inner = 'path' in d && d.path !== undefined ? d.path.slice(1) : [];
+  const where = [...path, ...inner];
+  const message = `${where
+    .map((p) => (typeof p === 'number' ? `[${p}]` : `.${p}`))
+    .join('')
+    .slice(1)}: ${error.message}`;
+  if (d.code === 'invalid-value') throw new QuiescentError({ ...d, path: where }, message);
+  if (d.code === 'invalid-circuit') throw new QuiescentError({ ...d, path: where }, message);
+  throw error;
+}
+
+/** Validate a document field by field and replay it into `circuit`. */
+export function circuitFromJson(json: unknown, circuit: Circuit): void {
+  if (!isPlainObject(json)) throw invalidCircuit([], 'a circuit document must be a JSON object');
+  for (const key of Object.keys(json)) {
+    if (key !== 'format' && key !== 'version' && key !== 'elements') {
+      throw invalidCircuit([key], 'is not a field of a circuit document (format, version, elements)');
+    }
+  }
+  if (json.format !== DOCUMENT_FORMAT) {
+    throw invalidCircuit(['format'], `must be '${DOCUMENT_FORMAT}'`);
+  }
+  if (json.version !== DOCUMENT_VERSION) {
+    throw invalidCircuit(
+      ['version'],
+      `version ${String(json.version)} is not supported (this release reads ${DOCUMENT_VERSION})`,
+    );
+  }
+  if (!Array.isArray(json.elements)) throw invalidCircuit(['elements'], 'must be an array of elements');
+  json.elements.forEach((raw: unknown, i: number) => {
+    const path: (string | number)[] = ['elements', i];
+    if (!isPlainObject(raw)) throw invalidCircuit(path, 'must be an object');
+    const kind = raw.kind;
+    if (typeof kind !== 'string' || !Object.hasOwn(FIELDS, kind)) {
+      throw invalidCircuit(
+        [...path, 'kind'],
+        `${JSON.stringify(kind)} is not a kind of element (${Object.keys(FIELDS).join(', ')})`,
+      );
+    }
+    if (typeof raw.name !== 'string') throw invalidCircuit([...path, 'name'], 'must be a string');
+    checkFields(raw, kind as ElementKind, path);
+    try {
+      replay(circuit, kind as ElementKind, raw);
+    } catch (error) {
+      relocate(error, path);
+    }
+  });
+}
+
+function replay(c: Circuit, kind: ElementKind, r: Record<string, unknown>): void {
+  const s = (k: string) => r[k] as string;
+  const n = (k: string) => r[k] as number;
+  const name = s('name');
+  switch (kind) {
+    case 'resistor':
+      c.resistor(name, s('a'), s('b'), n('resistance'));
+      return;
+    case 'capacitor':
+      c.capacitor(name, s('a'), s('b'), n('capacitance'));
+      return;
+    case 'inductor':
+      c.inductor(name, s('a'), s('b'), n('inductance'));
+      return;
+    case 'voltage-source':
+    case 'current-source': {
+      const spec: { dc?: number; ac?: number | { magnitude: number; phase?: number } } = {};
+      if (r.dc !== undefined) spec.dc = n('dc');
+      if (r.ac !== undefined) spec.ac = r.ac as number | { magnitude: number; phase?: number };
+      if (kind === 'voltage-source') c.voltageSource(name, s('plus'), s('minus'), spec);
+      else c.currentSource(name, s('from'), s('to'), spec);
+      return;
+    }
+    case 'vcvs':
+      c.vcvs(name, [s('outPlus'), s('outMinus')], [s('controlPlus'), s('controlMinus')], n('gain'));
+      return;
+    case 'vccs':
+      c.vccs(name, [s('outFrom'), s('outTo')], [s('controlPlus'), s('controlMinus')], n('transconductance'));
+      return;
+    case 'ccvs':
+      c.ccvs(name, [s('outPlus'), s('outMinus')], s('control'), n('transresistance'));
+      return;
+    case 'cccs':
+      c.cccs(name, [s('outFrom'), s('outTo')], s('control'), n('gain'));
+      return;
+    case 'op-amp':
+      if (r.options === undefined) c.opAmp(name, { plus: s('plus'), minus: s('minus'), output: s('output') });
+      else c.opAmp(name, { plus: s('plus'), minus: s('minus'), output: s('output') }, r.options as object);
+      return;
+    case 'diode':
+      c.diode(name, s('anode'), s('cathode'), (r.model ?? {}) as object);
+      return;
+    case 'bjt':
+      c.bjt(name, { collector: s('collector'), base: s('base'), emitter: s('emitter') }, {
+        ...(r.model as object | undefined),
+        polarity: s('polarity'),
+      } as never);
+      return;
+    case 'mosfet': {
+      const terminals: { drain: string; gate: string; source: string; body?: string } = {
+        drain: s('drain'),
+        gate: s('gate'),
+        source: s('source'),
+      };
+      if (r.body !== undefined) terminals.body = s('body');
+      c.mosfet(name, terminals, { ...(r.model as object | undefined), polarity: s('polarity') } as never);
+      return;
+    }
+  }
+}

@@ -1,0 +1,180 @@
+/**
+ * Whole-circuit checks that run when an analysis starts: controlling elements exist and carry a
+ * current unknown, something touches ground, every node has a DC path to ground, and no loop is made
+ * of voltage-defined branches alone. Each failure names the nodes and elements involved.
+ */
+import { floatingNodes, noGround, unknownElement, voltageLoop } from '../errors/messages.js';
+import { type ElementRecord, GROUND, hasCurrentUnknown, terminalsOf } from './elements.js';
+
+/** A disjoint-set forest over node indices (union by size, path halving). */
+class DisjointSets {
+  readonly parent: Int32Array;
+  readonly size: Int32Array;
+  constructor(n: number) {
+    this.parent = new Int32Array(n);
+    this.size = new Int32Array(n).fill(1);
+    for (let i = 0; i < n; i++) this.parent[i] = i;
+  }
+  find(i: number): number {
+    const p = this.parent;
+    while (p[i] !== i) {
+      p[i] = p[p[i]!]!;
+      i = p[i]!;
+    }
+    return i;
+  }
+  /** Join the sets of a and b; false if they were already one. */
+  union(a: number, b: number): boolean {
+    let ra = this.find(a);
+    let rb = this.find(b);
+    if (ra === rb) return false;
+    if (this.size[ra]! < this.size[rb]!) [ra, rb] = [rb, ra];
+    this.parent[rb] = ra;
+    this.size[ra]! += this.size[rb]!;
+    return true;
+  }
+}
+
+/** Pairs of nodes joined by a DC-conducting path inside one element. */
+function dcConnections(e: ElementRecord): readonly (readonly [string, string])[] {
+  switch (e.kind) {
+    case 'resistor':
+    case 'inductor':
+      return [[e.a, e.b]];
+    case 'voltage-source':
+      return [[e.plus, e.minus]];
+    case 'vcvs':
+    case 'ccvs':
+      return [[e.outPlus, e.outMinus]];
+    case 'op-amp':
+      // The output is driven with respect to ground.
+      return [[e.output, GROUND]];
+    case 'diode':
+      return [[e.anode, e.cathode]];
+    case 'bjt':
+      return [
+        [e.base, e.emitter],
+        [e.base, e.collector],
+      ];
+    case 'mosfet':
+      // The channel and the body tie carry a small conductance; the insulated gate carries none.
+      return [
+        [e.drain, e.source],
+        [e.body, e.source],
+      ];
+    case 'capacitor':
+    case 'current-source':
+    case 'vccs':
+    case 'cccs':
+      return [];
+  }
+}
+
+/** Branches whose voltage is imposed: voltage sources, inductors (shorts at DC), controlled-voltage and ideal op-amp outputs. */
+function voltageBranch(e: ElementRecord): readonly [string, string] | undefined {
+  switch (e.kind) {
+    case 'voltage-source':
+      return [e.plus, e.minus];
+    case 'inductor':
+      return [e.a, e.b];
+    case 'vcvs':
+    case 'ccvs':
+      return [e.outPlus, e.outMinus];
+    case 'op-amp':
+      return e.options?.outputResistance ? undefined : [e.output, GROUND];
+    default:
+      return undefined;
+  }
+}
+
+/** Run every whole-circuit check; throws the first failure in the order of the contract. */
+export function checkTopology(elements: readonly ElementRecord[]): void {
+  const byName = new Map(elements.map((e) => [e.name, e] as const));
+  for (const e of elements) {
+    if (e.kind === 'ccvs' || e.kind === 'cccs') {
+      const control = byName.get(e.control);
+      if (control === undefined) {
+        throw unknownElement(e.control, `the controlling element of '${e.name}' is not in the circuit`, [
+          e.name,
+          'control',
+        ]);
+      }
+      if (!hasCurrentUnknown(control)) {
+        throw unknownElement(
+          e.control,
+          `cannot control '${e.name}': only a voltage source, inductor, vcvs or ccvs has a current unknown`,
+          [e.name, 'control'],
+        );
+      }
+    }
+  }
+
+  const index = new Map<string, number>([[GROUND, 0]]);
+  let touchesGround = false;
+  for (const e of elements) {
+    for (const [, node] of terminalsOf(e)) {
+      if (node === GROUND) touchesGround = true;
+      if (!index.has(node)) index.set(node, index.size);
+    }
+  }
+  if (!touchesGround) throw noGround();
+
+  const dc = new DisjointSets(index.size);
+  for (const e of elements) for (const [a, b] of dcConnections(e)) dc.union(index.get(a)!, index.get(b)!);
+  const groundRoot = dc.find(0);
+  const floating = [...index].filter(([, i]) => dc.find(i) !== groundRoot).map(([name]) => name);
+  if (floating.length > 0) throw floatingNodes(floating);
+
+  const loops = new DisjointSets(index.size);
+  const through: ElementRecord[] = [];
+  for (const e of elements) {
+    const branch = voltageBranch(e);
+    if (branch === undefined) continue;
+    const [a, b] = branch;
+    if (!loops.union(index.get(a)!, index.get(b)!)) {
+      throw voltageLoop(...loopThrough(e, branch, through));
+    }
+    through.push(e);
+  }
+}
+
+/** The elements and nodes of the loop that `closing` makes with the voltage branches already accepted. */
+function loopThrough(
+  closing: ElementRecord,
+  [from, to]: readonly [string, string],
+  accepted: readonly ElementRecord[],
+): [string[], string[]] {
+  if (from === to) return [[closing.name], [from]];
+  // Breadth-first search from `to` back to `from` over accepted voltage branches.
+  const adjacency = new Map<string, { next: string; via: string }[]>();
+  for (const e of accepted) {
+    const [a, b] = voltageBranch(e)!;
+    if (!adjacency.has(a)) adjacency.set(a, []);
+    if (!adjacency.has(b)) adjacency.set(b, []);
+    adjacency.get(a)!.push({ next: b, via: e.name });
+    adjacency.get(b)!.push({ next: a, via: e.name });
+  }
+  const cameFrom = new Map<string, { prev: string; via: string }>();
+  const queue = [to];
+  const seen = new Set([to]);
+  while (queue.length > 0) {
+    const node = queue.shift()!;
+    if (node === from) break;
+    for (const { next, via } of adjacency.get(node) ?? []) {
+      if (seen.has(next)) continue;
+      seen.add(next);
+      cameFrom.set(next, { prev: node, via });
+      queue.push(next);
+    }
+  }
+  const elements = [closing.name];
+  const nodes = [from];
+  let node = from;
+  while (node !== to) {
+    const step = cameFrom.get(node)!;
+    elements.push(step.via);
+    node = step.prev;
+    nodes.push(node);
+  }
+  return [elements, nodes];
+}

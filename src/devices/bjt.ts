@@ -1,0 +1,231 @@
+/**
+ * The bipolar transistor: the transport form of the Ebers-Moll model with the forward Early effect
+ * (Ebers & Moll, Proc. IRE 42, 1954; Getreu, Modeling the Bipolar Transistor, 1976). For npn, with
+ * e_f = exp(vbe/(nf·Vt)) and e_r = exp(vbc/(nr·Vt)):
+ *   iT = Is·(e_f − e_r)·(1 + vce/VA)
+ *   ic = iT − (Is/βR)·(e_r − 1)
+ *   ib = (Is/βF)·(e_f − 1) + (Is/βR)·(e_r − 1)
+ * A pnp obeys the same equations in the mirrored voltages (veb, vcb), its currents flowing out of the
+ * terminals. A small conductance sits across each junction.
+ */
+import type { BjtRecord } from '../circuit/elements.js';
+import { addConductance, conductanceSlots } from '../mna/stamp.js';
+import { BJT_PARAMETERS } from './bjt-model.js';
+import type {
+  AcLoadContext,
+  BindContext,
+  Conditions,
+  DcLoadContext,
+  Device,
+  DeviceReport,
+  JunctionProbe,
+} from './device.js';
+import {
+  boundedExp,
+  boundedExpSlope,
+  criticalVoltage,
+  depletionCapacitance,
+  limitJunctionStep,
+  saturationCurrentAt,
+} from './junction.js';
+import { withDefaults } from './parameters.js';
+
+/** A junction counts as forward-biased above this many n·Vt (about 0.41 V for n = 1 at 300 K). */
+export const FORWARD_BIAS_THRESHOLD = 16;
+
+/** The operating region of a bipolar transistor, from the bias of its two junctions. */
+export type BjtRegion = 'cutoff' | 'forward-active' | 'reverse-active' | 'saturation';
+
+/** A compiled bipolar transistor. */
+export class Bjt implements Device {
+  readonly nonlinear = true;
+  readonly name: string;
+  private readonly p: ReturnType<typeof withDefaults<keyof typeof BJT_PARAMETERS>>;
+  /** +1 for npn, −1 for pnp. */
+  private readonly sign: number;
+  private c = 0;
+  private b = 0;
+  private e = 0;
+  // Slots of rows (c, b, e) × columns (c, b, e), row-major, then the two junction capacitors.
+  private s: Int32Array = new Int32Array(0);
+  private sBe: Int32Array = new Int32Array(0);
+  private sBc: Int32Array = new Int32Array(0);
+  private is = 0;
+  private nfVt = 0;
+  private nrVt = 0;
+  private vCritF = 0;
+  private vCritR = 0;
+  private gmin = 0;
+  private vbeOld = 0;
+  private vbcOld = 0;
+  // The last evaluation, in the mirrored frame: currents and their derivatives.
+  private ic = 0;
+  private ib = 0;
+  private dIcDvbe = 0;
+  private dIcDvbc = 0;
+  private dIbDvbe = 0;
+  private dIbDvbc = 0;
+
+  constructor(readonly record: BjtRecord) {
+    this.name = record.name;
+    this.p = withDefaults(BJT_PARAMETERS, record.model);
+    this.sign = record.polarity === 'npn' ? 1 : -1;
+  }
+  bind(ctx: BindContext): void {
+    this.c = ctx.node(this.record.collector);
+    this.b = ctx.node(this.record.base);
+    this.e = ctx.node(this.record.emitter);
+    const t = [this.c, this.b, this.e];
+    const pairs: number[] = [];
+    for (const r of t) for (const col of t) pairs.push(r, col);
+    this.s = ctx.slots(pairs);
+    this.sBe = conductanceSlots(ctx, this.b, this.e);
+    this.sBc = conductanceSlots(ctx, this.b, this.c);
+  }
+  prepare({ temperature, thermalVoltage, junctionConductance }: Conditions): void {
+    const p = this.p;
+    this.gmin = junctionConductance;
+    this.nfVt = p.forwardEmissionCoefficient * thermalVoltage;
+    this.nrVt = p.reverseEmissionCoefficient * thermalVoltage;
+    // The transport current's temperature law, with emission coefficient 1.
+    this.is = saturationCurrentAt(
+      p.saturationCurrent,
+      temperature,
+      p.referenceTemperature,
+      p.bandgap,
+      p.saturationCurrentTemperatureExponent,
+      1,
+    );
+    this.vCritF = criticalVoltage(this.nfVt, this.is);
+    this.vCritR = criticalVoltage(this.nrVt, this.is);
+  }
+  /** Evaluate the mirrored-frame currents and derivatives at (vbe, vbc), junction conductances included. */
+  private evaluate(vbe: number, vbc: number, withGmin: boolean): void {
+    const p = this.p;
+    const is = this.is;
+    const af = vbe / this.nfVt;
+    const ar = vbc / this.nrVt;
+    const ef = boundedExp(af);
+    const er = boundedExp(ar);
+    const gf = (is * boundedExpSlope(af)) / this.nfVt; // ∂(Is·e_f)/∂vbe
+    const gr = (is * boundedExpSlope(ar)) / this.nrVt; // ∂(Is·e_r)/∂vbc
+    const va = p.earlyVoltage;
+    const q = va === Number.POSITIVE_INFINITY ? 1 : 1 + (vbe - vbc) / va;
+    const dqdv = va === Number.POSITIVE_INFINITY ? 0 : 1 / va; // ∂q/∂vbe = −∂q/∂vbc
+    const transfer = is * (ef - er);
+    const g = withGmin ? this.gmin : 0;
+    this.ic = transfer * q - (is / p.reverseBeta) * (er - 1) - g * vbc;
+    this.ib = (is / p.forwardBeta) * (ef - 1) + (is / p.reverseBeta) * (er - 1) + g * (vbe + vbc);
+    this.dIcDvbe = gf * q + transfer * dqdv;
+    this.dIcDvbc = -gr * q - transfer * dqdv - gr / p.reverseBeta - g;
+    this.dIbDvbe = gf / p.forwardBeta + g;
+    this.dIbDvbc = gr / p.reverseBeta + g;
+  }
+  /** Add the Jacobian of (ic, ib, ie) with respect to the node voltages at rows/cols (c, b, e). */
+  private stampJacobian(A: Float64Array): void {
+    const s = this.s;
+    const g1 = this.dIcDvbe;
+    const g2 = this.dIcDvbc;
+    const h1 = this.dIbDvbe;
+    const h2 = this.dIbDvbc;
+    // Current into the collector: ∂/∂vc = −g2, ∂/∂vb = g1 + g2, ∂/∂ve = −g1; the same for the base.
+    A[s[0]!]! -= g2;
+    A[s[1]!]! += g1 + g2;
+    A[s[2]!]! -= g1;
+    A[s[3]!]! -= h2;
+    A[s[4]!]! += h1 + h2;
+    A[s[5]!]! -= h1;
+    // Current into the emitter is −(ic + ib).
+    A[s[6]!]! += g2 + h2;
+    A[s[7]!]! -= g1 + g2 + h1 + h2;
+    A[s[8]!]! += g1 + h1;
+  }
+  load(ctx: DcLoadContext): void {
+    const x = ctx.x;
+    const sign = this.sign;
+    const rawBe = sign * (x[this.b]! - x[this.e]!);
+    const rawBc = sign * (x[this.b]! - x[this.c]!);
+    let vbe = rawBe;
+    let vbc = rawBc;
+    if (!ctx.first) {
+      vbe = limitJunctionStep(rawBe, this.vbeOld, this.nfVt, this.vCritF);
+      vbc = limitJunctionStep(rawBc, this.vbcOld, this.nrVt, this.vCritR);
+      if (vbe !== rawBe || vbc !== rawBc) ctx.limited = true;
+    }
+    this.vbeOld = vbe;
+    this.vbcOld = vbc;
+    this.evaluate(vbe, vbc, true);
+    this.stampJacobian(ctx.A);
+    // Equivalent currents, in the circuit's frame: I − J·v at the evaluation point.
+    const icEq = sign * (this.ic - this.dIcDvbe * vbe - this.dIcDvbc * vbc);
+    const ibEq = sign * (this.ib - this.dIbDvbe * vbe - this.dIbDvbc * vbc);
+    const bv = ctx.b;
+    bv[this.c]! -= icEq;
+    bv[this.b]! -= ibEq;
+    bv[this.e]! += icEq + ibEq;
+  }
+  private mirrored(x: Float64Array): [number, number] {
+    return [this.sign * (x[this.b]! - x[this.e]!), this.sign * (x[this.b]! - x[this.c]!)];
+  }
+  private capacitances(vbe: number, vbc: number, gm: number): [number, number] {
+    const p = this.p;
+    const cpi =
+      depletionCapacitance(p.baseEmitterCapacitance, vbe, p.baseEmitterPotential, p.baseEmitterGrading) +
+      p.forwardTransitTime * gm;
+    const cmu = depletionCapacitance(
+      p.baseCollectorCapacitance,
+      vbc,
+      p.baseCollectorPotential,
+      p.baseCollectorGrading,
+    );
+    return [cpi, cmu];
+  }
+  loadAc(ctx: AcLoadContext): void {
+    const [vbe, vbc] = this.mirrored(ctx.x);
+    this.evaluate(vbe, vbc, false);
+    const gm = this.dIcDvbe + this.dIcDvbc;
+    const [cpi, cmu] = this.capacitances(vbe, vbc, gm);
+    this.evaluate(vbe, vbc, true);
+    this.stampJacobian(ctx.Ar);
+    addConductance(ctx.Ai, this.sBe, 0, ctx.omega * cpi);
+    addConductance(ctx.Ai, this.sBc, 0, ctx.omega * cmu);
+  }
+  /** The operating region, by the bias of the two junctions (threshold {@link FORWARD_BIAS_THRESHOLD}·n·Vt). */
+  region(vbe: number, vbc: number): BjtRegion {
+    const beOn = vbe > FORWARD_BIAS_THRESHOLD * this.nfVt;
+    const bcOn = vbc > FORWARD_BIAS_THRESHOLD * this.nrVt;
+    if (beOn) return bcOn ? 'saturation' : 'forward-active';
+    return bcOn ? 'reverse-active' : 'cutoff';
+  }
+  report(x: Float64Array): DeviceReport {
+    const [vbe, vbc] = this.mirrored(x);
+    this.evaluate(vbe, vbc, false);
+    const gm = this.dIcDvbe + this.dIcDvbc;
+    const gpi = this.dIbDvbe + this.dIbDvbc;
+    const go = -this.dIcDvbc;
+    const [cpi, cmu] = this.capacitances(vbe, vbc, gm);
+    // Terminal currents include the junction conductances.
+    this.evaluate(vbe, vbc, true);
+    const sign = this.sign;
+    return {
+      vbe: sign * vbe,
+      vbc: sign * vbc,
+      vce: sign * (vbe - vbc),
+      ic: this.ic,
+      ib: this.ib,
+      ie: this.ic + this.ib,
+      gm,
+      rpi: 1 / gpi,
+      ro: 1 / go,
+      cpi,
+      cmu,
+      region: this.region(vbe, vbc),
+    };
+  }
+  junctions(_x: Float64Array): readonly JunctionProbe[] {
+    return [
+      { junction: 'base-emitter', plus: this.b, minus: this.e, scale: this.nfVt },
+      { junction: 'base-collector', plus: this.b, minus: this.c, scale: this.nrVt },
+    ];
+  }
+}

@@ -1,0 +1,112 @@
+/**
+ * The device contract. Every element kind implements it, so that adding a device never touches the
+ * analyses. A device never sees the matrix layout: it asks the binding context for integer slots once,
+ * then adds its conductances and currents at those slots on every load.
+ *
+ * Indices: unknowns 0 … n−1; the index n is the ground "trash" row of the right-hand side and of the
+ * solution (x[n] is always 0), and slot nnz is the trash entry of the matrix values. Devices index
+ * with them freely, which keeps every load free of branches on ground.
+ */
+import type { ElementRecord } from '../circuit/elements.js';
+
+/** Numbering of unknowns, used while a circuit is compiled. */
+export interface AllocationContext {
+  /** Index of a circuit node; ground gives the trash index n. */
+  node(name: string): number;
+  /** A new internal node, named `owner#label` in messages. */
+  internalNode(owner: string, label: string): number;
+  /** A new branch-current unknown owned by `owner`. */
+  branch(owner: string): number;
+}
+
+/** Lookups and matrix slots, after every unknown is numbered. */
+export interface BindContext {
+  /** Index of a circuit node; ground gives the trash index n. */
+  node(name: string): number;
+  /** The branch-current unknown of element `name` (its first branch). */
+  branchOf(name: string): number;
+  /** Matrix slots for the (row, column) pairs given flat as [r0, c0, r1, c1, …]; ground pairs go to the trash slot. */
+  slots(pairs: readonly number[]): Int32Array;
+}
+
+/** What a DC load reads and writes. */
+export interface DcLoadContext {
+  /** The present Newton iterate, length n+1 with x[n] = 0. */
+  readonly x: Float64Array;
+  /** Matrix values, length nnz+1. */
+  readonly A: Float64Array;
+  /** Right-hand side, length n+1. */
+  readonly b: Float64Array;
+  /** Factor applied to every independent source (source ramping); 1 normally. */
+  readonly sourceScale: number;
+  /** Set by a device that limited a junction step: the load was not taken at x itself. */
+  limited: boolean;
+  /** Whether this is the first load of a Newton run (devices seed their limiter memory from x). */
+  readonly first: boolean;
+}
+
+/** What a small-signal (AC) load reads and writes. */
+export interface AcLoadContext {
+  /** The DC operating point, length n+1 with x[n] = 0. */
+  readonly x: Float64Array;
+  /** Angular frequency ω = 2πf in rad/s. */
+  readonly omega: number;
+  /** Real and imaginary parts of the matrix values, length nnz+1 each. */
+  readonly Ar: Float64Array;
+  readonly Ai: Float64Array;
+  /** Real and imaginary parts of the right-hand side, length n+1 each. */
+  readonly br: Float64Array;
+  readonly bi: Float64Array;
+}
+
+/** The conditions an analysis runs at, handed to every device before it loads. */
+export interface Conditions {
+  /** Temperature in kelvin. */
+  readonly temperature: number;
+  /** k·T/q in volts. */
+  readonly thermalVoltage: number;
+  /** The small conductance across every junction (and MOSFET channel), in S. */
+  readonly junctionConductance: number;
+}
+
+/** The operating report of a nonlinear device (see the public `DiodeReport`, `BjtReport`, `MosfetReport`). */
+export type DeviceReport = Readonly<Record<string, number | string>>;
+
+/** A junction (or channel) whose signal the linearity report measures. */
+export interface JunctionProbe {
+  /** `'pn'`, `'base-emitter'`, `'base-collector'` or `'channel'`. */
+  readonly junction: 'pn' | 'base-emitter' | 'base-collector' | 'channel';
+  /** Unknowns whose voltage difference is the junction (or gate-source) voltage. */
+  readonly plus: number;
+  readonly minus: number;
+  /** The voltage that normalizes the amplitude: n·Vt for a junction, the overdrive for a channel. */
+  readonly scale: number;
+}
+
+/** One element of a compiled circuit. */
+export interface Device {
+  readonly name: string;
+  readonly record: ElementRecord;
+  /** Number internal nodes (first pass). */
+  allocateNodes?(ctx: AllocationContext): void;
+  /** Number branch currents (second pass, after all nodes). */
+  allocateBranches?(ctx: AllocationContext): void;
+  /** Take matrix slots and resolve references. */
+  bind(ctx: BindContext): void;
+  /** Set the quantities that depend on the analysis conditions (temperature, junction conductance). */
+  prepare?(conditions: Conditions): void;
+  /** Add the Newton companion at ctx.x. */
+  load(ctx: DcLoadContext): void;
+  /** Add the small-signal admittances at the operating point ctx.x, and AC excitations. */
+  loadAc(ctx: AcLoadContext): void;
+  /** The DC current of a two-terminal element or controlled-source output, by the sign conventions. */
+  current?(x: Float64Array): number;
+  /** The AC current phasor at ω from solution (xr, xi), written to out[0] (real) and out[1] (imaginary). */
+  acCurrent?(xr: Float64Array, xi: Float64Array, omega: number, x: Float64Array, out: Float64Array): void;
+  /** Operating values and small-signal parameters at x. */
+  report?(x: Float64Array): DeviceReport;
+  /** Junctions and channels to check for linearity at x. */
+  junctions?(x: Float64Array): readonly JunctionProbe[];
+  /** Whether the device's load depends on x (so the circuit needs Newton iterations). */
+  readonly nonlinear: boolean;
+}

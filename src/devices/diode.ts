@@ -1,0 +1,151 @@
+/**
+ * The junction diode: Shockley's law with emission coefficient, reverse breakdown, an ohmic series
+ * resistance through an internal node, depletion and diffusion capacitance.
+ *
+ * Junction current (anode → cathode) at junction voltage v, with nVt = n·k·T/q:
+ *   i(v) = Is·(e^(v/nVt) − 1) − Is·e^(−(v + BV)/nVt) + g_min·v
+ * The breakdown term is e-fold steeper per nVt below −BV, mirroring the forward knee.
+ */
+import type { DiodeRecord } from '../circuit/elements.js';
+import { addConductance, addCurrent, conductanceSlots } from '../mna/stamp.js';
+import type {
+  AcLoadContext,
+  AllocationContext,
+  BindContext,
+  Conditions,
+  DcLoadContext,
+  Device,
+  DeviceReport,
+  JunctionProbe,
+} from './device.js';
+import { DIODE_PARAMETERS } from './diode-model.js';
+import {
+  boundedExp,
+  boundedExpSlope,
+  criticalVoltage,
+  depletionCapacitance,
+  limitJunctionStep,
+  saturationCurrentAt,
+} from './junction.js';
+import { withDefaults } from './parameters.js';
+
+/** A compiled diode. */
+export class Diode implements Device {
+  readonly nonlinear = true;
+  readonly name: string;
+  private readonly p: ReturnType<typeof withDefaults<keyof typeof DIODE_PARAMETERS>>;
+  private a = 0;
+  private c = 0;
+  /** The junction's anode side: the anode itself, or the internal node behind the series resistance. */
+  private j = 0;
+  private sJunction: Int32Array = new Int32Array(0);
+  private sSeries: Int32Array = new Int32Array(0);
+  private is = 0;
+  private nVt = 0;
+  private vCritical = 0;
+  private vOld = 0;
+  private gmin = 0;
+  // Scratch of the last evaluation: current and conductance.
+  private i = 0;
+  private g = 0;
+  private gDiffusion = 0;
+
+  constructor(readonly record: DiodeRecord) {
+    this.name = record.name;
+    this.p = withDefaults(DIODE_PARAMETERS, record.model);
+  }
+  allocateNodes(ctx: AllocationContext): void {
+    if (this.p.seriesResistance > 0) this.j = ctx.internalNode(this.name, 'junction');
+  }
+  bind(ctx: BindContext): void {
+    this.a = ctx.node(this.record.anode);
+    this.c = ctx.node(this.record.cathode);
+    if (this.p.seriesResistance > 0) this.sSeries = conductanceSlots(ctx, this.a, this.j);
+    else this.j = this.a;
+    this.sJunction = conductanceSlots(ctx, this.j, this.c);
+  }
+  prepare({ temperature, thermalVoltage, junctionConductance }: Conditions): void {
+    const p = this.p;
+    this.gmin = junctionConductance;
+    this.nVt = p.emissionCoefficient * thermalVoltage;
+    this.is = saturationCurrentAt(
+      p.saturationCurrent,
+      temperature,
+      p.referenceTemperature,
+      p.bandgap,
+      p.saturationCurrentTemperatureExponent,
+      p.emissionCoefficient,
+    );
+    this.vCritical = criticalVoltage(this.nVt, this.is);
+  }
+  /** Evaluate current and conductance at junction voltage v into the scratch fields. */
+  private evaluate(v: number): void {
+    const gmin = this.gmin;
+    const a = v / this.nVt;
+    const gf = (this.is * boundedExpSlope(a)) / this.nVt;
+    let i = this.is * (boundedExp(a) - 1);
+    let g = gf;
+    const bv = this.p.breakdownVoltage;
+    if (bv !== Number.POSITIVE_INFINITY) {
+      const ab = -(v + bv) / this.nVt;
+      i -= this.is * boundedExp(ab);
+      g += (this.is * boundedExpSlope(ab)) / this.nVt;
+    }
+    this.i = i + gmin * v;
+    this.g = g + gmin;
+    this.gDiffusion = gf;
+  }
+  /** Limit a step on both knees: the forward one, and the breakdown one mirrored. */
+  private limit(v: number): number {
+    let out = limitJunctionStep(v, this.vOld, this.nVt, this.vCritical);
+    const bv = this.p.breakdownVoltage;
+    if (bv !== Number.POSITIVE_INFINITY && out < -bv) {
+      out = -bv - limitJunctionStep(-(out + bv), -(this.vOld + bv), this.nVt, this.vCritical);
+    }
+    return out;
+  }
+  load(ctx: DcLoadContext): void {
+    const x = ctx.x;
+    const raw = x[this.j]! - x[this.c]!;
+    const v = ctx.first ? raw : this.limit(raw);
+    if (v !== raw) ctx.limited = true;
+    this.vOld = v;
+    this.evaluate(v);
+    addConductance(ctx.A, this.sJunction, 0, this.g);
+    addCurrent(ctx.b, this.j, this.c, this.i - this.g * v);
+    if (this.p.seriesResistance > 0) addConductance(ctx.A, this.sSeries, 0, 1 / this.p.seriesResistance);
+  }
+  loadAc(ctx: AcLoadContext): void {
+    const v = ctx.x[this.j]! - ctx.x[this.c]!;
+    this.evaluate(v);
+    addConductance(ctx.Ar, this.sJunction, 0, this.g);
+    addConductance(ctx.Ai, this.sJunction, 0, ctx.omega * this.capacitanceAt(v));
+    if (this.p.seriesResistance > 0) addConductance(ctx.Ar, this.sSeries, 0, 1 / this.p.seriesResistance);
+  }
+  private capacitanceAt(v: number): number {
+    const p = this.p;
+    return (
+      depletionCapacitance(p.junctionCapacitance, v, p.junctionPotential, p.gradingCoefficient) +
+      p.transitTime * this.gDiffusion
+    );
+  }
+  current(x: Float64Array): number {
+    this.evaluate(x[this.j]! - x[this.c]!);
+    return this.i;
+  }
+  report(x: Float64Array): DeviceReport {
+    const v = x[this.j]! - x[this.c]!;
+    this.evaluate(v);
+    return {
+      voltage: x[this.a]! - x[this.c]!,
+      junctionVoltage: v,
+      current: this.i,
+      conductance: this.g,
+      resistance: 1 / this.g,
+      capacitance: this.capacitanceAt(v),
+    };
+  }
+  junctions(_x: Float64Array): readonly JunctionProbe[] {
+    return [{ junction: 'pn', plus: this.j, minus: this.c, scale: this.nVt }];
+  }
+}

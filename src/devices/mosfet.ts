@@ -1,0 +1,218 @@
+/**
+ * The MOSFET: the square law of Shichman & Hodges (IEEE J. Solid-State Circuits 3(3), 1968) with
+ * channel-length modulation and body effect. For nmos with vds ≥ 0 and
+ * Vth = Vth0 + γ·(√(φ − vbs) − √φ), V_ov = vgs − Vth:
+ *   saturation (vds ≥ V_ov > 0): id = ½·β·V_ov²·(1 + λ·vds)
+ *   triode (0 < vds < V_ov):     id = β·(V_ov·vds − ½·vds²)·(1 + λ·vds)
+ *   cutoff (V_ov ≤ 0):           id = 0
+ * When vds < 0 the drain and source exchange roles. A pmos obeys the same law in vsg, vsd, vsb with
+ * |Vth0|. A small conductance sits across the channel and between body and source.
+ */
+import type { MosfetRecord } from '../circuit/elements.js';
+import { addConductance, conductanceSlots } from '../mna/stamp.js';
+import type {
+  AcLoadContext,
+  BindContext,
+  Conditions,
+  DcLoadContext,
+  Device,
+  DeviceReport,
+  JunctionProbe,
+} from './device.js';
+import { defaultThreshold, MOSFET_PARAMETERS } from './mosfet-model.js';
+import { withDefaults } from './parameters.js';
+
+/** The operating region of a MOSFET. */
+export type MosfetRegion = 'cutoff' | 'triode' | 'saturation';
+
+/** Where √(φ − vbs) is clamped when the body is forward-biased past φ (keeps the law finite). */
+const MIN_BODY_ROOT = 1e-3;
+
+/** A compiled MOSFET. */
+export class Mosfet implements Device {
+  readonly nonlinear = true;
+  readonly name: string;
+  private readonly p: ReturnType<typeof withDefaults<keyof typeof MOSFET_PARAMETERS>>;
+  /** +1 for nmos, −1 for pmos. */
+  private readonly sign: number;
+  /** |Vth0| in the mirrored frame. */
+  private readonly vth0: number;
+  private d = 0;
+  private g = 0;
+  private s = 0;
+  private bd = 0;
+  // Slots of rows (d, s) × columns (d, g, s, b), then the body tie and the two gate capacitors.
+  private sChannel: Int32Array = new Int32Array(0);
+  private sBody: Int32Array = new Int32Array(0);
+  private sGs: Int32Array = new Int32Array(0);
+  private sGd: Int32Array = new Int32Array(0);
+  private gmin = 0;
+  private vgsOld = 0;
+  private vdsOld = 0;
+  // The last evaluation in the mirrored frame.
+  private id = 0;
+  private gm = 0;
+  private gds = 0;
+  private gmb = 0;
+  private vth = 0;
+  private reversed = false;
+  private regionNow: MosfetRegion = 'cutoff';
+
+  constructor(readonly record: MosfetRecord) {
+    this.name = record.name;
+    this.p = withDefaults(MOSFET_PARAMETERS, record.model);
+    this.sign = record.polarity === 'nmos' ? 1 : -1;
+    const given = record.model.thresholdVoltage;
+    this.vth0 = this.sign * (given === undefined ? defaultThreshold(record.polarity) : given);
+  }
+  bind(ctx: BindContext): void {
+    this.d = ctx.node(this.record.drain);
+    this.g = ctx.node(this.record.gate);
+    this.s = ctx.node(this.record.source);
+    this.bd = ctx.node(this.record.body);
+    const cols = [this.d, this.g, this.s, this.bd];
+    const pairs: number[] = [];
+    for (const r of [this.d, this.s]) for (const col of cols) pairs.push(r, col);
+    this.sChannel = ctx.slots(pairs);
+    this.sBody = conductanceSlots(ctx, this.bd, this.s);
+    this.sGs = conductanceSlots(ctx, this.g, this.s);
+    this.sGd = conductanceSlots(ctx, this.g, this.d);
+  }
+  prepare({ junctionConductance }: Conditions): void {
+    this.gmin = junctionConductance;
+  }
+  /** The square law for vds ≥ 0 in the mirrored frame; writes id, gm, gds, gmb, vth, regionNow. */
+  private channel(vgs: number, vds: number, vbs: number): void {
+    const {
+      gainFactor: beta,
+      channelLengthModulation: lambda,
+      bodyEffect: gamma,
+      surfacePotential: phi,
+    } = this.p;
+    let root = Math.sqrt(Math.max(phi - vbs, 0));
+    let dRootDvbs = 0;
+    if (root < MIN_BODY_ROOT) root = MIN_BODY_ROOT;
+    else dRootDvbs = -1 / (2 * root);
+    this.vth = this.vth0 + gamma * (root - Math.sqrt(phi));
+    const vov = vgs - this.vth;
+    const clm = 1 + lambda * vds;
+    if (vov <= 0) {
+      this.id = 0;
+      this.gm = 0;
+      this.gds = 0;
+      this.regionNow = 'cutoff';
+    } else if (vds >= vov) {
+      this.id = 0.5 * beta * vov * vov * clm;
+      this.gm = beta * vov * clm;
+      this.gds = 0.5 * beta * vov * vov * lambda;
+      this.regionNow = 'saturation';
+    } else {
+      const core = vov * vds - 0.5 * vds * vds;
+      this.id = beta * core * clm;
+      this.gm = beta * vds * clm;
+      this.gds = beta * (vov - vds) * clm + beta * core * lambda;
+      this.regionNow = 'triode';
+    }
+    // ∂id/∂vbs = ∂id/∂V_ov · (−∂Vth/∂vbs).
+    this.gmb = -this.gm * gamma * dRootDvbs;
+  }
+  /** Evaluate at mirrored (vgs, vds, vbs), swapping drain and source when vds < 0. */
+  private evaluate(vgs: number, vds: number, vbs: number): void {
+    this.reversed = vds < 0;
+    if (!this.reversed) {
+      this.channel(vgs, vds, vbs);
+      return;
+    }
+    // id = −f(vgs − vds, −vds, vbs − vds): chain rule back to (vgs, vds, vbs).
+    this.channel(vgs - vds, -vds, vbs - vds);
+    const fg = this.gm;
+    const fd = this.gds;
+    const fb = this.gmb;
+    this.id = -this.id;
+    this.gm = -fg;
+    this.gmb = -fb;
+    this.gds = fg + fd + fb;
+  }
+  private mirrored(x: Float64Array): [number, number, number] {
+    const sign = this.sign;
+    const vs = x[this.s]!;
+    return [sign * (x[this.g]! - vs), sign * (x[this.d]! - vs), sign * (x[this.bd]! - vs)];
+  }
+  /** Add the channel Jacobian (gmin across the channel included) at rows (d, s), columns (d, g, s, b). */
+  private stampJacobian(A: Float64Array): void {
+    const s = this.sChannel;
+    const gds = this.gds + this.gmin;
+    const gm = this.gm;
+    const gmb = this.gmb;
+    A[s[0]!]! += gds;
+    A[s[1]!]! += gm;
+    A[s[2]!]! -= gm + gds + gmb;
+    A[s[3]!]! += gmb;
+    A[s[4]!]! -= gds;
+    A[s[5]!]! -= gm;
+    A[s[6]!]! += gm + gds + gmb;
+    A[s[7]!]! -= gmb;
+  }
+  load(ctx: DcLoadContext): void {
+    let [vgs, vds] = this.mirrored(ctx.x);
+    const vbs = this.mirrored(ctx.x)[2];
+    if (!ctx.first) {
+      // Bound each step by the distance already travelled plus a volt or two: the square law is
+      // smooth, but a long jump across the threshold can land in cutoff where the Jacobian is empty.
+      const vgsLimit = 1 + Math.abs(this.vgsOld - this.vth);
+      const vdsLimit = 2 + Math.abs(this.vdsOld);
+      const vgsStep = Math.max(-vgsLimit, Math.min(vgsLimit, vgs - this.vgsOld));
+      const vdsStep = Math.max(-vdsLimit, Math.min(vdsLimit, vds - this.vdsOld));
+      if (vgsStep !== vgs - this.vgsOld || vdsStep !== vds - this.vdsOld) {
+        vgs = this.vgsOld + vgsStep;
+        vds = this.vdsOld + vdsStep;
+        ctx.limited = true;
+      }
+    }
+    this.vgsOld = vgs;
+    this.vdsOld = vds;
+    this.evaluate(vgs, vds, vbs);
+    this.stampJacobian(ctx.A);
+    addConductance(ctx.A, this.sBody, 0, this.gmin);
+    // Equivalent current into the drain, in the circuit's frame.
+    const sign = this.sign;
+    const ieq = sign * (this.id - this.gm * vgs - this.gds * vds - this.gmb * vbs);
+    ctx.b[this.d]! -= ieq;
+    ctx.b[this.s]! += ieq;
+  }
+  loadAc(ctx: AcLoadContext): void {
+    const [vgs, vds, vbs] = this.mirrored(ctx.x);
+    this.evaluate(vgs, vds, vbs);
+    this.stampJacobian(ctx.Ar);
+    addConductance(ctx.Ar, this.sBody, 0, this.gmin);
+    addConductance(ctx.Ai, this.sGs, 0, ctx.omega * this.p.gateSourceCapacitance);
+    addConductance(ctx.Ai, this.sGd, 0, ctx.omega * this.p.gateDrainCapacitance);
+  }
+  report(x: Float64Array): DeviceReport {
+    const [vgs, vds, vbs] = this.mirrored(x);
+    this.evaluate(vgs, vds, vbs);
+    const sign = this.sign;
+    return {
+      vgs: sign * vgs,
+      vds: sign * vds,
+      vbs: sign * vbs,
+      id: this.id + this.gmin * vds,
+      gm: this.gm,
+      gds: this.gds,
+      gmb: this.gmb,
+      cgs: this.p.gateSourceCapacitance,
+      cgd: this.p.gateDrainCapacitance,
+      region: this.regionNow,
+      thresholdVoltage: sign * this.vth,
+      overdrive: this.regionNow === 'cutoff' ? 0 : (this.reversed ? vgs - vds : vgs) - this.vth,
+    };
+  }
+  junctions(x: Float64Array): readonly JunctionProbe[] {
+    const [vgs, vds, vbs] = this.mirrored(x);
+    this.evaluate(vgs, vds, vbs);
+    if (this.regionNow !== 'saturation') return [];
+    const source = this.reversed ? this.d : this.s;
+    const vov = (this.reversed ? vgs - vds : vgs) - this.vth;
+    return [{ junction: 'channel', plus: this.g, minus: source, scale: vov }];
+  }
+}

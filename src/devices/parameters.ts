@@ -1,0 +1,111 @@
+/**
+ * Model parameters as data: each device kind lists its parameters with unit, default and range, and
+ * one resolver turns what the user gave (numbers or SI strings) into checked numbers.
+ */
+import { invalidCircuit, invalidValue } from '../errors/messages.js';
+import { parseValue, type Unit } from '../values/index.js';
+
+/** The admissible range of a parameter. */
+export type ParameterRange =
+  | 'positive' // > 0, finite
+  | 'non-negative' // ≥ 0, finite
+  | 'positive-or-infinite' // > 0, Infinity allowed (the effect is then absent)
+  | 'at-least-one' // ≥ 1... emission coefficients use 'positive'; kept for gains
+  | 'grading' // in (0, 1)
+  | 'any'; // any finite number
+
+/** What one model parameter is: its unit, default and admissible range. */
+export interface ParameterSpec {
+  readonly unit?: Unit;
+  readonly defaultValue: number;
+  readonly range: ParameterRange;
+}
+
+/** A table of parameter specifications, keyed by parameter name. */
+export type ParameterTable<K extends string> = Readonly<Record<K, ParameterSpec>>;
+
+const RANGE_WORDS: Readonly<Record<ParameterRange, string>> = {
+  positive: 'a finite number greater than 0',
+  'non-negative': 'a finite number of 0 or more',
+  'positive-or-infinite': 'a number greater than 0 (Infinity removes the effect)',
+  'at-least-one': 'a finite number of 1 or more',
+  grading: 'a number between 0 and 1 (exclusive)',
+  any: 'a finite number',
+};
+
+function inRange(value: number, range: ParameterRange): boolean {
+  switch (range) {
+    case 'positive':
+      return Number.isFinite(value) && value > 0;
+    case 'non-negative':
+      return Number.isFinite(value) && value >= 0;
+    case 'positive-or-infinite':
+      return value > 0;
+    case 'at-least-one':
+      return Number.isFinite(value) && value >= 1;
+    case 'grading':
+      return value > 0 && value < 1;
+    case 'any':
+      return Number.isFinite(value);
+  }
+}
+
+/**
+ * Parse and check the parameters a user gave. Returns only the given ones, as numbers; unknown keys
+ * are rejected with the path of the offending key. `skip` names keys handled elsewhere (polarity).
+ */
+export function parseParameters<K extends string>(
+  table: ParameterTable<K>,
+  given: unknown,
+  path: readonly (string | number)[],
+  kindName: string,
+  skip: readonly string[] = [],
+): Partial<Record<K, number>> {
+  if (given === undefined) return {};
+  if (given === null || typeof given !== 'object' || Array.isArray(given)) {
+    throw invalidCircuit(path, `the model of a ${kindName} must be an object of parameters`);
+  }
+  const out: Partial<Record<K, number>> = {};
+  for (const key of Object.keys(given)) {
+    if (skip.includes(key)) continue;
+    if (!Object.hasOwn(table, key)) {
+      const known = Object.keys(table).join(', ');
+      throw invalidCircuit(
+        [...path, key],
+        `is not a parameter of a ${kindName}; the parameters are ${known}`,
+      );
+    }
+    const k = key as K;
+    const spec = table[k];
+    const raw = (given as Record<string, unknown>)[key];
+    if (raw === undefined) continue;
+    let value: number;
+    if (
+      typeof raw === 'number' &&
+      spec.range === 'positive-or-infinite' &&
+      raw === Number.POSITIVE_INFINITY
+    ) {
+      value = raw;
+    } else if (typeof raw === 'number' || typeof raw === 'string') {
+      value = parseValue(raw, spec.unit, [...path, key]);
+    } else {
+      throw invalidValue([...path, key], raw, RANGE_WORDS[spec.range]);
+    }
+    if (!inRange(value, spec.range)) throw invalidValue([...path, key], raw, RANGE_WORDS[spec.range]);
+    out[k] = value;
+  }
+  return out;
+}
+
+/** Fill in defaults: every parameter of the table, the given value where there is one. */
+export function withDefaults<K extends string>(
+  table: ParameterTable<K>,
+  given: Partial<Record<K, number>>,
+): Record<K, number> {
+  const out = {} as Record<K, number>;
+  for (const key of Object.keys(table) as K[]) {
+    const v = given[key];
+    out[key] = v === undefined ? table[key].defaultValue : v;
+  }
+  return out;
+}

@@ -1,0 +1,116 @@
+/**
+ * The sparse real solver behind the RealLinearSolver contract: symbolic analysis on the first
+ * values, a fresh factorization, then refactorizations on the kept pivot order that fall back to a
+ * fresh factorization when a pivot fails the threshold test (the refactor-or-factor policy of KLU,
+ * Davis & Palamadai Natarajan, ACM TOMS 37, 2010).
+ *
+ * Key to the names: `S` symbolic analysis, `N` numeric factorization, `ws` workspace, `valid`
+ * whether N holds a complete factorization of the last values.
+ */
+import { luFactor } from './lu.js';
+import { createNumericLu, type NumericLu, type PivotTolerances, type SymbolicLu } from './lu-types.js';
+import { analyzePattern, type Ordering } from './ordering.js';
+import { luRefactor } from './refactor.js';
+import { luSolve, luSolveMany, luSolveTranspose } from './triangular.js';
+import type { CscPattern, FactorStatus, RealLinearSolver } from './types.js';
+import { computeRowScale, createLuWorkspace, type LuWorkspace } from './workspace.js';
+
+/** Options of the sparse solvers. */
+export interface SparseSolverOptions {
+  /** Fill-reducing ordering; 'amd' (default) or 'natural' (the caller's order). */
+  readonly ordering?: Ordering;
+  /** Threshold τ of partial pivoting: the matched row is kept while ≥ τ × the column's largest. 1e-3. */
+  readonly pivotTolerance?: number;
+  /** Relative size below which a column has no acceptable pivot. 1e-13. */
+  readonly singularTolerance?: number;
+  /** A symbolic analysis to reuse (for example the real solver's, for the complex solver). */
+  readonly symbolic?: SymbolicLu;
+}
+
+/** Counters of the work a sparse solver did, for benchmarks and diagnostics. */
+export interface LuStatistics {
+  /** Fresh factorizations (pivot search included). */
+  readonly factorizations: number;
+  /** Refactorizations that succeeded on the kept pivot order. */
+  readonly refactorizations: number;
+  /** Refactorizations abandoned for a fresh factorization. */
+  readonly fallbacks: number;
+  /** Entries of L (unit diagonal excluded) and U (diagonal included) of the last factorization. */
+  readonly nnzL: number;
+  readonly nnzU: number;
+}
+
+/** A sparse real solver: the contract plus several right-hand sides and statistics. */
+export interface SparseRealSolver extends RealLinearSolver {
+  /** The symbolic analysis, once the first factor() has computed it. */
+  readonly symbolic: SymbolicLu | null;
+  /**
+   * Column r of B, B[r·stride … r·stride + n), is overwritten with A⁻¹ (Aᵀ⁻¹ when `transpose`)
+   * times itself, for r in [0, count).
+   */
+  solveMany(B: Float64Array, count: number, stride: number, transpose?: boolean): void;
+  /** Force the next factor() to search pivots afresh. */
+  invalidate(): void;
+  statistics(): LuStatistics;
+}
+
+/** Resolve the options into tolerances with their defaults. */
+export function tolerancesOf(options: SparseSolverOptions): PivotTolerances {
+  return {
+    pivotTolerance: options.pivotTolerance ?? 1e-3,
+    singularTolerance: options.singularTolerance ?? 1e-13,
+  };
+}
+
+/** Create a sparse real LU solver for matrices on `pattern`. */
+export function createSparseRealSolver(
+  pattern: CscPattern,
+  options: SparseSolverOptions = {},
+): SparseRealSolver {
+  const n = pattern.n;
+  const tol = tolerancesOf(options);
+  const ordering = options.ordering ?? 'amd';
+  const ws: LuWorkspace = createLuWorkspace(n, false);
+  const N: NumericLu = createNumericLu(n, 4 * pattern.Ap[n]! + n);
+  let S: SymbolicLu | null = options.symbolic ?? null;
+  let valid = false;
+  let factorizations = 0;
+  let refactorizations = 0;
+  let fallbacks = 0;
+  return {
+    n,
+    get symbolic() {
+      return S;
+    },
+    factor(Ax: Float64Array): FactorStatus {
+      if (S === null) S = analyzePattern(pattern, Ax, ordering, tol.pivotTolerance);
+      if (valid) {
+        if (luRefactor(pattern, Ax, S, N, ws, tol) === 0) {
+          refactorizations++;
+          return 0;
+        }
+        fallbacks++;
+      }
+      factorizations++;
+      computeRowScale(pattern.Ap, pattern.Ai, Ax, ws);
+      const status = luFactor(pattern, Ax, S, N, ws, tol);
+      valid = status === 0;
+      return status;
+    },
+    solve(b: Float64Array): void {
+      luSolve(N, S!.q, b, ws.y);
+    },
+    solveTranspose(b: Float64Array): void {
+      luSolveTranspose(N, S!.q, b, ws.y);
+    },
+    solveMany(B: Float64Array, count: number, stride: number, transpose = false): void {
+      luSolveMany(N, S!.q, B, count, stride, ws.y, transpose);
+    },
+    invalidate(): void {
+      valid = false;
+    },
+    statistics(): LuStatistics {
+      return { factorizations, refactorizations, fallbacks, nnzL: N.Lp[n]!, nnzU: N.Up[n]! + n };
+    },
+  };
+}

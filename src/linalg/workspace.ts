@@ -1,0 +1,68 @@
+/**
+ * The scratch space of the sparse LU kernels, allocated once per solver and reused by every
+ * factorization, refactorization and solve (CSparse sizes the same pieces once per call: a dense
+ * value vector and a 2n integer vector, cs_lu.c).
+ *
+ * Key to the names: `n` order; `x`/`z` dense real/imaginary accumulators, all zero between uses;
+ * `rowScale` reciprocal row maxima; `stack` 2n integers, [0, n) the depth-first output and stack, [n, 2n) the saved edge positions;
+ * `mark` visit marks, a node j counts as visited when mark[j] === generation.
+ */
+
+/** Scratch arrays owned by one solver; nothing in the kernels allocates beyond these. */
+export interface LuWorkspace {
+  readonly n: number;
+  /** Dense real accumulator, length n, zero between uses. */
+  readonly x: Float64Array;
+  /** Dense imaginary accumulator, length n for complex solvers, 0 for real ones. */
+  readonly z: Float64Array;
+  /** Right-hand-side scratch, length n (real part). */
+  readonly y: Float64Array;
+  /** Right-hand-side scratch, imaginary part (length n for complex solvers). */
+  readonly yz: Float64Array;
+  /** 2n integers: reach output and depth-first stack in [0, n), edge positions in [n, 2n). */
+  readonly stack: Int32Array;
+  /** 1 / max|A(i, :)| for each row i: the row scaling the pivot search compares magnitudes under. */
+  readonly rowScale: Float64Array;
+  /** Visit marks compared with `generation`, so clearing costs nothing. */
+  readonly mark: Int32Array;
+  /** Current visit generation; advance it with {@link nextGeneration}. */
+  generation: number;
+}
+
+/** Allocate the workspace of a solver of order n; `complex` adds the imaginary vectors. */
+export function createLuWorkspace(n: number, complex: boolean): LuWorkspace {
+  return {
+    n,
+    x: new Float64Array(n),
+    z: new Float64Array(complex ? n : 0),
+    y: new Float64Array(n),
+    yz: new Float64Array(complex ? n : 0),
+    stack: new Int32Array(2 * n),
+    rowScale: new Float64Array(n),
+    mark: new Int32Array(n),
+    generation: 0,
+  };
+}
+
+/** Start a new visit: returns a generation that no mark holds yet. */
+export function nextGeneration(ws: LuWorkspace): number {
+  if (ws.generation >= 0x3fffffff) {
+    ws.mark.fill(0);
+    ws.generation = 0;
+  }
+  ws.generation++;
+  return ws.generation;
+}
+
+/** ws.rowScale[i] = 1 / max_j |A(i, j)| (1 for an all-zero row), over the first nnz values. */
+export function computeRowScale(Ap: Int32Array, Ai: Int32Array, Ax: Float64Array, ws: LuWorkspace): void {
+  const r = ws.rowScale;
+  r.fill(0);
+  const nnz = Ap[ws.n]!;
+  for (let p = 0; p < nnz; p++) {
+    const a = Math.abs(Ax[p]!);
+    const i = Ai[p]!;
+    if (a > r[i]!) r[i] = a;
+  }
+  for (let i = 0; i < ws.n; i++) r[i] = r[i]! > 0 ? 1 / r[i]! : 1;
+}
