@@ -22,7 +22,26 @@ export {
   type OpAmpTerminals,
   type SourceSpec,
 } from './circuit/circuit.js';
-export { type AcExcitation, type ElementKind, type ElementRecord, GROUND } from './circuit/elements.js';
+export {
+  type AcExcitation,
+  type BjtRecord,
+  type CapacitorRecord,
+  type CccsRecord,
+  type CcvsRecord,
+  type CurrentSourceRecord,
+  type DiodeRecord,
+  type ElementKind,
+  type ElementRecord,
+  type GivenParameters,
+  GROUND,
+  type InductorRecord,
+  type MosfetRecord,
+  type OpAmpRecord,
+  type ResistorRecord,
+  type VccsRecord,
+  type VcvsRecord,
+  type VoltageSourceRecord,
+} from './circuit/elements.js';
 export { type CircuitDocument, DOCUMENT_FORMAT, DOCUMENT_VERSION } from './circuit/json.js';
 export type { BjtModel } from './devices/bjt-model.js';
 export type { DiodeModel } from './devices/diode-model.js';
