@@ -18,26 +18,43 @@ export interface SourceSpec {
   /** DC value, V or A (default 0). */
   dc?: Value;
   /** AC peak magnitude, or magnitude with phase in degrees (default 0: no AC signal). */
-  ac?: Value | { magnitude: Value; phase?: number };
+  ac?:
+    | Value
+    | {
+        /** Peak magnitude, V or A. */
+        magnitude: Value;
+        /** Phase in degrees (default 0). */
+        phase?: number;
+      };
 }
 
 /** Terminals of an op-amp. */
 export interface OpAmpTerminals {
+  /** The non-inverting input node. */
   plus: string;
+  /** The inverting input node. */
   minus: string;
+  /** The output node. */
   output: string;
 }
 /** Terminals of a bipolar transistor. */
 export interface BjtTerminals {
+  /** The collector node. */
   collector: string;
+  /** The base node. */
   base: string;
+  /** The emitter node. */
   emitter: string;
 }
 /** Terminals of a MOSFET; `body` defaults to `source`. */
 export interface MosfetTerminals {
+  /** The drain node. */
   drain: string;
+  /** The gate node. */
   gate: string;
+  /** The source node. */
   source: string;
+  /** The body (bulk) node; defaults to `source`. */
   body?: string;
 }
 
@@ -302,6 +319,9 @@ export class Circuit {
   }
 
   #add(record: ElementRecord): this {
+    // Records are shared with callers (elements, element()); freezing their nested objects too keeps
+    // every value as checked.
+    for (const value of Object.values(record)) if (typeof value === 'object') Object.freeze(value);
     this.#elements.push(Object.freeze(record));
     this.#byName.set(record.name, record);
     this.#revision++;
@@ -381,7 +401,8 @@ function polarityOf<P extends string>(
 function finite(v: unknown, unit: Unit | undefined, path: readonly (string | number)[]): number {
   if (typeof v !== 'number' && typeof v !== 'string')
     throw invalidValue(path, v, 'a number or a value string');
-  return parseValue(v, unit, path);
+  // −0 becomes 0: JSON cannot carry the sign of zero, and a round trip must give the same record.
+  return parseValue(v, unit, path) || 0;
 }
 
 function positive(v: unknown, unit: Unit, path: readonly (string | number)[]): number {
@@ -425,7 +446,7 @@ function sourceSpec(spec: unknown, unit: Unit, path: readonly string[]): { dc: n
       if (typeof phase !== 'number' || !Number.isFinite(phase)) {
         throw invalidValue([...path, 'ac', 'phase'], phase, 'a finite phase in degrees');
       }
-      ac = { magnitude, phase };
+      ac = { magnitude, phase: phase || 0 };
     } else {
       throw invalidCircuit([...path, 'ac'], 'must be a magnitude or { magnitude, phase }');
     }

@@ -14,8 +14,11 @@ export const DOCUMENT_VERSION = 1;
 
 /** A circuit as plain JSON: `{ format, version, elements }`, each element its record with numbers in SI units. */
 export interface CircuitDocument {
+  /** Always {@link DOCUMENT_FORMAT}, `'quiescent-circuit'`. */
   readonly format: typeof DOCUMENT_FORMAT;
+  /** The document version, {@link DOCUMENT_VERSION} for documents this release writes. */
   readonly version: number;
+  /** The element records in the order they were added, with `kind`, `name`, nodes and SI values. */
   readonly elements: readonly Record<string, unknown>[];
 }
 
@@ -23,6 +26,8 @@ export interface CircuitDocument {
 export function circuitToJson(elements: readonly ElementRecord[]): CircuitDocument {
   const out = elements.map((e) => {
     const copy: Record<string, unknown> = { ...e };
+    // A fresh AC object, so that editing the document never reaches the circuit.
+    if ('ac' in e) copy.ac = { ...e.ac };
     for (const key of ['model', 'options'] as const) {
       const params = (e as Partial<Record<typeof key, Record<string, number> | undefined>>)[key];
       if (params === undefined) {
@@ -114,11 +119,17 @@ function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (str
   }
 }
 
-/** Prefix the path of an error raised by the builder with the element's place in the document. */
-function relocate(error: unknown, path: (string | number)[]): never {
+/**
+ * Prefix the path of an error raised by the builder with the element's place in the document. The
+ * builder's paths start with the element name (except when the name itself is bad) and keep the
+ * polarity inside the model, where the document has it as a field of the element.
+ */
+function relocate(error: unknown, path: (string | number)[], name: string): never {
   if (!(error instanceof QuiescentError)) throw error;
   const d = error.details;
-  const inner = 'path' in d && d.path !== undefined ? d.path.slice(1) : [];
+  const builderPath = 'path' in d && d.path !== undefined ? d.path : [];
+  let inner = builderPath[0] === name ? builderPath.slice(1) : builderPath;
+  if (inner.length === 2 && inner[0] === 'model' && inner[1] === 'polarity') inner = ['polarity'];
   const where = [...path, ...inner];
   const message = `${where
     .map((p) => (typeof p === 'number' ? `[${p}]` : `.${p}`))
@@ -159,10 +170,17 @@ export function circuitFromJson(json: unknown, circuit: Circuit): void {
     }
     if (typeof raw.name !== 'string') throw invalidCircuit([...path, 'name'], 'must be a string');
     checkFields(raw, kind as ElementKind, path);
+    if (isPlainObject(raw.model) && Object.hasOwn(raw.model, 'polarity')) {
+      // The element's own polarity field would silently win over this one.
+      throw invalidCircuit(
+        [...path, 'model', 'polarity'],
+        `is not a model parameter of '${raw.name}'; polarity is a field of the element`,
+      );
+    }
     try {
       replay(circuit, kind as ElementKind, raw);
     } catch (error) {
-      relocate(error, path);
+      relocate(error, path, raw.name);
     }
   });
 }

@@ -3,7 +3,7 @@
  * read the branch-current unknown of their controlling element. Voltage outputs own a branch current.
  */
 import type { CccsRecord, CcvsRecord, VccsRecord, VcvsRecord } from '../circuit/elements.js';
-import { addBranchIncidence, addTransconductance, branchSlots, transconductanceSlots } from '../mna/stamp.js';
+import { addBranchIncidence, addTransconductance, branchPairs, transconductanceSlots } from '../mna/stamp.js';
 import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from './device.js';
 
 /** v(outPlus) − v(outMinus) = gain·(v(controlPlus) − v(controlMinus)); the output current is an unknown. */
@@ -22,9 +22,12 @@ export class Vcvs implements Device {
     const r = this.record;
     const cp = ctx.node(r.controlPlus);
     const cm = ctx.node(r.controlMinus);
-    this.s = new Int32Array([
-      ...branchSlots(ctx, ctx.node(r.outPlus), ctx.node(r.outMinus), this.k),
-      ...ctx.slots([this.k, cp, this.k, cm]),
+    this.s = ctx.slots([
+      ...branchPairs(ctx.node(r.outPlus), ctx.node(r.outMinus), this.k),
+      this.k,
+      cp,
+      this.k,
+      cm,
     ]);
   }
   private stamp(A: Float64Array): void {
@@ -93,10 +96,7 @@ export class Ccvs implements Device {
   bind(ctx: BindContext): void {
     const r = this.record;
     const control = ctx.branchOf(r.control);
-    this.s = new Int32Array([
-      ...branchSlots(ctx, ctx.node(r.outPlus), ctx.node(r.outMinus), this.k),
-      ...ctx.slots([this.k, control]),
-    ]);
+    this.s = ctx.slots([...branchPairs(ctx.node(r.outPlus), ctx.node(r.outMinus), this.k), this.k, control]);
   }
   private stamp(A: Float64Array): void {
     addBranchIncidence(A, this.s, 0);

@@ -1,6 +1,6 @@
 /** The inductor: a short at DC, v(a) − v(b) = jωL·i at angular frequency ω. Its current is an unknown. */
 import type { InductorRecord } from '../circuit/elements.js';
-import { addBranchIncidence, branchSlots } from '../mna/stamp.js';
+import { addBranchIncidence, branchPairs } from '../mna/stamp.js';
 import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from './device.js';
 
 /** A compiled inductor. */
@@ -18,7 +18,7 @@ export class Inductor implements Device {
   bind(ctx: BindContext): void {
     const a = ctx.node(this.record.a);
     const b = ctx.node(this.record.b);
-    this.s = new Int32Array([...branchSlots(ctx, a, b, this.k), ...ctx.slots([this.k, this.k])]);
+    this.s = ctx.slots([...branchPairs(a, b, this.k), this.k, this.k]);
   }
   load(ctx: DcLoadContext): void {
     addBranchIncidence(ctx.A, this.s, 0);

@@ -81,8 +81,9 @@ export function floatingNodes(nodes: readonly string[]): QuiescentError {
 export function voltageLoop(elements: readonly string[], nodes: readonly string[]): QuiescentError {
   return new QuiescentError(
     { code: 'singular', elements, nodes, reason: 'voltage-loop' },
-    `elements ${listNames(elements)} form a loop of voltage sources, inductors or driven outputs ` +
-      `through nodes ${listNames(nodes)}, so their currents are not determined`,
+    `${elements.length === 1 ? `element ${listNames(elements)} forms` : `elements ${listNames(elements)} form`} ` +
+      'a loop of voltage sources, inductors or driven outputs ' +
+      `through node${nodes.length === 1 ? '' : 's'} ${listNames(nodes)}, so ${elements.length === 1 ? 'its current is' : 'their currents are'} not determined`,
   );
 }
 

@@ -37,34 +37,83 @@ export interface ResidualEntry {
 
 /** Structured data for programs, discriminated by `code`. */
 export type ErrorDetails =
-  | { readonly code: 'invalid-value'; readonly path: readonly (string | number)[]; readonly value: unknown }
-  | { readonly code: 'duplicate-name'; readonly name: string }
-  | { readonly code: 'unknown-node'; readonly node: string }
   | {
+      /** A value is not finite, has a wrong unit or is out of range. */
+      readonly code: 'invalid-value';
+      /** Where the value was given, such as `['Q1', 'model', 'forwardBeta']`. */
+      readonly path: readonly (string | number)[];
+      /** The rejected value, as given. */
+      readonly value: unknown;
+    }
+  | {
+      /** An element name is used twice. */
+      readonly code: 'duplicate-name';
+      /** The name used twice. */
+      readonly name: string;
+    }
+  | {
+      /** An analysis asks for a node the circuit lacks. */
+      readonly code: 'unknown-node';
+      /** The node asked for. */
+      readonly node: string;
+    }
+  | {
+      /** An element is missing, or has no current unknown where one is needed. */
       readonly code: 'unknown-element';
+      /** The element named. */
       readonly element: string;
+      /** Where it was named, when it was named in a circuit (the controlling element of a ccvs, say). */
       readonly path?: readonly (string | number)[];
     }
-  | { readonly code: 'no-ground' }
-  | { readonly code: 'floating-node'; readonly nodes: readonly string[] }
   | {
-      readonly code: 'singular';
-      readonly elements: readonly string[];
+      /** Nothing connects to ground. */
+      readonly code: 'no-ground';
+    }
+  | {
+      /** Some nodes have no DC path to ground. */
+      readonly code: 'floating-node';
+      /** Every floating node. */
       readonly nodes: readonly string[];
+    }
+  | {
+      /** The equations have no unique solution. */
+      readonly code: 'singular';
+      /** The elements involved (the loop, the cut set, or those touching the singular row). */
+      readonly elements: readonly string[];
+      /** The nodes involved. */
+      readonly nodes: readonly string[];
+      /** A loop of voltage sources, a cut set of current sources, or a singular matrix found while solving. */
       readonly reason: 'voltage-loop' | 'current-cut-set' | 'matrix';
     }
   | {
+      /** The operating point could not be found. */
       readonly code: 'no-convergence';
+      /** Every strategy tried, in order. */
       readonly strategies: readonly StrategyAttempt[];
+      /** The unknowns with the largest residuals at the end, largest first. */
       readonly worstResiduals: readonly ResidualEntry[];
+      /** The nonlinear devices touching those unknowns. */
       readonly devices: readonly string[];
+      /** The norm of the last Newton update. */
       readonly lastUpdateNorm: number;
+      /** The norm of the last residual. */
       readonly lastResidualNorm: number;
     }
-  | { readonly code: 'invalid-circuit'; readonly path: readonly (string | number)[] };
+  | {
+      /** A JSON document or builder call is malformed in another way. */
+      readonly code: 'invalid-circuit';
+      /** Where the problem is, such as `['elements', 3, 'kind']`. */
+      readonly path: readonly (string | number)[];
+    };
 
 /** The details type that belongs to one code. */
-export type DetailsOf<C extends ErrorCode> = Extract<ErrorDetails, { code: C }>;
+export type DetailsOf<C extends ErrorCode> = Extract<
+  ErrorDetails,
+  {
+    /** The code to select. */
+    code: C;
+  }
+>;
 
 /**
  * Thrown by every public function on failure.

@@ -49,7 +49,15 @@ export function addCurrent(b: Float64Array, from: number, to: number, i: number)
  * KCL entries [p·k, m·k] and the branch-row entries [k·p, k·m].
  */
 export function branchSlots(ctx: BindContext, p: number, m: number, k: number): Int32Array {
-  return ctx.slots([p, k, m, k, k, p, k, m]);
+  return ctx.slots(branchPairs(p, m, k));
+}
+
+/**
+ * The (row, column) pairs of branch k's incidence, for devices that ask for more slots in the same
+ * request (slot arrays are filled only once the pattern is compressed, so they must not be copied).
+ */
+export function branchPairs(p: number, m: number, k: number): number[] {
+  return [p, k, m, k, k, p, k, m];
 }
 
 /** Add the incidence of branch k: +1 into row p, −1 into row m, and v(p) − v(m) in row k. */

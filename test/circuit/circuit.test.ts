@@ -1,0 +1,546 @@
+import { describe, expect, it } from 'vitest';
+import { Circuit, type ErrorCode, GROUND, QuiescentError } from '../../src/index.js';
+
+/**
+ * The builder's contract: every method checks its own arguments at once, returns the circuit, and
+ * rejects bad input with a QuiescentError whose message names the element. The ranges checked here
+ * (a resistance is positive, a capacitance or inductance is not negative, a unit symbol must fit
+ * the quantity) are the physical ones of any circuits text, e.g. C. K. Alexander and M. N. O.
+ * Sadiku, Fundamentals of Electric Circuits, 5th ed., 2013, ch. 2 and 6 (from memory); the SI
+ * symbols are those of BIPM, The International System of Units, 9th ed., 2019, Table 4.
+ */
+
+/** Runs `build` and returns the QuiescentError it throws, failing the test when it does not throw. */
+function rejection(build: () => unknown): QuiescentError {
+  try {
+    build();
+  } catch (error) {
+    expect(error).toBeInstanceOf(QuiescentError);
+    return error as QuiescentError;
+  }
+  throw new Error('expected the call to throw a QuiescentError');
+}
+
+/** Expects `build` to throw `code` with a message that contains every one of `names`. */
+function expectRejected(build: () => unknown, code: ErrorCode, ...names: string[]): QuiescentError {
+  const error = rejection(build);
+  expect(error.code, error.message).toBe(code);
+  for (const name of names) expect(error.message).toContain(name);
+  return error;
+}
+
+describe('Circuit builder', () => {
+  describe('accepts valid input', () => {
+    it('adds one element of every kind, in order, and returns the circuit from each call so calls chain', () => {
+      // common practice, no source: a fluent builder returns `this`
+      const c = new Circuit();
+      const returned = [
+        c.resistor('R1', 'a', GROUND, '4.7k'),
+        c.capacitor('C1', 'a', 'b', '10uF'),
+        c.inductor('L1', 'b', GROUND, '2.2 mH'),
+        c.voltageSource('V1', 'a', GROUND, { dc: 5, ac: { magnitude: '1 V', phase: 30 } }),
+        c.currentSource('I1', GROUND, 'b', { dc: '1mA', ac: 0.5 }),
+        c.vcvs('E1', ['e', GROUND], ['a', 'b'], 10),
+        c.vccs('G1', ['f', GROUND], ['a', GROUND], '2mS'),
+        c.ccvs('H1', ['h', GROUND], 'V1', '1k'),
+        c.cccs('F1', ['k', GROUND], 'L1', 3),
+        c.opAmp('U1', { plus: 'a', minus: 'o', output: 'o' }),
+        c.opAmp('U2', { plus: 'a', minus: 'p', output: 'p' }, { openLoopGain: 2e5, outputResistance: 75 }),
+        c.diode('D1', 'a', 'd', { saturationCurrent: '10f', emissionCoefficient: 1.8 }),
+        c.bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, { polarity: 'npn', forwardBeta: 150 }),
+        c.mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos' }),
+        c.mosfet('M2', { drain: 'd', gate: 'g', source: 's', body: 'w' }, { polarity: 'pmos' }),
+      ];
+      for (const r of returned) expect(r).toBe(c);
+      expect(c.elements.map((e) => e.name)).toEqual([
+        'R1',
+        'C1',
+        'L1',
+        'V1',
+        'I1',
+        'E1',
+        'G1',
+        'H1',
+        'F1',
+        'U1',
+        'U2',
+        'D1',
+        'Q1',
+        'M1',
+        'M2',
+      ]);
+    });
+
+    it('stores values in SI units, parsed from prefixed strings', () => {
+      // SI prefixes: BIPM, SI Brochure, 9th ed., 2019, Table 7 (k = 1e3, u = µ = 1e-6, m = 1e-3)
+      const c = new Circuit()
+        .resistor('R1', 'a', GROUND, '4.7k')
+        .capacitor('C1', 'a', GROUND, '10µF')
+        .inductor('L1', 'a', GROUND, '2.2 mH')
+        .voltageSource('V1', 'a', GROUND, { dc: '1.5', ac: { magnitude: '100m', phase: -45 } });
+      expect(c.element('R1')).toMatchObject({ kind: 'resistor', a: 'a', b: GROUND, resistance: 4700 });
+      expect((c.element('C1') as { capacitance: number }).capacitance).toBeCloseTo(10e-6, 18);
+      expect((c.element('L1') as { inductance: number }).inductance).toBeCloseTo(2.2e-3, 15);
+      expect(c.element('V1')).toMatchObject({ dc: 1.5, ac: { magnitude: 0.1, phase: -45 } });
+    });
+
+    it('defaults a source to no DC value and no AC signal', () => {
+      // API.md, "Building a circuit": dc and ac are optional (common practice, no source)
+      const c = new Circuit().voltageSource('V1', 'a', GROUND).currentSource('I1', 'a', GROUND, {});
+      expect(c.element('V1')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
+      expect(c.element('I1')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
+    });
+
+    it('accepts zero for a capacitance and an inductance, and negative source values and gains', () => {
+      // API.md: zero is a valid capacitance; a source or a controlled gain may have either sign
+      // (Alexander & Sadiku, 5th ed., 2013, §2.2 and §4.2, from memory)
+      const c = new Circuit()
+        .capacitor('C1', 'a', GROUND, 0)
+        .inductor('L1', 'a', 'b', 0)
+        .voltageSource('V1', 'a', GROUND, { dc: -12 })
+        .vcvs('E1', ['o', GROUND], ['a', GROUND], -4);
+      expect(c.elements).toHaveLength(4);
+    });
+
+    it('stores a negative zero as zero, which JSON can carry', () => {
+      // ECMA-404, 2017: JSON has no negative zero, so a stored −0 would not survive a round trip
+      const c = new Circuit()
+        .voltageSource('V1', 'a', GROUND, { dc: -0, ac: { magnitude: -0, phase: -0 } })
+        .vcvs('E1', ['o', GROUND], ['a', GROUND], '-0');
+      expect(Object.is((c.element('V1') as { dc: number }).dc, 0)).toBe(true);
+      expect(Object.is((c.element('V1') as { ac: { magnitude: number } }).ac.magnitude, 0)).toBe(true);
+      expect(Object.is((c.element('V1') as { ac: { phase: number } }).ac.phase, 0)).toBe(true);
+      expect(Object.is((c.element('E1') as { gain: number }).gain, 0)).toBe(true);
+    });
+
+    it('ties the MOSFET body to its source when no body is given, and keeps the polarity', () => {
+      // API.md, "Building a circuit": body defaults to source
+      const c = new Circuit().mosfet('M1', { drain: 'd', gate: 'g', source: 's' }, { polarity: 'pmos' });
+      expect(c.element('M1')).toMatchObject({ source: 's', body: 's', polarity: 'pmos' });
+    });
+
+    it('lists the nodes in order of first appearance, ground included', () => {
+      // common practice, no source
+      const c = new Circuit().resistor('R1', 'in', 'mid', 1).resistor('R2', 'mid', GROUND, 1);
+      expect(c.nodes).toEqual(['in', 'mid', GROUND]);
+    });
+
+    it('keeps its records frozen, so a value cannot change without the checks', () => {
+      // common practice, no source: checked data is immutable
+      const c = new Circuit()
+        .voltageSource('V1', 'a', GROUND, { dc: 1, ac: 1 })
+        .diode('D1', 'a', GROUND, { saturationCurrent: 1e-14 });
+      expect(Object.isFrozen(c.element('V1'))).toBe(true);
+      expect(Object.isFrozen((c.element('V1') as { ac: object }).ac)).toBe(true);
+      expect(Object.isFrozen((c.element('D1') as { model: object }).model)).toBe(true);
+    });
+  });
+
+  describe('rejects bad names', () => {
+    it.each([
+      ['an empty element name', () => new Circuit().resistor('', 'a', 'b', 1)],
+      ['a number as element name', () => new Circuit().resistor(7 as unknown as string, 'a', 'b', 1)],
+    ])('rejects %s with invalid-circuit', (_, build) => {
+      // API.md: element names are non-empty strings
+      expectRejected(build, 'invalid-circuit', 'name');
+    });
+
+    it('rejects an empty node name, naming the element and the terminal', () => {
+      // API.md: node names are non-empty strings
+      expectRejected(() => new Circuit().resistor('R1', '', 'b', 1), 'invalid-circuit', 'R1.a');
+      expectRejected(() => new Circuit().capacitor('C1', 'a', '', 1), 'invalid-circuit', 'C1.b');
+      expectRejected(
+        () => new Circuit().voltageSource('V1', undefined as unknown as string, GROUND),
+        'invalid-circuit',
+        'V1.plus',
+      );
+      expectRejected(
+        () => new Circuit().currentSource('I1', GROUND, null as unknown as string),
+        'invalid-circuit',
+        'I1.to',
+      );
+      expectRejected(() => new Circuit().diode('D1', 'a', ''), 'invalid-circuit', 'D1.cathode');
+    });
+
+    it('rejects an empty controlling-element name of a ccvs or cccs', () => {
+      // API.md: the controlling element is named
+      expectRejected(() => new Circuit().ccvs('H1', ['a', GROUND], '', 1), 'invalid-circuit', 'H1.control');
+      expectRejected(() => new Circuit().cccs('F1', ['a', GROUND], '', 1), 'invalid-circuit', 'F1.control');
+    });
+  });
+
+  describe('rejects duplicate names', () => {
+    it('rejects a second element of the same name with duplicate-name, whatever its kind', () => {
+      // API.md: element names are unique within a circuit
+      const c = new Circuit().resistor('X1', 'a', GROUND, 1);
+      const error = expectRejected(() => c.capacitor('X1', 'a', GROUND, 1e-9), 'duplicate-name', 'X1');
+      expect(error.details).toEqual({ code: 'duplicate-name', name: 'X1' });
+      expectRejected(() => c.voltageSource('X1', 'a', GROUND), 'duplicate-name', 'X1');
+      expectRejected(
+        () => c.bjt('X1', { collector: 'c', base: 'b', emitter: 'e' }, { polarity: 'npn' }),
+        'duplicate-name',
+        'X1',
+      );
+      expect(c.elements).toHaveLength(1);
+    });
+
+    it('allows a node and an element to share a name', () => {
+      // common practice, no source: nodes and elements live in separate name spaces
+      const c = new Circuit().resistor('out', 'out', GROUND, 1);
+      expect(c.nodes).toContain('out');
+    });
+  });
+
+  describe('rejects bad values with invalid-value naming the element and parameter', () => {
+    it.each([
+      ['a zero resistance', 0],
+      ['a negative resistance', -5],
+      ['a negative resistance string', '-1k'],
+      ['a capacitance unit on a resistance', '10F'],
+      ['a voltage unit on a resistance', '3 V'],
+      ['NaN', Number.NaN],
+      ['Infinity', Number.POSITIVE_INFINITY],
+      ['-Infinity', Number.NEGATIVE_INFINITY],
+      ['an unparsable string', '1..2k'],
+      ['an empty string', ''],
+    ])('rejects %s as a resistance', (_, value) => {
+      // Alexander & Sadiku, 5th ed., 2013, §2.2 (from memory): a physical resistance is positive
+      const error = expectRejected(
+        () => new Circuit().resistor('R7', 'a', 'b', value),
+        'invalid-value',
+        'R7.resistance',
+      );
+      expect(error.details).toMatchObject({ code: 'invalid-value', path: ['R7', 'resistance'] });
+    });
+
+    it('rejects a boolean or an object as a resistance', () => {
+      // common practice, no source: a value is a number or a value string
+      expectRejected(
+        () => new Circuit().resistor('R1', 'a', 'b', true as unknown as number),
+        'invalid-value',
+        'R1',
+      );
+      expectRejected(
+        () => new Circuit().resistor('R1', 'a', 'b', {} as unknown as number),
+        'invalid-value',
+        'R1',
+      );
+    });
+
+    it.each([
+      ['capacitor', () => new Circuit().capacitor('C3', 'a', 'b', -1e-9), 'C3.capacitance'],
+      ['capacitor', () => new Circuit().capacitor('C3', 'a', 'b', '1kΩ'), 'C3.capacitance'],
+      ['capacitor', () => new Circuit().capacitor('C3', 'a', 'b', Number.NaN), 'C3.capacitance'],
+      ['inductor', () => new Circuit().inductor('L3', 'a', 'b', '-1m'), 'L3.inductance'],
+      ['inductor', () => new Circuit().inductor('L3', 'a', 'b', '1 F'), 'L3.inductance'],
+      ['voltage source', () => new Circuit().voltageSource('V3', 'a', 'b', { dc: '5 A' }), 'V3.dc'],
+      ['voltage source', () => new Circuit().voltageSource('V3', 'a', 'b', { dc: Number.NaN }), 'V3.dc'],
+      ['voltage source', () => new Circuit().voltageSource('V3', 'a', 'b', { ac: -1 }), 'V3.ac'],
+      [
+        'voltage source',
+        () => new Circuit().voltageSource('V3', 'a', 'b', { ac: { magnitude: 1, phase: Number.NaN } }),
+        'V3.ac.phase',
+      ],
+      [
+        'current source',
+        () => new Circuit().currentSource('I3', 'a', 'b', { dc: Number.POSITIVE_INFINITY }),
+        'I3.dc',
+      ],
+      ['current source', () => new Circuit().currentSource('I3', 'a', 'b', { dc: '2 V' }), 'I3.dc'],
+      ['vcvs', () => new Circuit().vcvs('E3', ['a', 'b'], ['c', 'd'], Number.NaN), 'E3.gain'],
+      ['vccs', () => new Circuit().vccs('G3', ['a', 'b'], ['c', 'd'], '2 Ω'), 'G3.transconductance'],
+      ['ccvs', () => new Circuit().ccvs('H3', ['a', 'b'], 'V1', '1 S'), 'H3.transresistance'],
+      ['cccs', () => new Circuit().cccs('F3', ['a', 'b'], 'V1', Number.NEGATIVE_INFINITY), 'F3.gain'],
+    ])('rejects a bad value of a %s (%#)', (_, build, path) => {
+      // ranges: Alexander & Sadiku, 5th ed., 2013, ch. 6 (C, L ≥ 0; from memory); units: SI Brochure,
+      // 9th ed., 2019, Table 4 (F capacitance, H inductance, V voltage, A current, S conductance)
+      expectRejected(build, 'invalid-value', path);
+    });
+
+    it('leaves the circuit unchanged when a call is rejected, so the name stays free', () => {
+      // common practice, no source: a failed call has no effect
+      const c = new Circuit();
+      expect(() => c.resistor('R1', 'a', 'b', 0)).toThrow(QuiescentError);
+      expect(c.elements).toHaveLength(0);
+      expect(c.resistor('R1', 'a', 'b', 1)).toBe(c);
+    });
+  });
+
+  describe('rejects malformed source settings', () => {
+    it('rejects an unknown source setting with invalid-circuit naming it', () => {
+      // API.md: a source takes { dc?, ac? }
+      expectRejected(
+        () => new Circuit().voltageSource('V1', 'a', GROUND, { dc: 1, amplitude: 2 } as never),
+        'invalid-circuit',
+        'V1.amplitude',
+      );
+      expectRejected(
+        () => new Circuit().currentSource('I1', 'a', GROUND, { ac: { magnitude: 1, delay: 2 } } as never),
+        'invalid-circuit',
+        'I1.ac.delay',
+      );
+    });
+
+    it('rejects a source setting that is not an object', () => {
+      // API.md: a source takes { dc?, ac? }
+      expectRejected(
+        () => new Circuit().voltageSource('V1', 'a', GROUND, 5 as never),
+        'invalid-circuit',
+        'V1',
+      );
+      expectRejected(
+        () => new Circuit().currentSource('I1', 'a', GROUND, null as never),
+        'invalid-circuit',
+        'I1',
+      );
+      expectRejected(
+        () => new Circuit().voltageSource('V1', 'a', GROUND, { ac: [1, 0] } as never),
+        'invalid-circuit',
+        'V1.ac',
+      );
+    });
+  });
+
+  describe('rejects bad terminal maps', () => {
+    it('rejects output and control pairs that are not two node names', () => {
+      // API.md: out and control are [plus, minus] pairs
+      expectRejected(
+        () => new Circuit().vcvs('E1', ['a'] as unknown as [string, string], ['b', 'c'], 1),
+        'invalid-circuit',
+        'E1.out',
+      );
+      expectRejected(
+        () => new Circuit().vccs('G1', ['a', 'b'], ['b', 'c', 'd'] as unknown as [string, string], 1),
+        'invalid-circuit',
+        'G1.control',
+      );
+      expectRejected(
+        () => new Circuit().ccvs('H1', 'ab' as unknown as [string, string], 'V1', 1),
+        'invalid-circuit',
+        'H1.out',
+      );
+      expectRejected(() => new Circuit().cccs('F1', ['a', ''], 'V1', 1), 'invalid-circuit', 'F1.out[1]');
+    });
+
+    it('rejects an op-amp terminal map with a missing or an unknown terminal', () => {
+      // API.md: op-amp terminals are { plus, minus, output }
+      expectRejected(
+        () => new Circuit().opAmp('U1', { plus: 'a', minus: 'b' } as never),
+        'invalid-circuit',
+        'U1.output',
+      );
+      expectRejected(
+        () => new Circuit().opAmp('U1', { plus: 'a', minus: 'b', output: 'c', supply: 'v' } as never),
+        'invalid-circuit',
+        'U1.supply',
+      );
+      expectRejected(() => new Circuit().opAmp('U1', ['a', 'b', 'c'] as never), 'invalid-circuit', 'U1');
+    });
+
+    it('rejects transistor terminal maps with a missing or an unknown terminal', () => {
+      // API.md: bjt { collector, base, emitter }; mosfet { drain, gate, source, body? }
+      expectRejected(
+        () => new Circuit().bjt('Q1', { collector: 'c', base: 'b' } as never, { polarity: 'npn' }),
+        'invalid-circuit',
+        'Q1.emitter',
+      );
+      expectRejected(
+        () =>
+          new Circuit().bjt('Q1', { collector: 'c', base: 'b', emitter: 'e', body: 'x' } as never, {
+            polarity: 'npn',
+          }),
+        'invalid-circuit',
+        'Q1.body',
+      );
+      expectRejected(
+        () => new Circuit().mosfet('M1', { drain: 'd', gate: 'g' } as never, { polarity: 'nmos' }),
+        'invalid-circuit',
+        'M1.source',
+      );
+      expectRejected(
+        () =>
+          new Circuit().mosfet('M1', { drain: 'd', gate: 'g', source: 's', body: '' }, { polarity: 'nmos' }),
+        'invalid-circuit',
+        'M1.body',
+      );
+      expectRejected(
+        () => new Circuit().mosfet('M1', null as never, { polarity: 'nmos' }),
+        'invalid-circuit',
+        'M1',
+      );
+    });
+  });
+
+  describe('rejects bad polarity strings', () => {
+    it.each([
+      ['NPN', 'upper case'],
+      ['nmos', 'a MOSFET polarity'],
+      ['', 'an empty string'],
+    ])('rejects %s (%s) as a bipolar polarity', (polarity) => {
+      // API.md: model.polarity is 'npn' | 'pnp'
+      expectRejected(
+        () => new Circuit().bjt('Q9', { collector: 'c', base: 'b', emitter: 'e' }, { polarity } as never),
+        'invalid-circuit',
+        'Q9.model.polarity',
+      );
+    });
+
+    it.each([['PMOS'], ['npn'], ['p']])('rejects %s as a MOSFET polarity', (polarity) => {
+      // API.md: model.polarity is 'nmos' | 'pmos'
+      expectRejected(
+        () => new Circuit().mosfet('M9', { drain: 'd', gate: 'g', source: 's' }, { polarity } as never),
+        'invalid-circuit',
+        'M9.model.polarity',
+      );
+    });
+
+    it('requires a model with a polarity for a transistor', () => {
+      // API.md: the transistor model (with its polarity) is required
+      expectRejected(
+        () => new Circuit().bjt('Q1', { collector: 'c', base: 'b', emitter: 'e' }, undefined as never),
+        'invalid-circuit',
+        'Q1.model',
+      );
+      expectRejected(
+        () => new Circuit().mosfet('M1', { drain: 'd', gate: 'g', source: 's' }, {} as never),
+        'invalid-circuit',
+        'M1.model.polarity',
+      );
+    });
+  });
+
+  describe('rejects bad model parameters', () => {
+    it('rejects a parameter the model does not have with invalid-circuit naming it', () => {
+      // API.md, "Device models": the parameter names are fixed
+      expectRejected(
+        () => new Circuit().diode('D1', 'a', 'b', { saturationcurrent: 1e-14 } as never),
+        'invalid-circuit',
+        'D1.model.saturationcurrent',
+      );
+      expectRejected(
+        () =>
+          new Circuit().bjt('Q1', { collector: 'c', base: 'b', emitter: 'e' }, {
+            polarity: 'npn',
+            beta: 100,
+          } as never),
+        'invalid-circuit',
+        'Q1.model.beta',
+      );
+      expectRejected(
+        () => new Circuit().opAmp('U1', { plus: 'a', minus: 'b', output: 'c' }, { slewRate: 1e6 } as never),
+        'invalid-circuit',
+        'U1.options.slewRate',
+      );
+    });
+
+    it('rejects a model that is not an object', () => {
+      // API.md, "Device models": a model is an object of parameters
+      expectRejected(() => new Circuit().diode('D1', 'a', 'b', [] as never), 'invalid-circuit', 'D1.model');
+      expectRejected(
+        () => new Circuit().opAmp('U1', { plus: 'a', minus: 'b', output: 'c' }, 3 as never),
+        'invalid-circuit',
+        'U1.options',
+      );
+    });
+
+    it.each([
+      [
+        'a zero saturation current',
+        () => new Circuit().diode('D4', 'a', 'b', { saturationCurrent: 0 }),
+        'D4.model.saturationCurrent',
+      ],
+      [
+        'a saturation current in volts',
+        () => new Circuit().diode('D4', 'a', 'b', { saturationCurrent: '10 fV' }),
+        'D4.model.saturationCurrent',
+      ],
+      [
+        'a negative series resistance',
+        () => new Circuit().diode('D4', 'a', 'b', { seriesResistance: -1 }),
+        'D4.model.seriesResistance',
+      ],
+      [
+        'a grading coefficient of 1',
+        () => new Circuit().diode('D4', 'a', 'b', { gradingCoefficient: 1 }),
+        'D4.model.gradingCoefficient',
+      ],
+      [
+        'a boolean transit time',
+        () => new Circuit().diode('D4', 'a', 'b', { transitTime: true } as never),
+        'D4.model.transitTime',
+      ],
+      [
+        'a negative forward beta',
+        () =>
+          new Circuit().bjt(
+            'Q4',
+            { collector: 'c', base: 'b', emitter: 'e' },
+            { polarity: 'npn', forwardBeta: -1 },
+          ),
+        'Q4.model.forwardBeta',
+      ],
+      [
+        'a NaN Early voltage',
+        () =>
+          new Circuit().bjt(
+            'Q4',
+            { collector: 'c', base: 'b', emitter: 'e' },
+            { polarity: 'pnp', earlyVoltage: Number.NaN },
+          ),
+        'Q4.model.earlyVoltage',
+      ],
+      [
+        'a negative gain factor',
+        () =>
+          new Circuit().mosfet(
+            'M4',
+            { drain: 'd', gate: 'g', source: 's' },
+            { polarity: 'nmos', gainFactor: -1e-3 },
+          ),
+        'M4.model.gainFactor',
+      ],
+      [
+        'a negative gate capacitance',
+        () =>
+          new Circuit().mosfet(
+            'M4',
+            { drain: 'd', gate: 'g', source: 's' },
+            { polarity: 'pmos', gateSourceCapacitance: '-1p' },
+          ),
+        'M4.model.gateSourceCapacitance',
+      ],
+      [
+        'a zero open-loop gain',
+        () => new Circuit().opAmp('U4', { plus: 'a', minus: 'b', output: 'c' }, { openLoopGain: 0 }),
+        'U4.options.openLoopGain',
+      ],
+      [
+        'a negative output resistance',
+        () => new Circuit().opAmp('U4', { plus: 'a', minus: 'b', output: 'c' }, { outputResistance: -50 }),
+        'U4.options.outputResistance',
+      ],
+    ])('rejects %s with invalid-value', (_, build, path) => {
+      // ranges of API.md, "Device models" (Is > 0, resistances and capacitances ≥ 0, 0 < m < 1);
+      // physical meaning: A. S. Sedra and K. C. Smith, Microelectronic Circuits, 7th ed., 2015,
+      // ch. 4 and 6 (from memory)
+      expectRejected(build, 'invalid-value', path);
+    });
+
+    it('accepts Infinity where it removes an effect, and zero for capacitances and transit times', () => {
+      // API.md, "Device models": zero removes capacitances; Infinity is the default breakdown voltage
+      const c = new Circuit()
+        .diode('D1', 'a', 'b', {
+          breakdownVoltage: Number.POSITIVE_INFINITY,
+          junctionCapacitance: 0,
+          transitTime: 0,
+        })
+        .bjt(
+          'Q1',
+          { collector: 'c', base: 'b', emitter: 'e' },
+          { polarity: 'npn', earlyVoltage: Number.POSITIVE_INFINITY },
+        )
+        .opAmp('U1', { plus: 'a', minus: 'b', output: 'c' }, { gainBandwidth: Number.POSITIVE_INFINITY });
+      expect(c.elements).toHaveLength(3);
+    });
+  });
+});
