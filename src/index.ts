@@ -5,8 +5,51 @@
  * @packageDocumentation
  */
 
+export {
+  AcAnalysis,
+  type AcAnalysisOptions,
+  acAnalysis,
+  type BodeTable,
+  type CutoffOptions,
+  type Probe,
+} from './analysis/ac-analysis.js';
+export {
+  DcSweep,
+  type DcSweepOptions,
+  dcSweep,
+  type ParameterSweepOptions,
+  type SourceSweepOptions,
+  type SweepValues,
+  type SweptQuantity,
+  type TemperatureSweepOptions,
+} from './analysis/dc-sweep.js';
+export {
+  type DistortionContribution,
+  type DistortionEstimate,
+  type DistortionOptions,
+  type DistortionPoint,
+  distortion,
+} from './analysis/distortion.js';
+export { linearSweep, logSweep } from './analysis/frequency-grid.js';
+export {
+  DEFAULT_LINEARITY_BUDGET,
+  type JunctionLinearity,
+  type LinearityOptions,
+  type LinearityReport,
+  linearity,
+} from './analysis/linearity.js';
 export { OperatingPoint, operatingPoint } from './analysis/operating-point.js';
 export { DEFAULT_TEMPERATURE, type OperatingPointOptions } from './analysis/options.js';
+export { type Port, portImpedance } from './analysis/port-impedance.js';
+export {
+  checkDistortion,
+  DEFAULT_PHASES,
+  type DistortionCheck,
+  type DistortionCheckOptions,
+  type QuasiStaticHarmonics,
+  type QuasiStaticOptions,
+  quasiStaticHarmonics,
+} from './analysis/quasi-static.js';
 export type {
   BjtRegion,
   BjtReport,
@@ -56,6 +99,36 @@ export {
   type ResidualEntry,
   type StrategyAttempt,
 } from './errors/quiescent-error.js';
+export {
+  type AcReportOptions,
+  acTable,
+  bodePlotSvg,
+  cell,
+  currentDirection,
+  DEFAULT_REPORT_DIGITS,
+  type DeviceJson,
+  formatAcAnalysis,
+  formatOperatingPoint,
+  type OperatingPointJson,
+  operatingPointTables,
+  operatingPointToJson,
+  type PlotAxis,
+  type PlotOptions,
+  type PlotPanel,
+  type PlotSeries,
+  probeLabel,
+  type ReportOptions,
+  renderTable,
+  svgPlot,
+  type TableColumn,
+  type TextTable,
+} from './report/index.js';
+export {
+  formatLinearity,
+  type LinearityReportOptions,
+  linearityTables,
+  linearityVerdict,
+} from './report/linearity-table.js';
 export {
   type FormatOptions,
   formatValue,

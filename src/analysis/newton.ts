@@ -2,7 +2,7 @@
  * The damped Newton iteration on a compiled system: load, factor, solve, limit, test. One workspace
  * per compiled system holds every array, so an iteration allocates nothing.
  */
-import type { Conditions, DcLoadContext } from '../devices/device.js';
+import type { Conditions, DcLoadContext, Device } from '../devices/device.js';
 import { singularMatrix } from '../errors/messages.js';
 import { createRealSolver, type RealLinearSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
@@ -18,6 +18,14 @@ export class NewtonWorkspace {
   readonly rowScale: Float64Array;
   readonly solver: RealLinearSolver;
   readonly context: DcLoadContext;
+  /**
+   * The linear devices' share of A and b (b at full source value), loaded once per set of
+   * conditions by {@link loadLinearPart}, so that an iteration reloads only the nonlinear devices.
+   */
+  readonly linearA: Float64Array;
+  readonly linearB: Float64Array;
+  readonly nonlinearDevices: readonly Device[];
+  readonly #linearContext: DcLoadContext;
   /** Norms of the last run, for diagnostics. */
   lastUpdateNorm = Number.POSITIVE_INFINITY;
   lastResidualNorm = Number.POSITIVE_INFINITY;
@@ -32,6 +40,24 @@ export class NewtonWorkspace {
     this.rowScale = new Float64Array(n + 1);
     this.solver = createRealSolver(system.pattern);
     this.context = { x: this.x, A: this.A, b: this.b, sourceScale: 1, limited: false, first: true };
+    this.linearA = new Float64Array(nnz + 1);
+    this.linearB = new Float64Array(n + 1);
+    this.nonlinearDevices = system.devices.filter((d) => d.nonlinear);
+    this.#linearContext = {
+      x: this.x,
+      A: this.linearA,
+      b: this.linearB,
+      sourceScale: 1,
+      limited: false,
+      first: true,
+    };
+  }
+
+  /** Load the linear devices into linearA and linearB; call after every change of the conditions. */
+  loadLinearPart(): void {
+    this.linearA.fill(0);
+    this.linearB.fill(0);
+    for (const d of this.system.devices) if (!d.nonlinear) d.load(this.#linearContext);
   }
 }
 
@@ -39,6 +65,8 @@ export class NewtonWorkspace {
 export interface NewtonOutcome {
   readonly converged: boolean;
   readonly iterations: number;
+  /** The unknown whose column found no pivot, when the run stopped on a singular Jacobian. */
+  readonly singularAt?: number;
 }
 
 /** Hand the analysis conditions to every device. */
@@ -46,15 +74,26 @@ export function prepareDevices(system: CompiledSystem, conditions: Conditions): 
   for (const d of system.devices) d.prepare?.(conditions);
 }
 
-/** Load every device at ws.x, plus a conductance `shunt` from every node to ground. */
+/** Hand the conditions to every device of the workspace's system and reload its linear part. */
+export function prepareWorkspace(ws: NewtonWorkspace, conditions: Conditions): void {
+  prepareDevices(ws.system, conditions);
+  ws.loadLinearPart();
+}
+
+/**
+ * Load every device at ws.x, plus a conductance `shunt` from every node to ground: the linear part
+ * is copied (its right-hand side scaled by `sourceScale`, which linear devices are proportional to),
+ * and only the nonlinear devices are evaluated.
+ */
 function loadAll(ws: NewtonWorkspace, sourceScale: number, shunt: number, first: boolean): boolean {
   const ctx = ws.context as { -readonly [K in keyof DcLoadContext]: DcLoadContext[K] };
-  ws.A.fill(0);
-  ws.b.fill(0);
+  ws.A.set(ws.linearA);
+  const { b, linearB } = ws;
+  for (let i = 0; i < b.length; i++) b[i] = sourceScale * linearB[i]!;
   ctx.sourceScale = sourceScale;
   ctx.first = first;
   ctx.limited = false;
-  const devices = ws.system.devices;
+  const devices = ws.nonlinearDevices;
   for (let k = 0; k < devices.length; k++) devices[k]!.load(ctx);
   if (shunt > 0) {
     const diag = ws.system.nodeDiagonal;
@@ -112,6 +151,17 @@ function updateWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
 }
 
 /** Factor and solve in place: previous ← x, x ← A⁻¹b. Throws `singular` naming the unknowns. */
+/** Factor and solve in place: previous ← x, x ← A⁻¹b. Returns 0, or k+1 when column k found no pivot. */
+function trySolve(ws: NewtonWorkspace): number {
+  const status = ws.solver.factor(ws.A);
+  if (status !== 0) return status;
+  ws.previous.set(ws.x);
+  ws.x.set(ws.b);
+  ws.solver.solve(ws.x);
+  ws.x[ws.system.n] = 0;
+  return 0;
+}
+
 function step(ws: NewtonWorkspace, context: string): void {
   const status = ws.solver.factor(ws.A);
   if (status !== 0) throw singularAt(ws.system, status - 1, context);
@@ -166,10 +216,40 @@ export function runNewton(
     halvings = 0;
     if (!limited) bestResidual = Math.min(bestResidual, ws.lastResidualNorm);
     if (iteration === maxIterations) break;
-    step(ws, 'at the operating point');
+    // A Jacobian that is singular at some iterate (two series junctions both far into conduction,
+    // say) ends this run, not the search: the caller's next strategy may avoid that iterate.
+    const status = trySolve(ws);
+    if (status !== 0) return { converged: false, iterations: iteration, singularAt: status - 1 };
     updateOk = updateWithin(ws, o);
   }
   return { converged: false, iterations: maxIterations };
+}
+
+/**
+ * Load the full circuit (every source at its value, no conductance to ground, no step limiting) at
+ * ws.x and leave its residual in ws.residual; returns whether every row is within tolerance. Used to
+ * describe a failure by the equations the user wrote, whatever homotopy the last attempt was on.
+ */
+export function measureResidual(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
+  loadAll(ws, 1, 0, true);
+  return residualWithin(ws, o);
+}
+
+/**
+ * How many times row i of the last measured residual exceeds its tolerance (amperes for node rows,
+ * volts for branch rows), so that rows of either kind can be ranked together.
+ */
+export function residualExcess(ws: NewtonWorkspace, o: ResolvedOptions, i: number): number {
+  const abs = i < ws.system.nodeCount ? o.currentTolerance : o.voltageTolerance;
+  const excess = Math.abs(ws.residual[i]!) / (o.relativeTolerance * ws.rowScale[i]! + abs);
+  return Number.isNaN(excess) ? Number.POSITIVE_INFINITY : excess;
+}
+
+/** The largest {@link residualExcess} over all rows. */
+export function worstResidualExcess(ws: NewtonWorkspace, o: ResolvedOptions): number {
+  let worst = 0;
+  for (let i = 0; i < ws.system.n; i++) worst = Math.max(worst, residualExcess(ws, o, i));
+  return worst;
 }
 
 /** Solve a linear system once (no Newton needed) and check its residual. */

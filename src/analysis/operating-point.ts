@@ -3,13 +3,24 @@
  * tried only when the one before failed. The result is immutable and answers by node and element name.
  */
 import type { Circuit } from '../circuit/circuit.js';
-import { GROUND } from '../circuit/elements.js';
+import { type ElementRecord, GROUND } from '../circuit/elements.js';
 import type { Conditions } from '../devices/device.js';
 import { thermalVoltage } from '../devices/junction.js';
 import { noConvergence, unknownElement, unknownNode } from '../errors/messages.js';
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
 import { type CompiledSystem, compileCircuit } from '../mna/system.js';
-import { NewtonWorkspace, prepareDevices, runNewton, solveLinear } from './newton.js';
+import { type OperatingPointJson, operatingPointToJson } from '../report/operating-point-json.js';
+import {
+  measureResidual,
+  type NewtonOutcome,
+  NewtonWorkspace,
+  prepareWorkspace,
+  residualExcess,
+  runNewton,
+  singularAt,
+  solveLinear,
+  worstResidualExcess,
+} from './newton.js';
 import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
 import type { BjtReport, DeviceReport, DiodeReport, MosfetReport } from './reports.js';
 
@@ -102,6 +113,14 @@ export class OperatingPoint {
     return this.#typed(name, 'mosfet') as MosfetReport;
   }
 
+  /**
+   * The operating point as plain data (node voltages, element currents, device reports), so that
+   * `JSON.stringify(op)` writes it; infinite values become `null`.
+   */
+  toJSON(): OperatingPointJson {
+    return operatingPointToJson(this);
+  }
+
   #typed(name: string, kind: string): DeviceReport {
     const report = this.device(name);
     if (report.kind !== kind) throw unknownElement(name, `it is a ${report.kind}, not a ${kind}`);
@@ -125,10 +144,22 @@ export interface Solver {
 
 /** Compile a circuit for repeated operating-point solves. */
 export function prepareSolver(circuit: Circuit, options?: OperatingPointOptions): Solver {
-  const resolved = resolveOptions(options);
-  const system = compileCircuit(circuit.elements);
-  for (const node of Object.keys(resolved.initialGuess)) nodeAt(system, node);
-  return { system, workspace: new NewtonWorkspace(system), options: resolved };
+  return solverFor(circuit.elements, resolveOptions(options));
+}
+
+/** Compile element records (a circuit's, or a variant of them) for repeated solves with resolved options. */
+export function solverFor(records: readonly ElementRecord[], options: ResolvedOptions): Solver {
+  const system = compileCircuit(records);
+  for (const node of Object.keys(options.initialGuess)) nodeAt(system, node);
+  return { system, workspace: new NewtonWorkspace(system), options };
+}
+
+/** Set the workspace's x to the options' initial guess (0 V wherever none is given). */
+export function startFromGuess(solver: Solver): void {
+  const { system, workspace, options } = solver;
+  workspace.x.fill(0);
+  for (const [node, v] of Object.entries(options.initialGuess)) workspace.x[nodeAt(system, node)] = v;
+  workspace.x[system.n] = 0;
 }
 
 /** The conditions of an analysis at temperature T. */
@@ -146,7 +177,7 @@ export function conditionsAt(temperature: number, options: ResolvedOptions): Con
  */
 export function solveFromCurrent(solver: Solver, conditions: Conditions): OperatingPoint {
   const { system, workspace: ws, options: o } = solver;
-  prepareDevices(system, conditions);
+  prepareWorkspace(ws, conditions);
   if (!system.nonlinear) {
     const outcome = solveLinear(ws, o);
     const attempts = [{ strategy: 'linear', iterations: outcome.iterations, converged: outcome.converged }];
@@ -155,18 +186,42 @@ export function solveFromCurrent(solver: Solver, conditions: Conditions): Operat
   }
   const attempts: StrategyAttempt[] = [];
   const start = ws.x.slice();
+  // On failure, the iterate closest to solving the circuit as given is kept for the diagnosis.
+  let closest = start;
+  let closestExcess = Number.POSITIVE_INFINITY;
+  let firstSingular: number | undefined;
+  let singularEverywhere = true;
   for (const strategy of STRATEGIES) {
     ws.x.set(start);
     const outcome = strategy.run(ws, o);
+    if (outcome.singularAt === undefined) singularEverywhere = false;
+    else firstSingular ??= outcome.singularAt;
     attempts.push({ strategy: strategy.name, iterations: outcome.iterations, converged: outcome.converged });
     if (outcome.converged) return new OperatingPoint(system, ws.x.slice(), conditions, attempts);
+    if (!allFinite(ws.x, system.n)) continue;
+    measureResidual(ws, o);
+    const excess = worstResidualExcess(ws, o);
+    if (excess < closestExcess) {
+      closestExcess = excess;
+      closest = ws.x.slice();
+    }
   }
+  // A matrix singular in every attempt is a property of the circuit, not of the search.
+  if (singularEverywhere && firstSingular !== undefined) {
+    throw singularAt(system, firstSingular, 'at the operating point');
+  }
+  ws.x.set(closest);
   throw failure(solver, attempts);
+}
+
+function allFinite(x: Float64Array, n: number): boolean {
+  for (let i = 0; i < n; i++) if (!Number.isFinite(x[i]!)) return false;
+  return true;
 }
 
 interface Strategy {
   readonly name: string;
-  run(ws: NewtonWorkspace, o: ResolvedOptions): { converged: boolean; iterations: number };
+  run(ws: NewtonWorkspace, o: ResolvedOptions): NewtonOutcome;
 }
 
 /** The fallback chain, in order of cost. */
@@ -180,9 +235,15 @@ const STRATEGIES: readonly Strategy[] = [
       let shunt = 1e-2;
       let factor = 10;
       let good = ws.x.slice();
+      let singular: number | undefined;
+      const failed = (): NewtonOutcome =>
+        singular === undefined
+          ? { converged: false, iterations }
+          : { converged: false, iterations, singularAt: singular };
       while (true) {
         const r = runNewton(ws, o, 1, shunt, o.maxIterations);
         iterations += r.iterations;
+        singular = r.singularAt ?? singular;
         if (r.converged) {
           if (shunt === 0) return { converged: true, iterations };
           good = ws.x.slice();
@@ -190,12 +251,12 @@ const STRATEGIES: readonly Strategy[] = [
         } else {
           ws.x.set(good);
           if (shunt === 0) shunt = 1e-13;
-          if (factor < 1.01) return { converged: false, iterations };
+          if (factor < 1.01) return failed();
           const back = shunt * factor;
           factor = Math.sqrt(factor);
           shunt = back / factor;
         }
-        if (iterations > 20 * o.maxIterations) return { converged: false, iterations };
+        if (iterations > 20 * o.maxIterations) return failed();
       }
     },
   },
@@ -208,10 +269,12 @@ const STRATEGIES: readonly Strategy[] = [
       let scale = 0;
       let stepSize = 0.1;
       let good = ws.x.slice();
+      let singular: number | undefined;
       while (scale < 1) {
         const next = Math.min(1, scale + stepSize);
         const r = runNewton(ws, o, next, 0, o.maxIterations);
         iterations += r.iterations;
+        singular = r.singularAt ?? singular;
         if (r.converged) {
           scale = next;
           good = ws.x.slice();
@@ -219,7 +282,11 @@ const STRATEGIES: readonly Strategy[] = [
         } else {
           ws.x.set(good);
           stepSize /= 4;
-          if (stepSize < 1e-7) return { converged: false, iterations };
+          if (stepSize < 1e-7) {
+            return singular === undefined
+              ? { converged: false, iterations }
+              : { converged: false, iterations, singularAt: singular };
+          }
         }
       }
       return { converged: true, iterations };
@@ -229,17 +296,24 @@ const STRATEGIES: readonly Strategy[] = [
 
 /** The `no-convergence` error with the worst residuals and the nonlinear devices touching them. */
 function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
-  const { system, workspace: ws } = solver;
-  const order = Array.from({ length: system.n }, (_, i) => i).sort(
-    (a, b) => Math.abs(ws.residual[b]!) - Math.abs(ws.residual[a]!),
-  );
-  const worstResiduals: ResidualEntry[] = order.slice(0, 5).map((i) => ({
+  const { system, workspace: ws, options } = solver;
+  // The last attempt may have stopped on a homotopy (scaled sources, a conductance to ground); the
+  // residuals reported are those of the circuit as given, at the point reached.
+  const updateNorm = ws.lastUpdateNorm;
+  measureResidual(ws, options);
+  const excess = Array.from({ length: system.n }, (_, i) => residualExcess(ws, options, i));
+  // The five rows furthest outside their tolerance, largest first.
+  const order = Array.from({ length: system.n }, (_, i) => i)
+    .filter((i) => excess[i]! > 1)
+    .sort((a, b) => excess[b]! - excess[a]!)
+    .slice(0, 5);
+  const worstResiduals: ResidualEntry[] = order.map((i) => ({
     name: system.labels[i]!.name,
     kind: system.labels[i]!.kind,
     residual: ws.residual[i]!,
   }));
   const devices = new Set<string>();
-  for (const i of order.slice(0, 5)) {
+  for (const i of order) {
     for (const name of system.elementsAt[i] ?? []) {
       if (system.deviceByName.get(name)?.nonlinear) devices.add(name);
     }
@@ -248,8 +322,8 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
     strategies: attempts,
     worstResiduals,
     devices: [...devices],
-    lastUpdateNorm: ws.lastUpdateNorm,
-    lastResidualNorm: ws.lastResidualNorm,
+    lastUpdateNorm: Number.isNaN(updateNorm) ? Number.POSITIVE_INFINITY : updateNorm,
+    lastResidualNorm: Number.isNaN(ws.lastResidualNorm) ? Number.POSITIVE_INFINITY : ws.lastResidualNorm,
   });
 }
 
@@ -271,8 +345,6 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
  */
 export function operatingPoint(circuit: Circuit, options?: OperatingPointOptions): OperatingPoint {
   const solver = prepareSolver(circuit, options);
-  const { system, workspace, options: o } = solver;
-  for (const [node, v] of Object.entries(o.initialGuess)) workspace.x[nodeAt(system, node)] = v;
-  workspace.x[system.n] = 0;
-  return solveFromCurrent(solver, conditionsAt(o.temperature, o));
+  startFromGuess(solver);
+  return solveFromCurrent(solver, conditionsAt(solver.options.temperature, solver.options));
 }

@@ -13,6 +13,7 @@ import { nodeAt, type OperatingPoint } from './operating-point.js';
 
 /** A port: two nodes; the impedance is (v(plus) − v(minus)) per ampere driven into `plus`. */
 export interface Port {
+  /** The node the test current is driven into. */
   readonly plus: string;
   /** Default ground. */
   readonly minus?: string;

@@ -11,6 +11,7 @@ export type MosfetRegion = 'cutoff' | 'triode' | 'saturation';
 
 /** A diode at its operating point. Voltages in V, currents in A, conductance in S, capacitance in F. */
 export interface DiodeReport {
+  /** Always `'diode'`; narrows a {@link DeviceReport}. */
   readonly kind: 'diode';
   /** Anode minus cathode, at the terminals (series resistance included). */
   readonly voltage: number;
@@ -32,11 +33,17 @@ export interface DiodeReport {
  * derivatives with respect to the mirrored voltages, so they are non-negative in normal operation.
  */
 export interface BjtReport {
+  /** Always `'bjt'`; narrows a {@link DeviceReport}. */
   readonly kind: 'bjt';
+  /** v(base) − v(emitter), in V (negative for a pnp in forward-active operation). */
   readonly vbe: number;
+  /** v(base) − v(collector), in V. */
   readonly vbc: number;
+  /** v(collector) − v(emitter), in V. */
   readonly vce: number;
+  /** Collector current in A: into the collector for npn, out of it for pnp. */
   readonly ic: number;
+  /** Base current in A: into the base for npn, out of it for pnp. */
   readonly ib: number;
   /** ic + ib. */
   readonly ie: number;
@@ -50,6 +57,7 @@ export interface BjtReport {
   readonly cpi: number;
   /** Base-collector capacitance, in F. */
   readonly cmu: number;
+  /** The operating region, by the bias of the two junctions (see {@link BjtRegion}). */
   readonly region: BjtRegion;
 }
 
@@ -58,10 +66,15 @@ export interface BjtReport {
  * for nmos and out of it for pmos. Derivatives are with respect to the mirrored voltages.
  */
 export interface MosfetReport {
+  /** Always `'mosfet'`; narrows a {@link DeviceReport}. */
   readonly kind: 'mosfet';
+  /** v(gate) − v(source), in V. */
   readonly vgs: number;
+  /** v(drain) − v(source), in V. */
   readonly vds: number;
+  /** v(body) − v(source), in V. */
   readonly vbs: number;
+  /** Drain current in A: into the drain for nmos, out of it for pmos. */
   readonly id: number;
   /** ∂id/∂vgs, in S. */
   readonly gm: number;
@@ -69,8 +82,11 @@ export interface MosfetReport {
   readonly gds: number;
   /** ∂id/∂vbs, in S. */
   readonly gmb: number;
+  /** Gate-source capacitance, in F. */
   readonly cgs: number;
+  /** Gate-drain capacitance, in F. */
   readonly cgd: number;
+  /** The operating region (see {@link MosfetRegion}). */
   readonly region: MosfetRegion;
   /** The threshold voltage at the present body bias, with its sign (negative for an enhancement pmos). */
   readonly thresholdVoltage: number;

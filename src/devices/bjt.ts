@@ -19,9 +19,11 @@ import type {
   Device,
   DeviceReport,
   JunctionProbe,
+  NonlinearCurrent,
 } from './device.js';
 import {
   boundedExp,
+  boundedExpCurvature,
   boundedExpSlope,
   criticalVoltage,
   depletionCapacitance,
@@ -226,6 +228,72 @@ export class Bjt implements Device {
     return [
       { junction: 'base-emitter', plus: this.b, minus: this.e, scale: this.nfVt },
       { junction: 'base-collector', plus: this.b, minus: this.c, scale: this.nrVt },
+    ];
+  }
+  /**
+   * The curvature of the four currents of the transport model, in the mirrored frame with controls
+   * u = vbe and w = vbc, q = 1 + (u − w)/VA, F(u) = Is·e_f, G(w) = Is·e_r (F_k, G_k their k-th
+   * derivatives, r = 1/VA):
+   * - forward transport F·q, collector to emitter: ∂uu = F2·q + 2F1·r, ∂uw = −F1·r, ∂ww = 0;
+   *   ∂uuu = F3·q + 3F2·r, ∂uuw = −F2·r, ∂uww = ∂www = 0;
+   * - reverse transport −G·q, collector to emitter: ∂uu = 0, ∂uw = −G1·r, ∂ww = −G2·q + 2G1·r;
+   *   ∂uuu = ∂uuw = 0, ∂uww = −G2·r, ∂www = −G3·q + 3G2·r;
+   * - base currents F/βF (base to emitter) and G/βR (base to collector).
+   * A pnp carries the same currents in the mirrored voltages, flowing the other way.
+   */
+  nonlinearCurrents(x: Float64Array): readonly NonlinearCurrent[] {
+    const p = this.p;
+    const [vbe, vbc] = this.mirrored(x);
+    const r = p.earlyVoltage === Number.POSITIVE_INFINITY ? 0 : 1 / p.earlyVoltage;
+    const q = 1 + (vbe - vbc) * r;
+    const af = vbe / this.nfVt;
+    const ar = vbc / this.nrVt;
+    const f1 = (this.is * boundedExpSlope(af)) / this.nfVt;
+    const f2 = (this.is * boundedExpCurvature(af)) / this.nfVt ** 2;
+    const f3 = f2 / this.nfVt;
+    const g1 = (this.is * boundedExpSlope(ar)) / this.nrVt;
+    const g2 = (this.is * boundedExpCurvature(ar)) / this.nrVt ** 2;
+    const g3 = g2 / this.nrVt;
+    const npn = this.sign > 0;
+    const [c, b, e] = [this.c, this.b, this.e];
+    const u = npn ? { plus: b, minus: e } : { plus: e, minus: b };
+    const w = npn ? { plus: b, minus: c } : { plus: c, minus: b };
+    // Directions in the mirrored frame: into the collector and out of the emitter for npn.
+    const ce = npn ? { from: c, to: e } : { from: e, to: c };
+    const be = npn ? { from: b, to: e } : { from: e, to: b };
+    const bc = npn ? { from: b, to: c } : { from: c, to: b };
+    // Tensors over (u, w), row-major: second [uu, uw, wu, ww]; third [uuu, uuw, uwu, uww, wuu, wuw, wwu, www].
+    const fuuw = -f2 * r;
+    const guww = -g2 * r;
+    return [
+      {
+        junction: 'base-emitter',
+        ...ce,
+        controls: [u, w],
+        second: [f2 * q + 2 * f1 * r, -f1 * r, -f1 * r, 0],
+        third: [f3 * q + 3 * f2 * r, fuuw, fuuw, 0, fuuw, 0, 0, 0],
+      },
+      {
+        junction: 'base-emitter',
+        ...be,
+        controls: [u],
+        second: [f2 / p.forwardBeta],
+        third: [f3 / p.forwardBeta],
+      },
+      {
+        junction: 'base-collector',
+        ...ce,
+        controls: [u, w],
+        second: [0, -g1 * r, -g1 * r, -g2 * q + 2 * g1 * r],
+        third: [0, 0, 0, guww, 0, guww, guww, -g3 * q + 3 * g2 * r],
+      },
+      {
+        junction: 'base-collector',
+        ...bc,
+        controls: [w],
+        second: [g2 / p.reverseBeta],
+        third: [g3 / p.reverseBeta],
+      },
     ];
   }
 }

@@ -1,13 +1,13 @@
 /** The independent current source: its value flows from `from`, through the source, into `to`. */
 import type { CurrentSourceRecord } from '../circuit/elements.js';
 import { addCurrent } from '../mna/stamp.js';
-import type { AcLoadContext, BindContext, DcLoadContext, Device } from './device.js';
+import type { AcLoadContext, BindContext, Conditions, DcLoadContext, Device } from './device.js';
 
-/** A compiled current source. Its DC value can be changed by a sweep through `dc`. */
+/** A compiled current source. Its DC value can be replaced through the analysis conditions (a sweep). */
 export class CurrentSource implements Device {
   readonly nonlinear = false;
   readonly name: string;
-  /** The DC value in A; a sweep sets it. */
+  /** The DC value in A: the record's, or the one the analysis conditions give (a sweep point's). */
   dc: number;
   private from = 0;
   private to = 0;
@@ -18,6 +18,9 @@ export class CurrentSource implements Device {
   bind(ctx: BindContext): void {
     this.from = ctx.node(this.record.from);
     this.to = ctx.node(this.record.to);
+  }
+  prepare(conditions: Conditions): void {
+    this.dc = conditions.sourceValues?.get(this.name) ?? this.record.dc;
   }
   load(ctx: DcLoadContext): void {
     addCurrent(ctx.b, this.from, this.to, this.dc * ctx.sourceScale);

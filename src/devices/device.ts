@@ -67,6 +67,11 @@ export interface Conditions {
   readonly thermalVoltage: number;
   /** The small conductance across every junction (and MOSFET channel), in S. */
   readonly junctionConductance: number;
+  /**
+   * DC values of independent sources that replace the values in their records, by element name (a
+   * sweep sets them, so that each point of a sweep keeps its own value); other sources keep theirs.
+   */
+  readonly sourceValues?: ReadonlyMap<string, number>;
 }
 
 /** The operating report of a nonlinear device (see the public `DiodeReport`, `BjtReport`, `MosfetReport`). */
@@ -81,6 +86,26 @@ export interface JunctionProbe {
   readonly minus: number;
   /** The voltage that normalizes the amplitude: n·Vt for a junction, the overdrive for a channel. */
   readonly scale: number;
+}
+
+/**
+ * One nonlinear current of a device, expanded about the operating point to third order: the exact
+ * second and third partial derivatives of the current with respect to its controlling voltages.
+ * The method of nonlinear currents (the distortion estimate) injects these terms into the linearized
+ * circuit; the first derivatives are already in the small-signal stamp.
+ */
+export interface NonlinearCurrent {
+  /** The junction (or channel) this current belongs to, for attributing shares of the distortion. */
+  readonly junction: JunctionProbe['junction'];
+  /** The current flows from unknown `from`, through the device, into unknown `to`. */
+  readonly from: number;
+  readonly to: number;
+  /** The controlling voltages, each v(plus) − v(minus) of two unknowns. */
+  readonly controls: readonly { readonly plus: number; readonly minus: number }[];
+  /** ∂²i/∂v_a∂v_b for m controls, m×m row-major (symmetric), in A/V². */
+  readonly second: readonly number[];
+  /** ∂³i/∂v_a∂v_b∂v_c, m×m×m row-major (symmetric), in A/V³. */
+  readonly third: readonly number[];
 }
 
 /** One element of a compiled circuit. */
@@ -107,6 +132,12 @@ export interface Device {
   report?(x: Float64Array): DeviceReport;
   /** Junctions and channels to check for linearity at x. */
   junctions?(x: Float64Array): readonly JunctionProbe[];
-  /** Whether the device's load depends on x (so the circuit needs Newton iterations). */
+  /** The second- and third-order terms of the device's nonlinear currents at x (after `prepare`). */
+  nonlinearCurrents?(x: Float64Array): readonly NonlinearCurrent[];
+  /**
+   * Whether the device's load depends on x (so the circuit needs Newton iterations). The load of a
+   * linear device must not read x, and what it adds to b must be proportional to `sourceScale`: the
+   * Newton loop loads it once per set of conditions and reuses the result.
+   */
   readonly nonlinear: boolean;
 }

@@ -17,10 +17,12 @@ import type {
   Device,
   DeviceReport,
   JunctionProbe,
+  NonlinearCurrent,
 } from './device.js';
 import { DIODE_PARAMETERS } from './diode-model.js';
 import {
   boundedExp,
+  boundedExpCurvature,
   boundedExpSlope,
   criticalVoltage,
   depletionCapacitance,
@@ -147,5 +149,26 @@ export class Diode implements Device {
   }
   junctions(_x: Float64Array): readonly JunctionProbe[] {
     return [{ junction: 'pn', plus: this.j, minus: this.c, scale: this.nVt }];
+  }
+  /**
+   * The junction current's curvature: the k-th derivative of Is·e^(v/nVt) is Is·e^(v/nVt)/nVt^k, and
+   * that of the breakdown term −Is·e^(−(v+BV)/nVt) is −Is·e^(−(v+BV)/nVt)·(−1/nVt)^k.
+   */
+  nonlinearCurrents(x: Float64Array): readonly NonlinearCurrent[] {
+    const nVt = this.nVt;
+    const v = x[this.j]! - x[this.c]!;
+    const forward = this.is * boundedExpCurvature(v / nVt);
+    const bv = this.p.breakdownVoltage;
+    const reverse = bv === Number.POSITIVE_INFINITY ? 0 : this.is * boundedExpCurvature(-(v + bv) / nVt);
+    return [
+      {
+        junction: 'pn',
+        from: this.j,
+        to: this.c,
+        controls: [{ plus: this.j, minus: this.c }],
+        second: [(forward - reverse) / (nVt * nVt)],
+        third: [(forward + reverse) / (nVt * nVt * nVt)],
+      },
+    ];
   }
 }

@@ -45,6 +45,11 @@ export function boundedExpSlope(a: number): number {
   return a <= EXP_LIMIT ? Math.exp(a) : EXP_AT_LIMIT;
 }
 
+/** The second (and every higher) derivative of {@link boundedExp}: e^a, and 0 where it runs linear. */
+export function boundedExpCurvature(a: number): number {
+  return a <= EXP_LIMIT ? Math.exp(a) : 0;
+}
+
 /**
  * The critical voltage of a junction, where its current-voltage curve bends most sharply (the point
  * of minimum radius of curvature): n·Vt·ln(n·Vt/(√2·Is)). Steps above it are damped.

@@ -18,6 +18,7 @@ import type {
   Device,
   DeviceReport,
   JunctionProbe,
+  NonlinearCurrent,
 } from './device.js';
 import { defaultThreshold, MOSFET_PARAMETERS } from './mosfet-model.js';
 import { withDefaults } from './parameters.js';
@@ -154,8 +155,13 @@ export class Mosfet implements Device {
     A[s[7]!]! -= gmb;
   }
   load(ctx: DcLoadContext): void {
-    let [vgs, vds] = this.mirrored(ctx.x);
-    const vbs = this.mirrored(ctx.x)[2];
+    // Inline rather than through mirrored(): no array allocated per Newton iteration.
+    const x = ctx.x;
+    const sign = this.sign;
+    const vs = x[this.s]!;
+    let vgs = sign * (x[this.g]! - vs);
+    let vds = sign * (x[this.d]! - vs);
+    const vbs = sign * (x[this.bd]! - vs);
     if (!ctx.first) {
       // Bound each step by the distance already travelled plus a volt or two: the square law is
       // smooth, but a long jump across the threshold can land in cutoff where the Jacobian is empty.
@@ -175,7 +181,6 @@ export class Mosfet implements Device {
     this.stampJacobian(ctx.A);
     addConductance(ctx.A, this.sBody, 0, this.gmin);
     // Equivalent current into the drain, in the circuit's frame.
-    const sign = this.sign;
     const ieq = sign * (this.id - this.gm * vgs - this.gds * vds - this.gmb * vbs);
     ctx.b[this.d]! -= ieq;
     ctx.b[this.s]! += ieq;
@@ -214,5 +219,112 @@ export class Mosfet implements Device {
     const source = this.reversed ? this.d : this.s;
     const vov = (this.reversed ? vgs - vds : vgs) - this.vth;
     return [{ junction: 'channel', plus: this.g, minus: source, scale: vov }];
+  }
+  /**
+   * The channel current's curvature. In the frame of the effective source (the drain when reversed)
+   * the law is h(V, D) with V = vgs − Vth(vbs), D = vds:
+   *   saturation h = ½β·V²·(1 + λD): h_VV = β(1 + λD), h_VD = βVλ, h_VVD = βλ, the rest 0;
+   *   triode h = β·(V·D − ½D²)·(1 + λD): h_VD = β(1 + 2λD), h_DD = β(2λV − 1 − 3λD), h_VDD = 2βλ,
+   *   h_DDD = −3βλ, the rest 0.
+   * With V_b = γ/(2ρ), V_bb = γ/(4ρ³), V_bbb = 3γ/(8ρ⁵), ρ = √(φ − vbs), the chain rule gives the
+   * derivatives in (vgs, vds, vbs) written out below.
+   */
+  nonlinearCurrents(x: Float64Array): readonly NonlinearCurrent[] {
+    const [vgs, vds, vbs] = this.mirrored(x);
+    this.evaluate(vgs, vds, vbs);
+    if (this.regionNow === 'cutoff') return [];
+    const {
+      gainFactor: beta,
+      channelLengthModulation: lambda,
+      bodyEffect: gamma,
+      surfacePotential: phi,
+    } = this.p;
+    const reversed = this.reversed;
+    const g = reversed ? vgs - vds : vgs;
+    const d = reversed ? -vds : vds;
+    const b = reversed ? vbs - vds : vbs;
+    const v = g - this.vth;
+    const rho = Math.sqrt(Math.max(phi - b, 0));
+    const clamped = rho < MIN_BODY_ROOT;
+    const p1 = clamped ? 0 : gamma / (2 * rho);
+    const p2 = clamped ? 0 : gamma / (4 * rho ** 3);
+    const p3 = clamped ? 0 : (3 * gamma) / (8 * rho ** 5);
+    let hV: number;
+    let hVV: number;
+    let hVD: number;
+    let hDD: number;
+    let hVVD: number;
+    let hVDD: number;
+    let hDDD: number;
+    if (this.regionNow === 'saturation') {
+      hV = beta * v * (1 + lambda * d);
+      hVV = beta * (1 + lambda * d);
+      hVD = beta * v * lambda;
+      hDD = 0;
+      hVVD = beta * lambda;
+      hVDD = 0;
+      hDDD = 0;
+    } else {
+      hV = beta * d * (1 + lambda * d);
+      hVV = 0;
+      hVD = beta * (1 + 2 * lambda * d);
+      hDD = beta * (2 * lambda * v - 1 - 3 * lambda * d);
+      hVVD = 0;
+      hVDD = 2 * beta * lambda;
+      hDDD = -3 * beta * lambda;
+    }
+    // Controls (g, d, b); h_VVV = 0 in both regions.
+    const gg = hVV;
+    const gd = hVD;
+    const gb = hVV * p1;
+    const dd = hDD;
+    const db = hVD * p1;
+    const bb = hVV * p1 * p1 + hV * p2;
+    const ggd = hVVD;
+    const gdd = hVDD;
+    const gdb = hVVD * p1;
+    const gbb = hVV * p2;
+    const ddb = hVDD * p1;
+    const dbb = hVVD * p1 * p1 + hVD * p2;
+    const bbb = 3 * hVV * p1 * p2 + hV * p3;
+    const second = [gg, gd, gb, gd, dd, db, gb, db, bb];
+    const third = new Array<number>(27);
+    const set = (i: number, j: number, k: number, value: number): void => {
+      for (const [a, bIndex, c] of [
+        [i, j, k],
+        [i, k, j],
+        [j, i, k],
+        [j, k, i],
+        [k, i, j],
+        [k, j, i],
+      ] as const) {
+        third[a * 9 + bIndex * 3 + c] = value;
+      }
+    };
+    set(0, 0, 0, 0);
+    set(0, 0, 1, ggd);
+    set(0, 0, 2, 0);
+    set(0, 1, 1, gdd);
+    set(0, 1, 2, gdb);
+    set(0, 2, 2, gbb);
+    set(1, 1, 1, hDDD);
+    set(1, 1, 2, ddb);
+    set(1, 2, 2, dbb);
+    set(2, 2, 2, bbb);
+    // The effective source is the drain when reversed; a pmos carries its current the other way.
+    const source = reversed ? this.d : this.s;
+    const drain = reversed ? this.s : this.d;
+    const pair = (node: number) =>
+      this.sign > 0 ? { plus: node, minus: source } : { plus: source, minus: node };
+    const flow = this.sign > 0 ? { from: drain, to: source } : { from: source, to: drain };
+    return [
+      {
+        junction: 'channel',
+        ...flow,
+        controls: [pair(this.g), pair(drain), pair(this.bd)],
+        second,
+        third,
+      },
+    ];
   }
 }

@@ -1,13 +1,20 @@
 /** The independent voltage source: v(plus) − v(minus) = E; its current (plus → minus through it) is an unknown. */
 import type { VoltageSourceRecord } from '../circuit/elements.js';
 import { addBranchIncidence, branchSlots } from '../mna/stamp.js';
-import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from './device.js';
+import type {
+  AcLoadContext,
+  AllocationContext,
+  BindContext,
+  Conditions,
+  DcLoadContext,
+  Device,
+} from './device.js';
 
-/** A compiled voltage source. Its DC value can be changed by a sweep through `dc`. */
+/** A compiled voltage source. Its DC value can be replaced through the analysis conditions (a sweep). */
 export class VoltageSource implements Device {
   readonly nonlinear = false;
   readonly name: string;
-  /** The DC value in V; a sweep sets it. */
+  /** The DC value in V: the record's, or the one the analysis conditions give (a sweep point's). */
   dc: number;
   private k = 0;
   private s: Int32Array = new Int32Array(0);
@@ -20,6 +27,9 @@ export class VoltageSource implements Device {
   }
   bind(ctx: BindContext): void {
     this.s = branchSlots(ctx, ctx.node(this.record.plus), ctx.node(this.record.minus), this.k);
+  }
+  prepare(conditions: Conditions): void {
+    this.dc = conditions.sourceValues?.get(this.name) ?? this.record.dc;
   }
   load(ctx: DcLoadContext): void {
     addBranchIncidence(ctx.A, this.s, 0);

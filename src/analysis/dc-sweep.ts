@@ -1,0 +1,392 @@
+/**
+ * The DC sweep: a sequence of operating points as one quantity steps through given values, each
+ * solved from the solution before it (continuation), which is faster than solving every point
+ * from scratch and follows one branch of the solutions of a circuit that has several.
+ *
+ * Three quantities can be swept: the DC value of an independent source, a numeric parameter of one
+ * element (a resistance, a gain, a model parameter), and the temperature.
+ */
+import type { Circuit } from '../circuit/circuit.js';
+import { type ElementRecord, GROUND } from '../circuit/elements.js';
+import { BJT_PARAMETERS } from '../devices/bjt-model.js';
+import { DIODE_PARAMETERS } from '../devices/diode-model.js';
+import { MOSFET_PARAMETERS } from '../devices/mosfet-model.js';
+import { OP_AMP_PARAMETERS } from '../devices/op-amp-model.js';
+import { type ParameterTable, parseParameters } from '../devices/parameters.js';
+import { invalidValue, unknownElement } from '../errors/messages.js';
+import { QuiescentError } from '../errors/quiescent-error.js';
+import {
+  conditionsAt,
+  type OperatingPoint,
+  type Solver,
+  solveFromCurrent,
+  solverFor,
+  startFromGuess,
+} from './operating-point.js';
+import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
+import type { DeviceReport } from './reports.js';
+
+/** The values a sweep steps through, in the order given: any finite numbers. */
+export type SweepValues = readonly number[] | Float64Array;
+
+/** Sweep the DC value of an independent voltage source (V) or current source (A). */
+export interface SourceSweepOptions extends OperatingPointOptions {
+  /** The name of the voltage or current source whose DC value is swept. */
+  source: string;
+  /** Its DC values, in V or A. */
+  values: SweepValues;
+}
+
+/**
+ * Sweep one numeric parameter of an element: `resistance`, `capacitance`, `inductance`, `gain`,
+ * `transconductance`, `transresistance`, `dc` of a source, or a model parameter of a diode,
+ * transistor or op-amp (`saturationCurrent`, `forwardBeta`, `gainFactor`, `openLoopGain`, …).
+ */
+export interface ParameterSweepOptions extends OperatingPointOptions {
+  /** The element whose parameter is swept. */
+  element: string;
+  /** The parameter's name, as in the builder call or the model. */
+  parameter: string;
+  /** Its values, in the parameter's SI unit. */
+  values: SweepValues;
+}
+
+/** Sweep the analysis temperature. */
+export interface TemperatureSweepOptions extends Omit<OperatingPointOptions, 'temperature'> {
+  /** The temperatures, in K (each finite and above 0). */
+  temperature: SweepValues;
+}
+
+/** Options of {@link dcSweep}: what is swept, through which values, and the operating-point options. */
+export type DcSweepOptions = SourceSweepOptions | ParameterSweepOptions | TemperatureSweepOptions;
+
+/** What a sweep stepped, for messages and for programs that label plots. */
+export type SweptQuantity =
+  | {
+      /** The DC value of an independent source was swept. */
+      readonly kind: 'source';
+      /** The source's name. */
+      readonly element: string;
+    }
+  | {
+      /** A parameter of an element was swept. */
+      readonly kind: 'parameter';
+      /** The element's name. */
+      readonly element: string;
+      /** The parameter's name. */
+      readonly parameter: string;
+    }
+  | {
+      /** The analysis temperature was swept. */
+      readonly kind: 'temperature';
+    };
+
+/** The result of a {@link dcSweep}: one operating point per swept value. Accessors return copies. */
+export class DcSweep {
+  /** What was swept. */
+  readonly swept: SweptQuantity;
+  /** The operating point at each value, in the order of the values. */
+  readonly points: readonly OperatingPoint[];
+  readonly #values: Float64Array;
+
+  /** @internal Built by {@link dcSweep}. */
+  constructor(swept: SweptQuantity, values: Float64Array, points: readonly OperatingPoint[]) {
+    this.swept = swept;
+    this.#values = values;
+    this.points = Object.freeze(points.slice());
+  }
+
+  /** The swept values, in the order given (a copy). */
+  get values(): Float64Array {
+    return this.#values.slice();
+  }
+
+  /** Newton iterations taken over the whole sweep. */
+  get iterations(): number {
+    return this.points.reduce((sum, p) => sum + p.iterations, 0);
+  }
+
+  /** The voltage of `node` with respect to `reference` (ground by default) at every point, in V. */
+  voltage(node: string, reference: string = GROUND): Float64Array {
+    return Float64Array.from(this.points, (p) => p.voltage(node, reference));
+  }
+
+  /** The current of an element at every point, in A, by the sign conventions of `OperatingPoint.current`. */
+  current(element: string): Float64Array {
+    return Float64Array.from(this.points, (p) => p.current(element));
+  }
+
+  /** The device report of a diode or transistor at every point. */
+  device(name: string): DeviceReport[] {
+    return this.points.map((p) => p.device(name));
+  }
+}
+
+/**
+ * Step a source value, an element parameter or the temperature through `values` and find the
+ * operating point at each, starting each solve from the solution before it.
+ *
+ * @param circuit - the circuit to sweep (it is not changed)
+ * @param options - one of `{ source, values }`, `{ element, parameter, values }` or
+ *   `{ temperature: values }`, plus any option of `operatingPoint` (the initial guess applies to
+ *   the first point)
+ * @returns the {@link DcSweep} with one operating point per value
+ * @throws QuiescentError `unknown-element` (the swept element does not exist, or is not a source for
+ *   a source sweep), `invalid-value` (no values, a value that is not finite or out of the
+ *   parameter's range, an unknown parameter), `no-convergence` (naming the value where it failed),
+ *   and the topology errors of `operatingPoint`
+ *
+ * @example
+ * ```ts
+ * const sweep = dcSweep(circuit, { source: 'Vin', values: linearSweep(0, 5, 51) });
+ * sweep.voltage('out');   // Float64Array, one entry per value
+ * dcSweep(circuit, { element: 'R2', parameter: 'resistance', values: [1e3, 2e3, 5e3] });
+ * dcSweep(circuit, { temperature: [250, 300, 350] });
+ * ```
+ */
+export function dcSweep(circuit: Circuit, options: DcSweepOptions): DcSweep {
+  if (options === null || typeof options !== 'object') {
+    throw invalidValue(['options'], options, 'an object naming what to sweep');
+  }
+  const given = options as unknown as Record<string, unknown>;
+  const kinds = [
+    given.source !== undefined,
+    given.element !== undefined,
+    typeof given.temperature === 'object' && given.temperature !== null,
+  ].filter(Boolean).length;
+  if (kinds > 1) {
+    throw invalidValue(
+      ['options'],
+      options,
+      'one sweep only: a source, an element parameter or a temperature list',
+    );
+  }
+  if ('source' in options && options.source !== undefined) return sourceSweep(circuit, options);
+  if ('element' in options && options.element !== undefined) return parameterSweep(circuit, options);
+  if ('temperature' in options && typeof options.temperature === 'object') {
+    return temperatureSweep(circuit, options as TemperatureSweepOptions);
+  }
+  throw invalidValue(
+    ['options'],
+    options,
+    'a sweep: { source, values }, { element, parameter, values } or { temperature: values }',
+  );
+}
+
+/** Copy the values into a Float64Array, checking that there is at least one and each is finite. */
+function checkedValues(values: unknown, key: string, check?: (v: number, k: number) => void): Float64Array {
+  const ok = Array.isArray(values) || values instanceof Float64Array;
+  if (!ok || (values as ArrayLike<unknown>).length === 0) {
+    throw invalidValue(['options', key], ok ? '[]' : values, 'a non-empty list of finite numbers');
+  }
+  const list = values as ArrayLike<unknown>;
+  const out = new Float64Array(list.length);
+  for (let k = 0; k < list.length; k++) {
+    const v = list[k];
+    if (typeof v !== 'number' || !Number.isFinite(v)) {
+      throw invalidValue(['options', key, k], v, 'a finite number');
+    }
+    check?.(v, k);
+    out[k] = v;
+  }
+  return out;
+}
+
+/** The options of the operating point solved at each point, without the sweep's own keys. */
+function pointOptions(options: object): OperatingPointOptions {
+  const out: Record<string, unknown> = {};
+  for (const [key, value] of Object.entries(options)) {
+    // A number under `temperature` is the fixed temperature of a source or parameter sweep.
+    if (!SWEEP_KEYS.has(key) || (key === 'temperature' && typeof value === 'number')) out[key] = value;
+  }
+  return out as OperatingPointOptions;
+}
+
+/** The keys that say what is swept; every other key is an operating-point option. */
+const SWEEP_KEYS: ReadonlySet<string> = new Set(['source', 'element', 'parameter', 'values', 'temperature']);
+
+/** Solve each point from the one before through `solveAt`, naming the swept value when one fails. */
+function continuation(
+  values: Float64Array,
+  describe: (value: number) => string,
+  solveAt: (value: number, k: number) => OperatingPoint,
+): OperatingPoint[] {
+  const points: OperatingPoint[] = [];
+  for (let k = 0; k < values.length; k++) {
+    try {
+      points.push(solveAt(values[k]!, k));
+    } catch (e) {
+      if (e instanceof QuiescentError && e.code === 'no-convergence') {
+        throw new QuiescentError(
+          e.details,
+          `at ${describe(values[k]!)} (point ${k + 1} of the sweep): ${e.message}`,
+        );
+      }
+      throw e;
+    }
+  }
+  return points;
+}
+
+function sourceSweep(circuit: Circuit, options: SourceSweepOptions): DcSweep {
+  const name = options.source;
+  const record = typeof name === 'string' ? circuit.element(name) : undefined;
+  if (record === undefined)
+    throw unknownElement(String(name), 'the circuit has no element of that name', ['options', 'source']);
+  if (record.kind !== 'voltage-source' && record.kind !== 'current-source') {
+    throw unknownElement(
+      name,
+      `it is a ${record.kind}, not an independent source; sweep its parameters with { element, parameter, values }`,
+      ['options', 'source'],
+    );
+  }
+  const values = checkedValues(options.values, 'values');
+  const solver = prepare(circuit.elements, resolveOptions(pointOptions(options)));
+  const base = conditionsAt(solver.options.temperature, solver.options);
+  const unit = record.kind === 'voltage-source' ? 'V' : 'A';
+  const points = continuation(
+    values,
+    (v) => `${name} = ${v} ${unit}`,
+    (v) => solveFromCurrent(solver, { ...base, sourceValues: new Map([[name, v]]) }),
+  );
+  return new DcSweep({ kind: 'source', element: name }, values, points);
+}
+
+function temperatureSweep(circuit: Circuit, options: TemperatureSweepOptions): DcSweep {
+  const values = checkedValues(options.temperature, 'temperature', (v, k) => {
+    if (v <= 0) throw invalidValue(['options', 'temperature', k], v, 'a temperature above 0 K');
+  });
+  const solver = prepare(circuit.elements, resolveOptions(pointOptions(options)));
+  const points = continuation(
+    values,
+    (t) => `T = ${t} K`,
+    (t) => solveFromCurrent(solver, conditionsAt(t, solver.options)),
+  );
+  return new DcSweep({ kind: 'temperature' }, values, points);
+}
+
+function parameterSweep(circuit: Circuit, options: ParameterSweepOptions): DcSweep {
+  const { element, parameter } = options;
+  const record = typeof element === 'string' ? circuit.element(element) : undefined;
+  if (record === undefined)
+    throw unknownElement(String(element), 'the circuit has no element of that name', ['options', 'element']);
+  if ((record.kind === 'voltage-source' || record.kind === 'current-source') && parameter === 'dc') {
+    const { element: _e, parameter: _p, ...rest } = options;
+    return sourceSweep(circuit, { ...rest, source: element });
+  }
+  const variant = parameterVariant(record, parameter);
+  const values = checkedValues(options.values, 'values');
+  // Each value gives its own record, checked as the builder would check it, before anything is solved.
+  const records = Array.from(values, (v) => variant(v));
+  const resolved = resolveOptions(pointOptions(options));
+  const elements = circuit.elements;
+  const at = elements.indexOf(record);
+  const conditions = conditionsAt(resolved.temperature, resolved);
+  let previous: Solver | undefined;
+  const points = continuation(
+    values,
+    (v) => `${element}.${parameter} = ${v}`,
+    (_v, k) => {
+      const variantElements = elements.slice();
+      variantElements[at] = records[k]!;
+      const solver = solverFor(variantElements, resolved);
+      startFromGuess(solver);
+      // Continue from the last solution when the unknowns are the same (a parameter can add an
+      // internal node, a diode's series resistance stepping away from 0, say).
+      if (previous !== undefined && sameUnknowns(previous, solver))
+        solver.workspace.x.set(previous.workspace.x);
+      previous = solver;
+      return solveFromCurrent(solver, conditions);
+    },
+  );
+  return new DcSweep({ kind: 'parameter', element, parameter }, values, points);
+}
+
+function prepare(elements: readonly ElementRecord[], options: ResolvedOptions): Solver {
+  const solver = solverFor(elements, options);
+  startFromGuess(solver);
+  return solver;
+}
+
+function sameUnknowns(a: Solver, b: Solver): boolean {
+  const la = a.system.labels;
+  const lb = b.system.labels;
+  if (la.length !== lb.length) return false;
+  for (let k = 0; k < la.length; k++) {
+    if (la[k]!.kind !== lb[k]!.kind || la[k]!.name !== lb[k]!.name) return false;
+  }
+  return true;
+}
+
+/** The element's scalar parameters (outside a model), with the range the builder enforces. */
+const SCALAR_PARAMETERS: Readonly<
+  Record<string, Readonly<Record<string, 'positive' | 'non-negative' | 'any'>>>
+> = {
+  resistor: { resistance: 'positive' },
+  capacitor: { capacitance: 'non-negative' },
+  inductor: { inductance: 'non-negative' },
+  vcvs: { gain: 'any' },
+  vccs: { transconductance: 'any' },
+  ccvs: { transresistance: 'any' },
+  cccs: { gain: 'any' },
+};
+
+const RANGE_WORDS = {
+  positive: 'a finite number greater than 0',
+  'non-negative': 'a finite number of 0 or more',
+  any: 'a finite number',
+} as const;
+
+/**
+ * A function from a parameter value to the element's record with that value, checking the value as
+ * the builder does. Throws `invalid-value` naming the element when it has no such parameter.
+ */
+function parameterVariant(record: ElementRecord, parameter: string): (value: number) => ElementRecord {
+  const scalars = SCALAR_PARAMETERS[record.kind];
+  const path = [record.name, parameter];
+  if (scalars !== undefined) {
+    const range = scalars[parameter];
+    if (range === undefined) throw noSuchParameter(record, parameter, Object.keys(scalars));
+    return (value) => {
+      const ok = range === 'positive' ? value > 0 : range === 'non-negative' ? value >= 0 : true;
+      if (!ok) throw invalidValue(path, value, RANGE_WORDS[range]);
+      return { ...record, [parameter]: value } as ElementRecord;
+    };
+  }
+  const modelOf = (table: ParameterTable<string>, kindName: string, given: object | undefined) => {
+    if (!Object.hasOwn(table, parameter)) throw noSuchParameter(record, parameter, Object.keys(table));
+    return (value: number) => {
+      const parsed = parseParameters(table, { [parameter]: value }, [record.name, 'model'], kindName);
+      return { ...given, ...parsed };
+    };
+  };
+  switch (record.kind) {
+    case 'diode': {
+      const model = modelOf(DIODE_PARAMETERS, 'diode', record.model);
+      return (value) => ({ ...record, model: model(value) });
+    }
+    case 'bjt': {
+      const model = modelOf(BJT_PARAMETERS, 'bipolar transistor', record.model);
+      return (value) => ({ ...record, model: model(value) });
+    }
+    case 'mosfet': {
+      const model = modelOf(MOSFET_PARAMETERS, 'MOSFET', record.model);
+      return (value) => ({ ...record, model: model(value) });
+    }
+    case 'op-amp': {
+      const model = modelOf(OP_AMP_PARAMETERS, 'op-amp', record.options);
+      return (value) => ({ ...record, options: model(value) });
+    }
+    default:
+      // Sources: only `dc`, handled as a source sweep before this point.
+      throw noSuchParameter(record, parameter, ['dc']);
+  }
+}
+
+function noSuchParameter(record: ElementRecord, parameter: string, known: readonly string[]): QuiescentError {
+  return invalidValue(
+    ['options', 'parameter'],
+    parameter,
+    `a parameter of ${record.kind} '${record.name}' (${known.join(', ')})`,
+  );
+}

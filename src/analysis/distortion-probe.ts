@@ -1,0 +1,77 @@
+/**
+ * Reading a {@link Probe} from any complex solution of the small-signal equations, not only from the
+ * stored solutions of an AC analysis: the distortion estimate reads its output at 2f and 3f from
+ * solutions whose only excitation is the injected nonlinear currents.
+ */
+import { GROUND } from '../circuit/elements.js';
+import { invalidValue, unknownElement } from '../errors/messages.js';
+import type { CompiledSystem } from '../mna/system.js';
+import type { Probe } from './ac-analysis.js';
+import { nodeAt } from './operating-point.js';
+
+/** Writes the probe's phasor for solution (xr, xi) at angular frequency ω into out[0], out[1]. */
+export type ProbeReader = (xr: Float64Array, xi: Float64Array, omega: number, out: Float64Array) => void;
+
+/**
+ * A reader for `probe`, checked at once.
+ *
+ * @param system - the compiled circuit
+ * @param x - the operating point the devices are linearized at
+ * @param probe - a node name, `{ node, reference? }` or `{ element }`
+ * @param harmonic - whether the solutions read carry no source excitation (the 2nd and 3rd harmonic):
+ *   an independent current source then carries no current, whatever its AC value
+ * @throws QuiescentError `unknown-node`, `unknown-element`, `invalid-value`
+ */
+export function probeReader(
+  system: CompiledSystem,
+  x: Float64Array,
+  probe: Probe,
+  harmonic: boolean,
+): ProbeReader {
+  if (typeof probe === 'string') return voltageReader(nodeAt(system, probe), system.n);
+  if (probe !== null && typeof probe === 'object') {
+    if ('element' in probe && typeof probe.element === 'string') {
+      const device = system.deviceByName.get(probe.element);
+      if (device === undefined) throw unknownElement(probe.element);
+      const acCurrent = device.acCurrent?.bind(device);
+      if (acCurrent === undefined) {
+        throw unknownElement(
+          probe.element,
+          'it has no single small-signal current; read its terminals through voltages',
+        );
+      }
+      if (harmonic && device.record.kind === 'current-source') {
+        return (_xr, _xi, _omega, out) => {
+          out[0] = 0;
+          out[1] = 0;
+        };
+      }
+      return (xr, xi, omega, out) => acCurrent(xr, xi, omega, x, out);
+    }
+    if ('node' in probe && typeof probe.node === 'string') {
+      const a = nodeAt(system, probe.node);
+      const b = nodeAt(system, probe.reference ?? GROUND);
+      return (xr, xi, _omega, out) => {
+        out[0] = xr[a]! - xr[b]!;
+        out[1] = xi[a]! - xi[b]!;
+      };
+    }
+  }
+  throw invalidValue(['output'], probe, 'a node name, { node, reference? } or { element }');
+}
+
+function voltageReader(a: number, ground: number): ProbeReader {
+  return (xr, xi, _omega, out) => {
+    out[0] = xr[a]! - xr[ground]!;
+    out[1] = xi[a]! - xi[ground]!;
+  };
+}
+
+/** A short text naming a probe, for reports and messages. */
+export function describeProbe(probe: Probe): string {
+  if (typeof probe === 'string') return `v(${probe})`;
+  if ('element' in probe) return `i(${probe.element})`;
+  return probe.reference === undefined || probe.reference === GROUND
+    ? `v(${probe.node})`
+    : `v(${probe.node}, ${probe.reference})`;
+}

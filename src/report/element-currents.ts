@@ -1,0 +1,44 @@
+/**
+ * Which elements of an operating point have a current, and which way it is counted, for the report
+ * tables and the JSON form.
+ */
+import type { ElementRecord } from '../circuit/elements.js';
+
+/**
+ * The direction in which an element's current is counted, in words: `'a → b'` for a two-terminal
+ * element, the output branch of a controlled source, `'out of n'` for an op-amp's output; undefined
+ * for a transistor, which has no single current.
+ *
+ * @param record - the element
+ * @returns the direction, or undefined
+ */
+export function currentDirection(record: ElementRecord): string | undefined {
+  switch (record.kind) {
+    case 'resistor':
+    case 'capacitor':
+    case 'inductor':
+      return `${record.a} → ${record.b}`;
+    case 'voltage-source':
+      return `${record.plus} → ${record.minus}`;
+    case 'current-source':
+      return `${record.from} → ${record.to}`;
+    case 'vcvs':
+    case 'ccvs':
+      return `${record.outPlus} → ${record.outMinus}`;
+    case 'vccs':
+    case 'cccs':
+      return `${record.outFrom} → ${record.outTo}`;
+    case 'op-amp':
+      return `out of ${record.output}`;
+    case 'diode':
+      return `${record.anode} → ${record.cathode}`;
+    case 'bjt':
+    case 'mosfet':
+      return undefined;
+  }
+}
+
+/** Whether an element has a device report (a diode or a transistor). */
+export function hasDeviceReport(record: ElementRecord): boolean {
+  return record.kind === 'diode' || record.kind === 'bjt' || record.kind === 'mosfet';
+}

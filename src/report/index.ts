@@ -1,0 +1,20 @@
+export { type AcReportOptions, acTable, formatAcAnalysis, probeLabel } from './ac-table.js';
+export { currentDirection } from './element-currents.js';
+export { type DeviceJson, type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
+export { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
+export {
+  bodePlotSvg,
+  type PlotAxis,
+  type PlotOptions,
+  type PlotPanel,
+  type PlotSeries,
+  svgPlot,
+} from './svg-plot.js';
+export {
+  cell,
+  DEFAULT_REPORT_DIGITS,
+  type ReportOptions,
+  renderTable,
+  type TableColumn,
+  type TextTable,
+} from './table.js';
