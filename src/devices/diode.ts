@@ -124,6 +124,16 @@ export class Diode implements Device {
     addConductance(ctx.Ai, this.sJunction, 0, ctx.omega * this.capacitanceAt(v));
     if (this.p.seriesResistance > 0) addConductance(ctx.Ar, this.sSeries, 0, 1 / this.p.seriesResistance);
   }
+  /** The small-signal current anode to cathode: (g + jωC) times the junction voltage phasor. */
+  acCurrent(xr: Float64Array, xi: Float64Array, omega: number, x: Float64Array, out: Float64Array): void {
+    const v = x[this.j]! - x[this.c]!;
+    this.evaluate(v);
+    const b = omega * this.capacitanceAt(v);
+    const vr = xr[this.j]! - xr[this.c]!;
+    const vi = xi[this.j]! - xi[this.c]!;
+    out[0] = this.g * vr - b * vi;
+    out[1] = this.g * vi + b * vr;
+  }
   private capacitanceAt(v: number): number {
     const p = this.p;
     return (
