@@ -63,7 +63,7 @@ export function parseParameters<K extends string>(
 ): Partial<Record<K, number>> {
   if (given === undefined) return {};
   if (given === null || typeof given !== 'object' || Array.isArray(given)) {
-    throw invalidCircuit(path, `the model of a ${kindName} must be an object of parameters`);
+    throw invalidCircuit(path, `the model of ${article(kindName)} must be an object of parameters`);
   }
   const out: Partial<Record<K, number>> = {};
   for (const key of Object.keys(given)) {
@@ -72,7 +72,7 @@ export function parseParameters<K extends string>(
       const known = Object.keys(table).join(', ');
       throw invalidCircuit(
         [...path, key],
-        `is not a parameter of a ${kindName}; the parameters are ${known}`,
+        `is not a parameter of ${article(kindName)}; the parameters are ${known}`,
       );
     }
     const k = key as K;
@@ -108,4 +108,9 @@ export function withDefaults<K extends string>(
     out[key] = v === undefined ? table[key].defaultValue : v;
   }
   return out;
+}
+
+/** 'a diode', 'an op-amp': the indefinite article for a kind name in messages. */
+function article(kindName: string): string {
+  return /^[aeiou]/i.test(kindName) ? `an ${kindName}` : `a ${kindName}`;
 }
