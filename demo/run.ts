@@ -1,11 +1,33 @@
 /**
  * The built-in example: the front end of an invented greenhouse leaf-wetness sensor. A common-emitter
- * stage amplifies the electrode signal; a diode pair, biased by a control current, sets the level
- * that reaches the detector. This script solves its operating point and prints every device.
+ * stage amplifies the electrode signal; a diode, biased by a control current, sets the level that
+ * reaches the detector. This script solves its operating point, its small-signal response over
+ * frequency, the linearity of every junction at the signal applied, and the level against the control
+ * current, and writes a Bode plot and a sweep plot as SVG files.
+ *
+ * Run with `npm run demo`; the plots go to out/demo (or the folder given as the first argument).
  */
-import { Circuit, formatValue, GROUND, operatingPoint } from '../src/index.js';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import {
+  acAnalysis,
+  bodePlotSvg,
+  Circuit,
+  dcSweep,
+  formatAcAnalysis,
+  formatLinearity,
+  formatOperatingPoint,
+  formatValue,
+  GROUND,
+  linearity,
+  linearSweep,
+  logSweep,
+  operatingPoint,
+  svgPlot,
+} from '../src/index.js';
 
-export function leafWetnessFrontEnd(): Circuit {
+/** The sensor front end, with the level-control current as a parameter. */
+export function leafWetnessFrontEnd(controlCurrent: number | string = '200µ'): Circuit {
   return new Circuit()
     .voltageSource('Vsupply', 'vcc', GROUND, { dc: '9 V' })
     .voltageSource('Vsensor', 'electrode', GROUND, { dc: 0, ac: '1m' })
@@ -29,8 +51,8 @@ export function leafWetnessFrontEnd(): Circuit {
     )
     .capacitor('Cout', 'collector', 'level', '2.2µF')
     .resistor('Rlevel', 'level', GROUND, '10k')
-    .currentSource('Icontrol', 'vcc', 'shunt', { dc: '200µ' })
-    .resistor('Rshunt', 'shunt', 'detector', '100k')
+    .currentSource('Icontrol', 'vcc', 'shunt', { dc: controlCurrent })
+    .resistor('Rshunt', 'shunt', 'detector', '10k')
     .resistor('Rfeed', 'level', 'detector', '2.2k')
     .diode('Dlevel', 'detector', GROUND, {
       saturationCurrent: '4n',
@@ -39,12 +61,96 @@ export function leafWetnessFrontEnd(): Circuit {
     });
 }
 
-const op = operatingPoint(leafWetnessFrontEnd());
-console.log(`Operating point (${op.strategy}, ${op.iterations} iterations, T = ${op.temperature} K)`);
-for (const node of op.nodes) console.log(`  v(${node})`.padEnd(18), formatValue(op.voltage(node), 'V'));
-const q = op.bjt('Qamp');
-console.log(
-  `  Qamp ${q.region}: ic ${formatValue(q.ic, 'A')}, gm ${formatValue(q.gm, 'S')}, rpi ${formatValue(q.rpi, 'Ω')}, ro ${formatValue(q.ro, 'Ω')}`,
-);
-const d = op.diode('Dlevel');
-console.log(`  Dlevel: i ${formatValue(d.current, 'A')}, r_d ${formatValue(d.resistance, 'Ω')}`);
+/** What the demo computes, for the smoke test and for anyone who imports it. */
+export interface DemoResult {
+  /** The folder the plots were written to. */
+  readonly folder: string;
+  /** The files written. */
+  readonly files: readonly string[];
+  /** Mid-band gain from electrode to detector at 1 kHz, in dB. */
+  readonly gainAt1kHzDb: number;
+  /** The −3 dB corners of that gain, in Hz. */
+  readonly corners: readonly number[];
+  /** The control currents swept, in A, and the gain to the detector at 1 kHz for each, in dB. */
+  readonly sweep: { readonly current: Float64Array; readonly gainDb: Float64Array };
+  /** The largest factor the electrode signal could grow by with every junction within budget. */
+  readonly maxInputScale: number;
+}
+
+/** Solve everything, print the tables, write the plots into `folder`. */
+export function runDemo(folder: string, print: (text: string) => void = console.log): DemoResult {
+  const circuit = leafWetnessFrontEnd();
+  const op = operatingPoint(circuit);
+  print(formatOperatingPoint(op));
+
+  // One point per decade for the table, ten per decade for the plot and the corners.
+  const tableAc = acAnalysis(op, { frequencies: logSweep(1, 1e7, 1) });
+  print('');
+  print(formatAcAnalysis(tableAc, { outputs: ['collector', 'detector'], input: 'electrode' }));
+  const ac = acAnalysis(op, { frequencies: logSweep(0.1, 1e8, 20) });
+  const corners = ac.cutoffFrequencies('detector', 'electrode');
+  const gainAt1kHzDb = acAnalysis(op, { frequencies: [1e3] }).magnitudeDb('detector', 'electrode')[0]!;
+  print('');
+  print(
+    `Gain electrode → detector at 1 kHz: ${gainAt1kHzDb.toFixed(2)} dB; −3 dB corners: ` +
+      corners.map((f) => formatValue(f, 'Hz', { digits: 3 })).join(' and '),
+  );
+
+  const report = linearity(ac);
+  print('');
+  print(formatLinearity(report));
+
+  // The level control: sweep the control current, and take the 1 kHz gain at each operating point.
+  const currents = linearSweep(20e-6, 1e-3, 50);
+  const sweep = dcSweep(circuit, { source: 'Icontrol', values: currents });
+  const gainDb = Float64Array.from(
+    sweep.points,
+    (point) => acAnalysis(point, { frequencies: [1e3] }).magnitudeDb('detector', 'electrode')[0]!,
+  );
+
+  mkdirSync(folder, { recursive: true });
+  const bodeFile = join(folder, 'bode.svg');
+  writeFileSync(
+    bodeFile,
+    bodePlotSvg(
+      ac.bode('detector', 'electrode'),
+      'Leaf-wetness front end: electrode to detector',
+      'v(detector)/v(electrode)',
+    ),
+  );
+  const sweepFile = join(folder, 'level-control.svg');
+  writeFileSync(
+    sweepFile,
+    svgPlot({
+      title: 'Level control: detector bias and 1 kHz gain against control current',
+      x: { label: 'control current', unit: 'A' },
+      panels: [
+        {
+          y: { label: 'v(detector)', unit: 'V' },
+          series: [{ label: 'v(detector)', x: currents, y: sweep.voltage('detector') }],
+        },
+        {
+          y: { label: 'gain at 1 kHz', unit: 'dB' },
+          series: [{ label: 'v(detector)/v(electrode)', x: currents, y: gainDb }],
+        },
+      ],
+    }),
+  );
+  print('');
+  print(`Plots written to ${bodeFile} and ${sweepFile}`);
+  return {
+    folder,
+    files: [bodeFile, sweepFile],
+    gainAt1kHzDb,
+    corners,
+    sweep: { current: currents, gainDb },
+    maxInputScale: report.maxInputScale,
+  };
+}
+
+if (
+  process.argv[1] !== undefined &&
+  resolve(process.argv[1]) === resolve(new URL(import.meta.url).pathname)
+) {
+  runDemo(resolve(process.argv[2] ?? 'out/demo'));
+}

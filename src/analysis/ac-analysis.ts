@@ -24,8 +24,16 @@ export interface AcAnalysisOptions {
  */
 export type Probe =
   | string
-  | { readonly node: string; readonly reference?: string }
-  | { readonly element: string };
+  | {
+      /** The node whose voltage is read. */
+      readonly node: string;
+      /** The node it is measured against (default ground). */
+      readonly reference?: string;
+    }
+  | {
+      /** The element whose current is read. */
+      readonly element: string;
+    };
 
 /** A Bode table: magnitude, magnitude in dB and unwrapped phase at each frequency of the sweep. */
 export interface BodeTable {
@@ -190,22 +198,55 @@ export class AcAnalysis {
    * The impedance the rest of the circuit presents to an independent source at its terminals, in Ω:
    * v(plus) − v(minus) over the current the source drives into `plus` for a voltage source, and
    * v(to) − v(from) over the source's current for a current source. This is the input impedance of
-   * the port that the source drives (its own internal resistance excluded: put it in as a resistor).
+   * the port that the source drives (its own internal resistance excluded: put it in as a resistor),
+   * with every other source as it is. `Complex.INFINITY` where no current flows (a voltage source's
+   * current below the rounding error of the currents meeting at its node counts as none).
+   *
+   * @throws QuiescentError `unknown-element` for an element that is not an independent source;
+   *   `invalid-value` for a source without an AC excitation
    */
   sourceImpedance(source: string): Complex[] {
     const record = this.operatingPoint.system.deviceByName.get(source)?.record;
     if (record === undefined) throw unknownElement(source);
-    if (record.kind === 'voltage-source') {
-      const v = this.voltage(record.plus, record.minus);
-      const i = this.current(source);
-      return v.map((value, k) => impedanceOf(value, i[k]!.neg()));
+    if (record.kind !== 'voltage-source' && record.kind !== 'current-source') {
+      throw unknownElement(source, 'an impedance is seen by an independent voltage or current source only');
     }
+    if (!(record.ac.magnitude > 0)) {
+      throw invalidValue([source, 'ac'], record.ac.magnitude, 'a source with a non-zero AC magnitude');
+    }
+    const i = this.current(source);
     if (record.kind === 'current-source') {
       const v = this.voltage(record.to, record.from);
-      const i = this.current(source);
-      return v.map((value, k) => impedanceOf(value, i[k]!));
+      return v.map((value, k) => value.div(i[k]!));
     }
-    throw unknownElement(source, 'an impedance is seen by an independent voltage or current source only');
+    const v = this.voltage(record.plus, record.minus);
+    const system = this.operatingPoint.system;
+    const plus = nodeAt(system, record.plus);
+    const row = plus < system.n ? plus : nodeAt(system, record.minus);
+    const workspace = new AcWorkspace(this.operatingPoint);
+    return v.map((value, k) => {
+      workspace.assembleAt(this.frequencies[k]!);
+      const noise = ROUNDING_MARGIN * Number.EPSILON * this.#rowCurrentScale(workspace, row, k);
+      const drive = i[k]!.neg();
+      return drive.abs() <= noise ? Complex.INFINITY : value.div(drive);
+    });
+  }
+
+  /** Σ_j |A(row, j)·x_j| at frequency index k: the size of the currents whose balance is row `row`. */
+  #rowCurrentScale(workspace: AcWorkspace, row: number, k: number): number {
+    const { n, pattern } = this.operatingPoint.system;
+    const { Ap, Ai: rows } = pattern;
+    const stride = n + 1;
+    let scale = 0;
+    for (let j = 0; j < n; j++) {
+      const xr = this.re[k * stride + j]!;
+      const xi = this.im[k * stride + j]!;
+      for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+        if (rows[p] !== row) continue;
+        scale += Math.hypot(workspace.Ar[p]!, workspace.Ai[p]!) * Math.hypot(xr, xi);
+      }
+    }
+    return scale;
   }
 
   #ratio(output: Probe, input?: Probe): Complex[] {
@@ -213,10 +254,8 @@ export class AcAnalysis {
   }
 }
 
-/** v/i, with an open port (no current) giving an infinite impedance rather than a division by zero. */
-function impedanceOf(v: Complex, i: Complex): Complex {
-  return i.re === 0 && i.im === 0 ? Complex.INFINITY : v.div(i);
-}
+/** Multiple of the unit roundoff below which a source current is indistinguishable from zero. */
+const ROUNDING_MARGIN = 64;
 
 /**
  * Solve the small-signal circuit at the operating point `op` for every frequency.

@@ -3,12 +3,36 @@
  * the operating point, stamped through the slots of the DC pattern, factored by one complex sparse
  * solver whose symbolic analysis serves the whole sweep. The AC analysis, the port impedances and the
  * distortion estimate all solve on it.
+ *
+ * Most devices stamp G + jωC with G and C fixed by the operating point, so the workspace stamps them
+ * once, at ω = 0 and ω = 1, and each frequency only forms G + jωC and restamps the few devices whose
+ * admittance is not of that form (the op-amp's pole). The nonlinear models are evaluated once per sweep.
  */
-import type { AcLoadContext } from '../devices/device.js';
+import type { ElementKind } from '../circuit/elements.js';
+import type { AcLoadContext, Device } from '../devices/device.js';
 import { type ComplexLinearSolver, createComplexSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
-import { prepareDevices, singularAt } from './newton.js';
+import { singularAt } from './newton.js';
 import type { OperatingPoint } from './operating-point.js';
+
+/**
+ * Element kinds whose small-signal stamp is exactly G + jωC (G, C independent of ω) and whose AC
+ * excitation does not depend on ω. Any other kind is restamped at every frequency.
+ */
+const FREQUENCY_AFFINE_KINDS: ReadonlySet<ElementKind> = new Set<ElementKind>([
+  'resistor',
+  'capacitor',
+  'inductor',
+  'voltage-source',
+  'current-source',
+  'vcvs',
+  'vccs',
+  'ccvs',
+  'cccs',
+  'diode',
+  'bjt',
+  'mosfet',
+]);
 
 /** Relative residual above which a complex solve is refused as numerically singular. */
 export const AC_RESIDUAL_LIMIT = 1e-9;
@@ -17,7 +41,7 @@ export const AC_RESIDUAL_LIMIT = 1e-9;
 export class AcWorkspace {
   readonly system: CompiledSystem;
   readonly op: OperatingPoint;
-  /** Matrix values (real, imaginary), length nnz+1 (the last is the ground trash slot). */
+  /** Matrix values (real, imaginary) at the last assembly, length nnz+1 (the last is the ground trash slot). */
   readonly Ar: Float64Array;
   readonly Ai: Float64Array;
   /** The excitation the sources wrote at the last assembly, length n+1. */
@@ -25,6 +49,15 @@ export class AcWorkspace {
   readonly sourceIm: Float64Array;
   readonly #solver: ComplexLinearSolver;
   readonly #context: AcLoadContext & { omega: number };
+  /** G and C of the frequency-affine devices (real and imaginary parts of each), and their excitation. */
+  readonly #conductanceRe: Float64Array;
+  readonly #conductanceIm: Float64Array;
+  readonly #capacitanceRe: Float64Array;
+  readonly #capacitanceIm: Float64Array;
+  readonly #baseSourceRe: Float64Array;
+  readonly #baseSourceIm: Float64Array;
+  /** Devices restamped at every frequency. */
+  readonly #perFrequency: readonly Device[];
   readonly #residualRe: Float64Array;
   readonly #residualIm: Float64Array;
   #frequency = Number.NaN;
@@ -32,7 +65,7 @@ export class AcWorkspace {
   constructor(op: OperatingPoint) {
     this.op = op;
     this.system = op.system;
-    const { n, nnz } = this.system;
+    const { n, nnz, devices } = this.system;
     this.Ar = new Float64Array(nnz + 1);
     this.Ai = new Float64Array(nnz + 1);
     this.sourceRe = new Float64Array(n + 1);
@@ -41,6 +74,23 @@ export class AcWorkspace {
     this.#residualIm = new Float64Array(n + 1);
     this.#solver = createComplexSolver(this.system.pattern);
     this.#context = { x: op.x, omega: 0, Ar: this.Ar, Ai: this.Ai, br: this.sourceRe, bi: this.sourceIm };
+
+    const affine = devices.filter((d) => FREQUENCY_AFFINE_KINDS.has(d.record.kind));
+    this.#perFrequency = devices.filter((d) => !FREQUENCY_AFFINE_KINDS.has(d.record.kind));
+    for (const d of devices) d.prepare?.(op.conditions);
+    // G + jωC is linear in ω: its stamps at ω = 0 and ω = 1 give G and C.
+    this.#stampAt(affine, 0);
+    this.#conductanceRe = this.Ar.slice();
+    this.#conductanceIm = this.Ai.slice();
+    this.#baseSourceRe = this.sourceRe.slice();
+    this.#baseSourceIm = this.sourceIm.slice();
+    this.#stampAt(affine, 1);
+    this.#capacitanceRe = this.Ar.slice();
+    this.#capacitanceIm = this.Ai.slice();
+    for (let p = 0; p <= nnz; p++) {
+      this.#capacitanceRe[p]! -= this.#conductanceRe[p]!;
+      this.#capacitanceIm[p]! -= this.#conductanceIm[p]!;
+    }
   }
 
   /** The frequency of the last successful factorization, in Hz (NaN before the first). */
@@ -48,25 +98,49 @@ export class AcWorkspace {
     return this.#frequency;
   }
 
+  /** Fill {@link AcWorkspace.Ar}, {@link AcWorkspace.Ai} and the excitation with the system at `frequency` (Hz). */
+  assembleAt(frequency: number): void {
+    const omega = 2 * Math.PI * frequency;
+    const { Ar, Ai } = this;
+    const gr = this.#conductanceRe;
+    const gi = this.#conductanceIm;
+    const cr = this.#capacitanceRe;
+    const ci = this.#capacitanceIm;
+    for (let p = 0; p < Ar.length; p++) {
+      Ar[p] = gr[p]! + omega * cr[p]!;
+      Ai[p] = gi[p]! + omega * ci[p]!;
+    }
+    this.sourceRe.set(this.#baseSourceRe);
+    this.sourceIm.set(this.#baseSourceIm);
+    const ctx = this.#context;
+    ctx.omega = omega;
+    for (const d of this.#perFrequency) {
+      d.prepare?.(this.op.conditions);
+      d.loadAc(ctx);
+    }
+  }
+
   /**
-   * Stamp every device at `frequency` (Hz) and factor. Throws `singular` naming the unknown that found
-   * no pivot.
+   * Assemble at `frequency` (Hz) and factor. Throws `singular` naming the unknown that found no pivot.
    */
   factorAt(frequency: number): void {
-    const ctx = this.#context;
-    ctx.omega = 2 * Math.PI * frequency;
-    this.Ar.fill(0);
-    this.Ai.fill(0);
-    this.sourceRe.fill(0);
-    this.sourceIm.fill(0);
-    prepareDevices(this.system, this.op.conditions);
-    for (const d of this.system.devices) d.loadAc(ctx);
+    this.assembleAt(frequency);
     const status = this.#solver.factor(this.Ar, this.Ai);
     if (status !== 0) {
       this.#frequency = Number.NaN;
       throw singularAt(this.system, status - 1, `in the small-signal circuit at ${frequency} Hz`);
     }
     this.#frequency = frequency;
+  }
+
+  /** Zero the assembly buffers and stamp `devices` at angular frequency `omega`. */
+  #stampAt(devices: readonly Device[], omega: number): void {
+    this.Ar.fill(0);
+    this.Ai.fill(0);
+    this.sourceRe.fill(0);
+    this.sourceIm.fill(0);
+    this.#context.omega = omega;
+    for (const d of devices) d.loadAc(this.#context);
   }
 
   /**
@@ -85,7 +159,11 @@ export class AcWorkspace {
     this.#checkResidual(re, im, rr, ri);
   }
 
-  /** r = b − A·x on the pattern, against ‖b‖ + ‖A‖·‖x‖ (max norms); refuse a solve that misses. */
+  /**
+   * r = b − A·x on the pattern, against ‖b‖ + ‖A‖·‖x‖ (max norms); refuse a solve that misses. Each
+   * complex modulus is bounded by |re| + |im| (within √2 of it), which is ample against the limit and
+   * far cheaper than Math.hypot on every nonzero.
+   */
   #checkResidual(xr: Float64Array, xi: Float64Array, rr: Float64Array, ri: Float64Array): void {
     const { n, pattern } = this.system;
     const { Ap, Ai: rows } = pattern;
@@ -94,22 +172,22 @@ export class AcWorkspace {
     let bNorm = 0;
     let aNorm = 0;
     let xNorm = 0;
-    for (let i = 0; i < n; i++) bNorm = Math.max(bNorm, Math.hypot(rr[i]!, ri[i]!));
+    for (let i = 0; i < n; i++) bNorm = Math.max(bNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
     for (let j = 0; j < n; j++) {
       const vr = xr[j]!;
       const vi = xi[j]!;
-      xNorm = Math.max(xNorm, Math.hypot(vr, vi));
+      xNorm = Math.max(xNorm, Math.abs(vr) + Math.abs(vi));
       for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
         const i = rows[p]!;
         const ar = Ar[p]!;
         const ai = Az[p]!;
-        aNorm = Math.max(aNorm, Math.hypot(ar, ai));
+        aNorm = Math.max(aNorm, Math.abs(ar) + Math.abs(ai));
         rr[i]! -= ar * vr - ai * vi;
         ri[i]! -= ar * vi + ai * vr;
       }
     }
     let rNorm = 0;
-    for (let i = 0; i < n; i++) rNorm = Math.max(rNorm, Math.hypot(rr[i]!, ri[i]!));
+    for (let i = 0; i < n; i++) rNorm = Math.max(rNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
     const scale = bNorm + aNorm * xNorm;
     if (!(rNorm <= AC_RESIDUAL_LIMIT * scale) && !(scale === 0 && rNorm === 0)) {
       let worst = 0;

@@ -40,6 +40,14 @@ export function probeReader(
           'it has no single small-signal current; read its terminals through voltages',
         );
       }
+      if (harmonic && device.nonlinear) {
+        // At 2f and 3f a nonlinear element's current holds its own nonlinear current besides the
+        // linear response, which acCurrent does not know of.
+        throw unknownElement(
+          probe.element,
+          'the harmonics of a nonlinear device current are not estimated; read a linear element in series with it',
+        );
+      }
       if (harmonic && device.record.kind === 'current-source') {
         return (_xr, _xi, _omega, out) => {
           out[0] = 0;

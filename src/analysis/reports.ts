@@ -51,7 +51,11 @@ export interface BjtReport {
   readonly gm: number;
   /** 1/(∂ib/∂vbe) at constant vce, in Ω. */
   readonly rpi: number;
-  /** 1/(∂ic/∂vce) at constant vbe, in Ω (Infinity without the Early effect in forward-active operation). */
+  /**
+   * 1/(∂ic/∂vce) at constant vbe, in Ω: about (VA + vce)/ic with the Early effect in forward-active
+   * operation; without it only the reverse-biased junction slopes the output, so `ro` is astronomically
+   * large (of order 1e40 Ω or more), though finite.
+   */
   readonly ro: number;
   /** Base-emitter capacitance (depletion plus diffusion), in F. */
   readonly cpi: number;

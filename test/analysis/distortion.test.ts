@@ -310,7 +310,11 @@ describe('distortion arguments', () => {
     ['a scale of 0', { output: 'a', scale: 0 }, 'invalid-value'],
     ['an unknown node', { output: 'nowhere' }, 'unknown-node'],
     ['an unknown element', { output: { element: 'R9' } }, 'unknown-element'],
-    ['an element without a single current', { output: { element: 'D1' } }, 'unknown-element'],
+    [
+      'a nonlinear element, whose harmonic current is not estimated',
+      { output: { element: 'D1' } },
+      'unknown-element',
+    ],
     ['a malformed probe', { output: 42 }, 'invalid-value'],
   ] as const) {
     it(`refuses ${what} with ${code}`, () => {

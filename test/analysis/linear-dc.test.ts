@@ -142,7 +142,12 @@ describe('linear DC operating point', () => {
         const c = new Circuit().resistor('Rterm', 'n0', GROUND, '20k');
         for (let k = 0; k < bits; k++) {
           const on = (code >> k) & 1;
-          c.voltageSource(`Vb${k}`, `b${k}`, GROUND, { dc: on * vref }).resistor(`R2_${k}`, `n${k}`, `b${k}`, '20k');
+          c.voltageSource(`Vb${k}`, `b${k}`, GROUND, { dc: on * vref }).resistor(
+            `R2_${k}`,
+            `n${k}`,
+            `b${k}`,
+            '20k',
+          );
           if (k > 0) c.resistor(`R_${k}`, `n${k - 1}`, `n${k}`, '10k');
         }
         return operatingPoint(c).voltage(`n${bits - 1}`);
@@ -368,7 +373,11 @@ describe('linear DC operating point', () => {
         operatingPoint(
           new Circuit()
             .voltageSource('Vin', 'in', GROUND, { dc: vin })
-            .opAmp('U1', { plus: 'in', minus: 'minus', output: 'out' }, { openLoopGain: a, outputResistance: ro })
+            .opAmp(
+              'U1',
+              { plus: 'in', minus: 'minus', output: 'out' },
+              { openLoopGain: a, outputResistance: ro },
+            )
             .resistor('Rf', 'out', 'minus', rf)
             .resistor('Rg', 'minus', GROUND, rg)
             .resistor('Rl', 'out', GROUND, rl),

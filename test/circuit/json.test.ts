@@ -19,40 +19,46 @@ import {
 
 /** A circuit using every kind of element, with a DC solution (each part is biased by a source). */
 function everyKind(): Circuit {
-  return (
-    new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 5, ac: { magnitude: '10m', phase: 30 } })
-      .resistor('Rb', 'vcc', 'b', '430k')
-      .resistor('Rc', 'vcc', 'c', '2.2k')
-      .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, { polarity: 'npn', forwardBeta: 120, earlyVoltage: 80 })
-      .capacitor('Cout', 'c', 'out', '1uF')
-      .resistor('Rout', 'out', GROUND, '10k')
-      .inductor('L1', 'vcc', 'l', '1m')
-      .resistor('Rl', 'l', GROUND, '1k')
-      .currentSource('I1', GROUND, 'i', { dc: '1m', ac: 0.5 })
-      .resistor('Ri', 'i', GROUND, '1k')
-      .vcvs('E1', ['e', GROUND], ['i', GROUND], 2)
-      .resistor('Re', 'e', GROUND, '1k')
-      .vccs('G1', [GROUND, 'g'], ['i', GROUND], '1m')
-      .resistor('Rg', 'g', GROUND, '1k')
-      .ccvs('H1', ['h', GROUND], 'Vcc', 100)
-      .resistor('Rh', 'h', GROUND, '1k')
-      .cccs('F1', [GROUND, 'f'], 'L1', 2)
-      .resistor('Rf', 'f', GROUND, '1k')
-      .opAmp('U1', { plus: 'i', minus: 'u1', output: 'u1' })
-      .opAmp(
-        'U2',
-        { plus: 'i', minus: 'u2', output: 'u2' },
-        { openLoopGain: 1e4, gainBandwidth: '1M', outputResistance: 50 },
-      )
-      .resistor('Ru2', 'u2', GROUND, '10k')
-      .diode('D1', 'vcc', 'd', { saturationCurrent: '2n', emissionCoefficient: 1.9, breakdownVoltage: 100 })
-      .resistor('Rd', 'd', GROUND, '1k')
-      .mosfet('M1', { drain: 'md', gate: 'i', source: GROUND }, { polarity: 'nmos', thresholdVoltage: 0.5 })
-      .resistor('Rmd', 'vcc', 'md', '10k')
-      .mosfet('M2', { drain: 'pd', gate: GROUND, source: 'vcc', body: 'vcc' }, { polarity: 'pmos', gainFactor: '2m' })
-      .resistor('Rpd', 'pd', GROUND, '10k')
-  );
+  return new Circuit()
+    .voltageSource('Vcc', 'vcc', GROUND, { dc: 5, ac: { magnitude: '10m', phase: 30 } })
+    .resistor('Rb', 'vcc', 'b', '430k')
+    .resistor('Rc', 'vcc', 'c', '2.2k')
+    .bjt(
+      'Q1',
+      { collector: 'c', base: 'b', emitter: GROUND },
+      { polarity: 'npn', forwardBeta: 120, earlyVoltage: 80 },
+    )
+    .capacitor('Cout', 'c', 'out', '1uF')
+    .resistor('Rout', 'out', GROUND, '10k')
+    .inductor('L1', 'vcc', 'l', '1m')
+    .resistor('Rl', 'l', GROUND, '1k')
+    .currentSource('I1', GROUND, 'i', { dc: '1m', ac: 0.5 })
+    .resistor('Ri', 'i', GROUND, '1k')
+    .vcvs('E1', ['e', GROUND], ['i', GROUND], 2)
+    .resistor('Re', 'e', GROUND, '1k')
+    .vccs('G1', [GROUND, 'g'], ['i', GROUND], '1m')
+    .resistor('Rg', 'g', GROUND, '1k')
+    .ccvs('H1', ['h', GROUND], 'Vcc', 100)
+    .resistor('Rh', 'h', GROUND, '1k')
+    .cccs('F1', [GROUND, 'f'], 'L1', 2)
+    .resistor('Rf', 'f', GROUND, '1k')
+    .opAmp('U1', { plus: 'i', minus: 'u1', output: 'u1' })
+    .opAmp(
+      'U2',
+      { plus: 'i', minus: 'u2', output: 'u2' },
+      { openLoopGain: 1e4, gainBandwidth: '1M', outputResistance: 50 },
+    )
+    .resistor('Ru2', 'u2', GROUND, '10k')
+    .diode('D1', 'vcc', 'd', { saturationCurrent: '2n', emissionCoefficient: 1.9, breakdownVoltage: 100 })
+    .resistor('Rd', 'd', GROUND, '1k')
+    .mosfet('M1', { drain: 'md', gate: 'i', source: GROUND }, { polarity: 'nmos', thresholdVoltage: 0.5 })
+    .resistor('Rmd', 'vcc', 'md', '10k')
+    .mosfet(
+      'M2',
+      { drain: 'pd', gate: GROUND, source: 'vcc', body: 'vcc' },
+      { polarity: 'pmos', gainFactor: '2m' },
+    )
+    .resistor('Rpd', 'pd', GROUND, '10k');
 }
 
 /** Every node voltage and every two-terminal or output-branch current of a solution, by name. */
@@ -147,7 +153,9 @@ describe('Circuit JSON documents', () => {
 
     it('hands out a document detached from the circuit', () => {
       // common practice, no source: editing an export does not edit the source
-      const c = new Circuit().voltageSource('V1', 'a', GROUND, { dc: 1, ac: 1 }).resistor('R1', 'a', GROUND, 1);
+      const c = new Circuit()
+        .voltageSource('V1', 'a', GROUND, { dc: 1, ac: 1 })
+        .resistor('R1', 'a', GROUND, 1);
       const doc = c.toJSON() as unknown as { elements: { ac: { magnitude: number } }[] };
       doc.elements[0]!.ac.magnitude = 99;
       expect(c.element('V1')).toMatchObject({ ac: { magnitude: 1 } });

@@ -1,0 +1,46 @@
+import { describe, expect, it } from 'vitest';
+import { ATTENUATOR, attenuationCurve } from '../../examples/voltage-controlled-attenuator.js';
+
+// Vt = k·T/q at 300.15 K with the exact SI 2019 constants (BIPM, SI Brochure, 9th ed., 2019).
+const VT = (1.380649e-23 * 300.15) / 1.602176634e-19;
+const {
+  seriesResistance: RS,
+  controlResistance: RC,
+  saturationCurrent: IS,
+  emissionCoefficient: N,
+} = ATTENUATOR;
+
+/** The diode current from KVL around control, 22 kΩ and the diode (Shockley's law), by bisection. */
+function diodeCurrent(control: number): number {
+  let lo = 0;
+  let hi = control / RC;
+  for (let i = 0; i < 200; i++) {
+    const mid = (lo + hi) / 2;
+    const residual = RC * mid + N * VT * Math.log(mid / IS + 1) - control;
+    if (residual > 0) hi = mid;
+    else lo = mid;
+  }
+  return (lo + hi) / 2;
+}
+
+describe('examples/voltage-controlled-attenuator', () => {
+  const curve = attenuationCurve(20);
+
+  it('biases the diode as KVL and the Shockley law say', () => {
+    for (const s of curve)
+      expect(Math.abs(s.diodeCurrent - diodeCurrent(s.control)) / s.diodeCurrent).toBeLessThan(1e-6);
+  });
+
+  it('attenuates as the divider of 4.7 kΩ and r_d ‖ 22 kΩ, with r_d = n·Vt/(I_D + Is)', () => {
+    // Small-signal diode resistance (Sedra & Smith, Microelectronic Circuits, 7th ed., 2015, §4.3; from memory).
+    for (const s of curve) {
+      const rd = (N * VT) / (diodeCurrent(s.control) + IS);
+      const shunt = (rd * RC) / (rd + RC);
+      expect(s.gainDb).toBeCloseTo(20 * Math.log10(shunt / (RS + shunt)), 3);
+    }
+  });
+
+  it('attenuates more as the control voltage rises', () => {
+    for (let k = 1; k < curve.length; k++) expect(curve[k]!.gainDb).toBeLessThan(curve[k - 1]!.gainDb);
+  });
+});
