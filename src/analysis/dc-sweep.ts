@@ -15,6 +15,7 @@ import { OP_AMP_PARAMETERS } from '../devices/op-amp-model.js';
 import { type ParameterTable, parseParameters } from '../devices/parameters.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
+import { type DcSweepJson, dcSweepToJson } from '../report/result-json.js';
 import {
   conditionsAt,
   type OperatingPoint,
@@ -119,6 +120,11 @@ export class DcSweep {
   /** The device report of a diode or transistor at every point. */
   device(name: string): DeviceReport[] {
     return this.points.map((p) => p.device(name));
+  }
+
+  /** Plain data: the swept values, and every node voltage and element current per point. */
+  toJSON(): DcSweepJson {
+    return dcSweepToJson(this);
   }
 }
 

@@ -20,6 +20,7 @@ import {
   junctionAmplitudeForBound,
   junctionNonlinearity,
 } from '../math/junction-nonlinearity.js';
+import { type LinearityReportJson, linearityToJson } from '../report/result-json.js';
 import type { AcAnalysis } from './ac-analysis.js';
 import { prepareDevices } from './newton.js';
 
@@ -91,6 +92,8 @@ export interface LinearityReport {
   readonly worst: JunctionLinearity | null;
   /** Whether every junction is within budget. */
   readonly withinBudget: boolean;
+  /** Plain data for `JSON.stringify`: arrays for typed arrays, `null` for infinite values. */
+  toJSON(): LinearityReportJson;
 }
 
 /** Check a budget option: a finite number > 0. */
@@ -181,6 +184,9 @@ export function linearity(ac: AcAnalysis, options: LinearityOptions = {}): Linea
     maxInputScaleForwardBiased: smallestScale(junctions.filter((j) => j.forwardBiased)),
     worst,
     withinBudget: junctions.every((j) => j.withinBudget),
+    toJSON() {
+      return linearityToJson(this);
+    },
   };
 }
 

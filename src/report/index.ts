@@ -1,7 +1,18 @@
 export { type AcReportOptions, acTable, formatAcAnalysis, probeLabel } from './ac-table.js';
+export { type DcSweepReportOptions, dcSweepTable, formatDcSweep } from './dc-sweep-table.js';
 export { currentDirection } from './element-currents.js';
 export { type DeviceJson, type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
 export { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
+export {
+  type AcAnalysisJson,
+  acAnalysisToJson,
+  type DcSweepJson,
+  dcSweepToJson,
+  type JunctionLinearityJson,
+  type LinearityReportJson,
+  linearityToJson,
+  type PhasorsJson,
+} from './result-json.js';
 export {
   bodePlotSvg,
   type PlotAxis,

@@ -1,0 +1,137 @@
+/**
+ * Plain-data forms of the sweep, AC and linearity results, for storage, other languages and snapshot
+ * tests. Typed arrays become arrays; JSON has no Infinity, so infinite values become `null` (as
+ * `JSON.stringify` writes them).
+ */
+import type { AcAnalysis } from '../analysis/ac-analysis.js';
+import type { DcSweep, SweptQuantity } from '../analysis/dc-sweep.js';
+import type { LinearityReport } from '../analysis/linearity.js';
+import { GROUND } from '../circuit/elements.js';
+import type { JunctionProbe } from '../devices/device.js';
+import { currentDirection } from './element-currents.js';
+
+/** A number as JSON: itself when finite, otherwise `null`. */
+function finiteOrNull(value: number): number | null {
+  return Number.isFinite(value) ? value : null;
+}
+
+/** A DC sweep as plain JSON: the swept values and, per node and element, one value per point. */
+export interface DcSweepJson {
+  /** What was swept. */
+  readonly swept: SweptQuantity;
+  /** The swept values, in the order of the sweep. */
+  readonly values: readonly number[];
+  /** Every node's voltage to ground at every point, in V. */
+  readonly nodes: Readonly<Record<string, readonly number[]>>;
+  /** Every element current at every point, in A, by the contract's sign conventions. */
+  readonly currents: Readonly<Record<string, readonly number[]>>;
+}
+
+/** The plain-data form of a DC sweep; `JSON.stringify(sweep)` writes it through `DcSweep.toJSON`. */
+export function dcSweepToJson(sweep: DcSweep): DcSweepJson {
+  const first = sweep.points[0]!;
+  const nodes: Record<string, number[]> = {};
+  for (const node of first.nodes) if (node !== GROUND) nodes[node] = Array.from(sweep.voltage(node));
+  const currents: Record<string, number[]> = {};
+  for (const record of first.system.records) {
+    if (currentDirection(record) !== undefined)
+      currents[record.name] = Array.from(sweep.current(record.name));
+  }
+  return { swept: sweep.swept, values: Array.from(sweep.values), nodes, currents };
+}
+
+/** Real and imaginary parts of a phasor at every frequency. */
+export interface PhasorsJson {
+  readonly re: readonly number[];
+  readonly im: readonly number[];
+}
+
+/** An AC analysis as plain JSON: peak phasors of every node voltage and element current. */
+export interface AcAnalysisJson {
+  /** In Hz, in the order of the analysis. */
+  readonly frequencies: readonly number[];
+  /** Every node's voltage phasor to ground, in V. */
+  readonly nodes: Readonly<Record<string, PhasorsJson>>;
+  /** The current phasor of every element that has one, in A. */
+  readonly currents: Readonly<Record<string, PhasorsJson>>;
+}
+
+/** The plain-data form of an AC analysis; `JSON.stringify(ac)` writes it through `AcAnalysis.toJSON`. */
+export function acAnalysisToJson(ac: AcAnalysis): AcAnalysisJson {
+  const split = (values: readonly { re: number; im: number }[]): PhasorsJson => ({
+    re: values.map((v) => v.re),
+    im: values.map((v) => v.im),
+  });
+  const op = ac.operatingPoint;
+  const nodes: Record<string, PhasorsJson> = {};
+  for (const node of op.nodes) if (node !== GROUND) nodes[node] = split(ac.voltage(node));
+  const currents: Record<string, PhasorsJson> = {};
+  for (const device of op.system.devices) {
+    if (device.acCurrent !== undefined) currents[device.name] = split(ac.current(device.name));
+  }
+  return { frequencies: Array.from(ac.frequencies), nodes, currents };
+}
+
+/** One junction of a linearity report as JSON. */
+export interface JunctionLinearityJson {
+  readonly device: string;
+  readonly kind: string;
+  readonly junction: JunctionProbe['junction'];
+  readonly frequency: number;
+  readonly amplitude: number;
+  readonly bias: number;
+  readonly forwardBiased: boolean;
+  readonly scale: number;
+  readonly normalized: number;
+  readonly errorBound: number | null;
+  readonly secondHarmonic: number;
+  readonly thirdHarmonic: number;
+  readonly meanShift: number | null;
+  readonly withinBudget: boolean;
+  /** `null` where no signal reaches the junction (an unlimited scale). */
+  readonly maxInputScale: number | null;
+  readonly amplitudes: readonly number[];
+}
+
+/** A linearity report as plain JSON (see `LinearityReport` for each field). */
+export interface LinearityReportJson {
+  readonly budget: number;
+  readonly frequencies: readonly number[];
+  readonly junctions: readonly JunctionLinearityJson[];
+  /** `null` where no junction carries signal. */
+  readonly maxInputScale: number | null;
+  readonly maxInputScaleForwardBiased: number | null;
+  /** The worst junction's device and junction, or null. */
+  readonly worst: { readonly device: string; readonly junction: JunctionProbe['junction'] } | null;
+  readonly withinBudget: boolean;
+}
+
+/** The plain-data form of a linearity report; `JSON.stringify(report)` writes it. */
+export function linearityToJson(report: LinearityReport): LinearityReportJson {
+  return {
+    budget: report.budget,
+    frequencies: Array.from(report.frequencies),
+    junctions: report.junctions.map((j) => ({
+      device: j.device,
+      kind: j.kind,
+      junction: j.junction,
+      frequency: j.frequency,
+      amplitude: j.amplitude,
+      bias: j.bias,
+      forwardBiased: j.forwardBiased,
+      scale: j.scale,
+      normalized: j.normalized,
+      errorBound: finiteOrNull(j.errorBound),
+      secondHarmonic: j.secondHarmonic,
+      thirdHarmonic: j.thirdHarmonic,
+      meanShift: finiteOrNull(j.meanShift),
+      withinBudget: j.withinBudget,
+      maxInputScale: finiteOrNull(j.maxInputScale),
+      amplitudes: Array.from(j.amplitudes),
+    })),
+    maxInputScale: finiteOrNull(report.maxInputScale),
+    maxInputScaleForwardBiased: finiteOrNull(report.maxInputScaleForwardBiased),
+    worst: report.worst === null ? null : { device: report.worst.device, junction: report.worst.junction },
+    withinBudget: report.withinBudget,
+  };
+}
