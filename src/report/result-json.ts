@@ -42,7 +42,9 @@ export function dcSweepToJson(sweep: DcSweep): DcSweepJson {
 
 /** Real and imaginary parts of a phasor at every frequency. */
 export interface PhasorsJson {
+  /** Real parts, one per frequency. */
   readonly re: readonly number[];
+  /** Imaginary parts, one per frequency. */
   readonly im: readonly number[];
 }
 
@@ -74,35 +76,60 @@ export function acAnalysisToJson(ac: AcAnalysis): AcAnalysisJson {
 
 /** One junction of a linearity report as JSON. */
 export interface JunctionLinearityJson {
+  /** The device's element name. */
   readonly device: string;
+  /** The device's kind. */
   readonly kind: string;
+  /** Which junction (or channel). */
   readonly junction: JunctionProbe['junction'];
+  /** The worst frequency, in Hz. */
   readonly frequency: number;
+  /** The peak junction voltage there, in V. */
   readonly amplitude: number;
+  /** The junction's DC voltage in its forward sense, in V. */
   readonly bias: number;
+  /** Whether the junction is forward-biased. */
   readonly forwardBiased: boolean;
+  /** n·Vt or the channel overdrive, in V. */
   readonly scale: number;
+  /** x = amplitude/scale. */
   readonly normalized: number;
+  /** The Lagrange bound of the Taylor remainder relative to the linear term. */
   readonly errorBound: number | null;
+  /** 2nd-harmonic over fundamental of the junction current. */
   readonly secondHarmonic: number;
+  /** 3rd-harmonic over fundamental of the junction current. */
   readonly thirdHarmonic: number;
+  /** Relative rise of the mean junction current. */
   readonly meanShift: number | null;
+  /** Whether the error bound is within the budget. */
   readonly withinBudget: boolean;
   /** `null` where no signal reaches the junction (an unlimited scale). */
   readonly maxInputScale: number | null;
+  /** The amplitude at every analysed frequency, in V. */
   readonly amplitudes: readonly number[];
 }
 
 /** A linearity report as plain JSON (see `LinearityReport` for each field). */
 export interface LinearityReportJson {
+  /** The budget the junctions were judged against. */
   readonly budget: number;
+  /** The analysed frequencies, in Hz. */
   readonly frequencies: readonly number[];
+  /** One entry per junction, in circuit order. */
   readonly junctions: readonly JunctionLinearityJson[];
   /** `null` where no junction carries signal. */
   readonly maxInputScale: number | null;
+  /** The same over forward-biased junctions only; `null` when unlimited. */
   readonly maxInputScaleForwardBiased: number | null;
   /** The worst junction's device and junction, or null. */
-  readonly worst: { readonly device: string; readonly junction: JunctionProbe['junction'] } | null;
+  readonly worst: {
+    /** The device's element name. */
+    readonly device: string;
+    /** Which junction. */
+    readonly junction: JunctionProbe['junction'];
+  } | null;
+  /** Whether every junction is within budget. */
   readonly withinBudget: boolean;
 }
 
