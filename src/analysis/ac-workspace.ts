@@ -39,7 +39,9 @@ export const AC_RESIDUAL_LIMIT = 1e-9;
 
 /** The small-signal system of one operating point, reused across frequencies. */
 export class AcWorkspace {
+  /** The compiled circuit of {@link AcWorkspace.op}. */
   readonly system: CompiledSystem;
+  /** The operating point every device is linearized at. */
   readonly op: OperatingPoint;
   /** Matrix values (real, imaginary) at the last assembly, length nnz+1 (the last is the ground trash slot). */
   readonly Ar: Float64Array;
@@ -62,6 +64,7 @@ export class AcWorkspace {
   readonly #residualIm: Float64Array;
   #frequency = Number.NaN;
 
+  /** Evaluate every frequency-affine device once at `op` (G and C); nothing is factored yet. */
   constructor(op: OperatingPoint) {
     this.op = op;
     this.system = op.system;
