@@ -7,6 +7,7 @@
 import Complex from 'complex.js';
 import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
+import { type AcAnalysisJson, acAnalysisToJson } from '../report/result-json.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { checkAscending, crossings, decibels, unwrappedPhase } from './frequency-response.js';
@@ -247,6 +248,11 @@ export class AcAnalysis {
       }
     }
     return scale;
+  }
+
+  /** Plain data: the frequencies and the phasors of every node voltage and element current. */
+  toJSON(): AcAnalysisJson {
+    return acAnalysisToJson(this);
   }
 
   #ratio(output: Probe, input?: Probe): Complex[] {
