@@ -150,7 +150,9 @@ export function prepareSolver(circuit: Circuit, options?: OperatingPointOptions)
 /** Compile element records (a circuit's, or a variant of them) for repeated solves with resolved options. */
 export function solverFor(records: readonly ElementRecord[], options: ResolvedOptions): Solver {
   const system = compileCircuit(records);
-  for (const node of Object.keys(options.initialGuess)) nodeAt(system, node);
+  for (const node of Object.keys(options.initialGuess)) {
+    if (!system.nodeIndex.has(node)) throw unknownNode(node, ['options', 'initialGuess', node]);
+  }
   return { system, workspace: new NewtonWorkspace(system), options };
 }
 

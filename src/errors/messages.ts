@@ -46,8 +46,11 @@ export function invalidCircuit(path: readonly (string | number)[], problem: stri
 }
 
 /** An analysis names a node the circuit lacks. */
-export function unknownNode(node: string): QuiescentError {
-  return new QuiescentError({ code: 'unknown-node', node }, `the circuit has no node named '${node}'`);
+export function unknownNode(node: string, path: readonly (string | number)[] = []): QuiescentError {
+  return new QuiescentError(
+    { code: 'unknown-node', node },
+    `${at(path)}the circuit has no node named '${node}'`,
+  );
 }
 
 /** An analysis or controlled source names an element the circuit lacks, or one without the needed quantity. */

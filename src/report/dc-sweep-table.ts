@@ -24,7 +24,6 @@ const PARAMETER_UNITS: Readonly<Record<string, Unit>> = {
   resistance: 'Ω',
   capacitance: 'F',
   inductance: 'H',
-  dc: 'V',
   transconductance: 'S',
   transresistance: 'Ω',
 };

@@ -53,7 +53,7 @@ describe('the bipolar transistor in forward-active operation', () => {
     expect(q.ro).toBeGreaterThan(0);
   });
 
-  it('has an infinite r_o without the Early effect', () => {
+  it('has an r_o beyond 1e15 Ω without the Early effect (only the reverse junction slopes the output)', () => {
     // API contract: without earlyVoltage the factor (1 + vce/VA) is 1.
     expect(biased(0.65, 5, { polarity: 'npn' }).ro).toBeGreaterThan(1e15);
   });
