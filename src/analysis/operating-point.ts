@@ -5,7 +5,7 @@
 import type { Circuit } from '../circuit/circuit.js';
 import { type ElementRecord, GROUND } from '../circuit/elements.js';
 import type { Conditions } from '../devices/device.js';
-import { thermalVoltage } from '../devices/junction.js';
+import { EXP_LIMIT, thermalVoltage } from '../devices/junction.js';
 import { noConvergence, unknownElement, unknownNode } from '../errors/messages.js';
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
 import { type CompiledSystem, compileCircuit } from '../mna/system.js';
@@ -14,6 +14,7 @@ import {
   measureResidual,
   type NewtonOutcome,
   NewtonWorkspace,
+  prepareDevices,
   prepareWorkspace,
   residualExcess,
   runNewton,
@@ -111,6 +112,32 @@ export class OperatingPoint {
   /** The report of a MOSFET (throws `unknown-element` if `name` is not one). */
   mosfet(name: string): MosfetReport {
     return this.#typed(name, 'mosfet') as MosfetReport;
+  }
+
+  /**
+   * Cautions about the solution, empty for a circuit solved within its models. A junction forward-biased
+   * beyond v/(n·Vt) = 80 (about 2 V for n = 1) lies where the exponential is continued linearly to keep
+   * the equations finite: its current follows that continuation, not the Shockley law, which usually
+   * means a source forced straight across a junction with nothing to limit the current.
+   */
+  get warnings(): readonly string[] {
+    const out: string[] = [];
+    prepareDevices(this.system, this.conditions);
+    for (const device of this.system.devices) {
+      for (const probe of device.junctions?.(this.x) ?? []) {
+        if (probe.junction === 'channel') continue;
+        const record = device.record;
+        const sign = record.kind === 'bjt' && record.polarity === 'pnp' ? -1 : 1;
+        const exponent = (sign * (this.x[probe.plus]! - this.x[probe.minus]!)) / probe.scale;
+        if (exponent > EXP_LIMIT) {
+          out.push(
+            `${probe.junction} junction of '${device.name}' at ${exponent.toFixed(0)}·n·Vt, beyond the ` +
+              `exponential's limit of ${EXP_LIMIT}·n·Vt: its current follows the linear continuation, not the Shockley law`,
+          );
+        }
+      }
+    }
+    return out;
   }
 
   /**

@@ -31,8 +31,11 @@ export function saturationCurrentAt(
   return isRef * ratio ** (exponent / emission) * Math.exp((bandgap / (emission * vt)) * (ratio - 1));
 }
 
-/** Above this argument the exponential continues as its tangent, so that no Newton step overflows. */
-const EXP_LIMIT = 80;
+/**
+ * Above this argument the exponential continues as its tangent, so that no Newton step overflows. A
+ * solution beyond it lies outside the Shockley law; the operating point warns of it.
+ */
+export const EXP_LIMIT = 80;
 const EXP_AT_LIMIT = Math.exp(EXP_LIMIT);
 
 /** exp(a), continued linearly above a = 80 (value and slope match there): finite on the whole real line. */

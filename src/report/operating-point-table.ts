@@ -124,7 +124,8 @@ export function formatOperatingPoint(op: OperatingPoint, options: ReportOptions 
   const heading =
     `Operating point at ${formatValue(op.temperature, 'K')} (Vt = ${formatValue(op.thermalVoltage, 'V', { digits })}), ` +
     `${op.strategy}, ${op.iterations} iteration${op.iterations === 1 ? '' : 's'}`;
-  return [heading, ...operatingPointTables(op, options).map(renderTable)].join('\n\n');
+  const warnings = op.warnings.map((w) => `Warning: ${w}`);
+  return [heading, ...warnings, ...operatingPointTables(op, options).map(renderTable)].join('\n\n');
 }
 
 function deviceTable<R extends object>(
