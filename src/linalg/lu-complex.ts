@@ -2,12 +2,14 @@
  * The complex counterpart of lu.ts and refactor.ts: fresh factorization and refactorization of a
  * complex matrix with split real and imaginary arrays, on the same symbolic analysis and the same
  * reach (Gilbert & Peierls 1988) as the real kernel. Magnitudes for pivoting are |re| + |im|, which
- * is within a factor √2 of the modulus and needs no square root (as KLU does for complex).
+ * is within a factor √2 of the modulus and needs no square root (as KLU does for complex), compared
+ * after row scaling (ws.rowScale from computeRowScaleComplex) as in the real kernel.
  *
  * Key to the names: as lu.ts, with a trailing `z` for imaginary parts (Az, Lz, Uz, Udz, z).
  */
 import type { ComplexNumericLu, PivotTolerances, SymbolicLu } from './lu-types.js';
 import { growL, growU } from './lu-types.js';
+import { pruneColumns } from './prune.js';
 import { reach } from './reach.js';
 import type { CscPattern, FactorStatus } from './types.js';
 import type { LuWorkspace } from './workspace.js';
@@ -32,6 +34,7 @@ export function luFactorComplex(
   const z = ws.z;
   const xi = ws.stack;
   const mark = ws.mark;
+  const rowScale = ws.rowScale;
   const tau = tol.pivotTolerance;
   const singular = tol.singularTolerance;
   let lnz = 0;
@@ -41,6 +44,7 @@ export function luFactorComplex(
   for (let k = 0; k < n; k++) {
     Lp[k] = lnz;
     Up[k] = unz;
+    ws.pruned[k] = 0;
     growL(N, lnz + n - k);
     growU(N, unz + k + 1);
     const { Li, Lx, Lz, Ui, Ux, Uz } = N;
@@ -48,7 +52,8 @@ export function luFactorComplex(
     const top = reach(n, Lp, Li, pinv, Ap, Ai, col, ws);
     const gen = ws.generation;
     let colMax = 0;
-    for (let p = Ap[col]!; p < Ap[col + 1]!; p++) {
+    const aEnd = Ap[col + 1]!;
+    for (let p = Ap[col]!; p < aEnd; p++) {
       const i = Ai[p]!;
       const vr = Ax[p]!;
       const vi = Az[p]!;
@@ -64,16 +69,18 @@ export function luFactorComplex(
       const xr = x[j]!;
       const xz = z[j]!;
       if (xr === 0 && xz === 0) continue;
-      for (let p = Lp[J]!; p < Lp[J + 1]!; p++) {
+      const end = Lp[J + 1]!; // hoisted: V8 cannot prove the stores below leave Lp alone
+      for (let p = Lp[J]!; p < end; p++) {
         const i = Li[p]!;
         const lr = Lx[p]!;
         const lz = Lz[p]!;
-        x[i]! -= lr * xr - lz * xz;
-        z[i]! -= lr * xz + lz * xr;
+        x[i] = x[i]! - (lr * xr - lz * xz);
+        z[i] = z[i]! - (lr * xz + lz * xr);
       }
     }
     let ipiv = -1;
-    let best = -1;
+    let best = -1; // largest candidate, row-scaled
+    let bestAbs = 0; // largest candidate, unscaled
     let uMax = 0;
     for (let px = top; px < n; px++) {
       const i = xi[px]!;
@@ -81,10 +88,12 @@ export function luFactorComplex(
       const vi = z[i]!;
       const a = Math.abs(vr) + Math.abs(vi);
       if (pinv[i]! < 0) {
-        if (a > best) {
-          best = a;
+        const s = a * rowScale[i]!;
+        if (s > best) {
+          best = s;
           ipiv = i;
         }
+        if (a > bestAbs) bestAbs = a;
       } else {
         Ui[unz] = pinv[i]!;
         Ux[unz] = vr;
@@ -98,11 +107,11 @@ export function luFactorComplex(
       pref !== ipiv &&
       mark[pref] === gen &&
       pinv[pref]! < 0 &&
-      Math.abs(x[pref]!) + Math.abs(z[pref]!) >= tau * best
+      (Math.abs(x[pref]!) + Math.abs(z[pref]!)) * rowScale[pref]! >= tau * best
     ) {
       ipiv = pref;
     }
-    if (ipiv < 0 || !(best > singular * Math.max(colMax, uMax))) {
+    if (ipiv < 0 || !(bestAbs > singular * Math.max(colMax, uMax))) {
       for (let px = top; px < n; px++) {
         x[xi[px]!] = 0;
         z[xi[px]!] = 0;
@@ -130,6 +139,8 @@ export function luFactorComplex(
       x[i] = 0;
       z[i] = 0;
     }
+    ws.lend[k] = lnz;
+    pruneColumns(N, ipiv, Up[k]!, unz, ws, N.Lz);
   }
   Lp[n] = lnz;
   Up[n] = unz;
@@ -153,15 +164,17 @@ export function luRefactorComplex(
 ): number {
   const { n, Ap, Ai } = A;
   const q = S.q;
-  const { pinv, Lp, Li, Lx, Lz, Up, Ui, Ux, Uz, Ud, Udz } = N;
+  const { pinv, prow, Lp, Li, Lx, Lz, Up, Ui, Ux, Uz, Ud, Udz } = N;
   const x = ws.x;
   const z = ws.z;
+  const rowScale = ws.rowScale;
   const tau = tol.pivotTolerance;
   const singular = tol.singularTolerance;
   for (let k = 0; k < n; k++) {
     const col = q[k]!;
     let colMax = 0;
-    for (let p = Ap[col]!; p < Ap[col + 1]!; p++) {
+    const aEnd = Ap[col + 1]!;
+    for (let p = Ap[col]!; p < aEnd; p++) {
       const i = pinv[Ai[p]!]!;
       const vr = Ax[p]!;
       const vi = Az[p]!;
@@ -171,7 +184,8 @@ export function luRefactorComplex(
       if (a > colMax) colMax = a;
     }
     let uMax = 0;
-    for (let p = Up[k]!; p < Up[k + 1]!; p++) {
+    const uEnd = Up[k + 1]!;
+    for (let p = Up[k]!; p < uEnd; p++) {
       const j = Ui[p]!;
       const xr = x[j]!;
       const xz = z[j]!;
@@ -182,12 +196,27 @@ export function luRefactorComplex(
       if (xr === 0 && xz === 0) continue;
       const a = Math.abs(xr) + Math.abs(xz);
       if (a > uMax) uMax = a;
-      for (let r = Lp[j]!; r < Lp[j + 1]!; r++) {
+      // x −= L(:, j)·xj, unrolled by two (the real kernel's unrolling, halved for complex).
+      const end = Lp[j + 1]!;
+      let r = Lp[j]!;
+      for (; r + 1 < end; r += 2) {
+        const i0 = Li[r]!;
+        const i1 = Li[r + 1]!;
+        const lr0 = Lx[r]!;
+        const lz0 = Lz[r]!;
+        const lr1 = Lx[r + 1]!;
+        const lz1 = Lz[r + 1]!;
+        x[i0] = x[i0]! - (lr0 * xr - lz0 * xz);
+        z[i0] = z[i0]! - (lr0 * xz + lz0 * xr);
+        x[i1] = x[i1]! - (lr1 * xr - lz1 * xz);
+        z[i1] = z[i1]! - (lr1 * xz + lz1 * xr);
+      }
+      if (r < end) {
         const i = Li[r]!;
         const lr = Lx[r]!;
         const lz = Lz[r]!;
-        x[i]! -= lr * xr - lz * xz;
-        z[i]! -= lr * xz + lz * xr;
+        x[i] = x[i]! - (lr * xr - lz * xz);
+        z[i] = z[i]! - (lr * xz + lz * xr);
       }
     }
     const pr = x[k]!;
@@ -196,25 +225,19 @@ export function luRefactorComplex(
     z[k] = 0;
     const p1 = Lp[k]!;
     const p2 = Lp[k + 1]!;
-    let lMax = 0;
-    for (let p = p1; p < p2; p++) {
-      const i = Li[p]!;
-      const a = Math.abs(x[i]!) + Math.abs(z[i]!);
-      if (a > lMax) lMax = a;
-    }
     const a = Math.abs(pr) + Math.abs(pz);
-    if (!(a >= tau * lMax) || !(a > singular * Math.max(colMax, uMax))) {
+    if (!(a > singular * Math.max(colMax, uMax))) {
       for (let p = p1; p < p2; p++) {
         x[Li[p]!] = 0;
         z[Li[p]!] = 0;
       }
       return -1;
     }
+    // L(:, k) = x/pivot and the largest row-scaled candidate in one pass, as in refactor.ts.
     const d = pr * pr + pz * pz;
     const invr = pr / d;
     const invz = -pz / d;
-    Ud[k] = pr;
-    Udz[k] = pz;
+    let lMax = 0;
     for (let p = p1; p < p2; p++) {
       const i = Li[p]!;
       const vr = x[i]!;
@@ -223,7 +246,12 @@ export function luRefactorComplex(
       Lz[p] = vr * invz + vi * invr;
       x[i] = 0;
       z[i] = 0;
+      const s = (Math.abs(vr) + Math.abs(vi)) * rowScale[prow[i]!]!;
+      if (s > lMax) lMax = s;
     }
+    if (!(a * rowScale[prow[k]!]! >= tau * lMax)) return -1;
+    Ud[k] = pr;
+    Udz[k] = pz;
   }
   return 0;
 }

@@ -1,7 +1,10 @@
 /**
  * Fresh sparse LU factorization P·A·Q = L·U, left-looking, one sparse triangular solve per column
  * (Gilbert & Peierls, SIAM J. Sci. Stat. Comput. 9, 1988; the shape of CSparse's cs_lu), with
- * threshold partial pivoting that prefers the row the ordering matched to the column.
+ * threshold partial pivoting that prefers the row the ordering matched to the column (Duff,
+ * Erisman & Reid, "Direct Methods for Sparse Matrices", 1986, §5.4; the diagonal preference of
+ * KLU, Davis & Palamadai Natarajan, ACM TOMS 37, 2010), so that the fill-reducing order survives
+ * matrices whose transconductance entries exceed their diagonals.
  *
  * Key to the names: `n`, `Ap`, `Ai`, `Ax` the matrix A in compressed-column form (only the first
  * Ap[n] values of Ax are read); `S` the symbolic analysis (q, prefRow); `N` the factorization
@@ -10,6 +13,7 @@
  */
 
 import { growL, growU, type NumericLu, type PivotTolerances, type SymbolicLu } from './lu-types.js';
+import { pruneColumns } from './prune.js';
 import { reach } from './reach.js';
 import type { CscPattern, FactorStatus } from './types.js';
 import type { LuWorkspace } from './workspace.js';
@@ -53,6 +57,7 @@ export function luFactor(
   for (let k = 0; k < n; k++) {
     Lp[k] = lnz;
     Up[k] = unz;
+    ws.pruned[k] = 0;
     growL(N, lnz + n - k);
     growU(N, unz + k + 1);
     const Li = N.Li;
@@ -64,7 +69,8 @@ export function luFactor(
     const top = reach(n, Lp, Li, pinv, Ap, Ai, col, ws);
     const gen = ws.generation;
     let colMax = 0;
-    for (let p = Ap[col]!; p < Ap[col + 1]!; p++) {
+    const aEnd = Ap[col + 1]!;
+    for (let p = Ap[col]!; p < aEnd; p++) {
       const v = Ax[p]!;
       x[Ai[p]!]! += v;
       const a = Math.abs(v);
@@ -76,7 +82,20 @@ export function luFactor(
       if (J < 0) continue; // row j has no pivot yet: x[j] is final
       const xj = x[j]!;
       if (xj === 0) continue;
-      for (let p = Lp[J]!; p < Lp[J + 1]!; p++) x[Li[p]!]! -= Lx[p]! * xj;
+      // x −= L(:, J)·xj, unrolled by four as in refactor.ts.
+      const end = Lp[J + 1]!;
+      let p = Lp[J]!;
+      for (; p + 3 < end; p += 4) {
+        const i0 = Li[p]!;
+        const i1 = Li[p + 1]!;
+        const i2 = Li[p + 2]!;
+        const i3 = Li[p + 3]!;
+        x[i0] = x[i0]! - Lx[p]! * xj;
+        x[i1] = x[i1]! - Lx[p + 1]! * xj;
+        x[i2] = x[i2]! - Lx[p + 2]! * xj;
+        x[i3] = x[i3]! - Lx[p + 3]! * xj;
+      }
+      for (; p < end; p++) x[Li[p]!]! -= Lx[p]! * xj;
     }
     // U(:, k) from the pivotal rows, in reach (topological) order; the largest candidate
     let ipiv = -1;
@@ -115,6 +134,7 @@ export function luFactor(
       if (skipped === null) return col + 1;
       skipped[nskip++] = col; // no pivot row for this step: L(:, k) stays empty
       Ud[k] = 0;
+      ws.lend[k] = lnz;
       continue;
     }
     const pivot = x[ipiv]!;
@@ -129,6 +149,8 @@ export function luFactor(
       }
       x[i] = 0; // x is all zero between columns
     }
+    ws.lend[k] = lnz;
+    pruneColumns(N, ipiv, Up[k]!, unz, ws, null);
   }
   Lp[n] = lnz;
   Up[n] = unz;

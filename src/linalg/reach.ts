@@ -6,7 +6,8 @@
  * Key to the names: `Lp`/`Li` the columns of L found so far, holding ORIGINAL row indices;
  * `pinv[i]` the pivot step of row i, or −1 while row i has no pivot (it is then a leaf);
  * `Ap`/`Ai` the matrix whose column `col` is the right-hand side; `xi` output and stack (length n);
- * `pstack` saved edge positions (stack[n + head]); `mark`/`gen` visit marks.
+ * `pstack` saved edge positions (stack[n + head]); `mark`/`gen` visit marks; ws.lend[j] the end of
+ * the part of column j of L that must be scanned (symmetric pruning, prune.ts).
  */
 import { type LuWorkspace, nextGeneration } from './workspace.js';
 
@@ -28,6 +29,7 @@ export function reach(
   const gen = nextGeneration(ws);
   const xi = ws.stack;
   const mark = ws.mark;
+  const lend = ws.lend;
   let top = n;
   for (let p = Ap[col]!; p < Ap[col + 1]!; p++) {
     const start = Ai[p]!;
@@ -43,7 +45,7 @@ export function reach(
         xi[n + head] = jnew < 0 ? 0 : Lp[jnew]!;
       }
       let done = true;
-      const p2 = jnew < 0 ? 0 : Lp[jnew + 1]!;
+      const p2 = jnew < 0 ? 0 : lend[jnew]!; // the pruned extent of L(:, jnew) (prune.ts)
       for (let q = xi[n + head]!; q < p2; q++) {
         const i = Li[q]!;
         if (mark[i] === gen) continue;

@@ -13,7 +13,7 @@ import { analyzePattern } from './ordering.js';
 import { type LuStatistics, type SparseSolverOptions, tolerancesOf } from './solver.js';
 import { luSolveComplex, luSolveTransposeComplex } from './triangular-complex.js';
 import type { ComplexLinearSolver, CscPattern, FactorStatus } from './types.js';
-import { createLuWorkspace } from './workspace.js';
+import { computeRowScaleComplex, createLuWorkspace } from './workspace.js';
 
 /** A sparse complex solver: the contract plus the transpose solve and statistics. */
 export interface SparseComplexSolver extends ComplexLinearSolver {
@@ -53,6 +53,7 @@ export function createSparseComplexSolver(
         for (let p = 0; p < nnz; p++) magnitude[p] = Math.abs(Ax[p]!) + Math.abs(Az[p]!);
         S = analyzePattern(pattern, magnitude, ordering, tol.pivotTolerance);
       }
+      computeRowScaleComplex(pattern.Ap, pattern.Ai, Ax, Az, ws);
       if (valid) {
         if (luRefactorComplex(pattern, Ax, Az, S, N, ws, tol) === 0) {
           refactorizations++;

@@ -26,7 +26,8 @@ export function luSolveComplex(
     const xr = yr[j]!;
     const xz = yi[j]!;
     if (xr === 0 && xz === 0) continue;
-    for (let p = Lp[j]!; p < Lp[j + 1]!; p++) {
+    const end = Lp[j + 1]!; // hoisted: V8 cannot prove the stores leave it alone
+    for (let p = Lp[j]!; p < end; p++) {
       const i = Li[p]!;
       yr[i]! -= Lx[p]! * xr - Lz[p]! * xz;
       yi[i]! -= Lx[p]! * xz + Lz[p]! * xr;
@@ -43,7 +44,8 @@ export function luSolveComplex(
     yr[j] = xr;
     yi[j] = xz;
     if (xr === 0 && xz === 0) continue;
-    for (let p = Up[j]!; p < Up[j + 1]!; p++) {
+    const end = Up[j + 1]!; // hoisted: V8 cannot prove the stores leave it alone
+    for (let p = Up[j]!; p < end; p++) {
       const i = Ui[p]!;
       yr[i]! -= Ux[p]! * xr - Uz[p]! * xz;
       yi[i]! -= Ux[p]! * xz + Uz[p]! * xr;
@@ -72,7 +74,8 @@ export function luSolveTransposeComplex(
   for (let j = 0; j < n; j++) {
     let sr = yr[j]!;
     let sz = yi[j]!;
-    for (let p = Up[j]!; p < Up[j + 1]!; p++) {
+    const end = Up[j + 1]!; // hoisted: V8 cannot prove the stores leave it alone
+    for (let p = Up[j]!; p < end; p++) {
       const i = Ui[p]!;
       sr -= Ux[p]! * yr[i]! - Uz[p]! * yi[i]!;
       sz -= Ux[p]! * yi[i]! + Uz[p]! * yr[i]!;
@@ -86,7 +89,8 @@ export function luSolveTransposeComplex(
   for (let j = n - 1; j >= 0; j--) {
     let sr = yr[j]!;
     let sz = yi[j]!;
-    for (let p = Lp[j]!; p < Lp[j + 1]!; p++) {
+    const end = Lp[j + 1]!; // hoisted: V8 cannot prove the stores leave it alone
+    for (let p = Lp[j]!; p < end; p++) {
       const i = Li[p]!;
       sr -= Lx[p]! * yr[i]! - Lz[p]! * yi[i]!;
       sz -= Lx[p]! * yi[i]! + Lz[p]! * yr[i]!;

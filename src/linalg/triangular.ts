@@ -9,13 +9,38 @@
  */
 import type { NumericLu } from './lu-types.js';
 
+/**
+ * y[idx[p]] −= val[p]·a for p in [start, end), unrolled by four (about twice as fast under V8 as
+ * the plain loop; the indices within one column are distinct, so the four stores never collide).
+ */
+function scatterSubtract(
+  y: Float64Array,
+  idx: Int32Array,
+  val: Float64Array,
+  start: number,
+  end: number,
+  a: number,
+): void {
+  let p = start;
+  for (; p + 3 < end; p += 4) {
+    const i0 = idx[p]!;
+    const i1 = idx[p + 1]!;
+    const i2 = idx[p + 2]!;
+    const i3 = idx[p + 3]!;
+    y[i0] = y[i0]! - val[p]! * a;
+    y[i1] = y[i1]! - val[p + 1]! * a;
+    y[i2] = y[i2]! - val[p + 2]! * a;
+    y[i3] = y[i3]! - val[p + 3]! * a;
+  }
+  for (; p < end; p++) y[idx[p]!] = y[idx[p]!]! - val[p]! * a;
+}
+
 /** y is overwritten with L⁻¹y (L unit lower triangular, by columns). */
 export function lowerSolve(N: NumericLu, y: Float64Array): void {
   const { n, Lp, Li, Lx } = N;
   for (let j = 0; j < n; j++) {
     const yj = y[j]!;
-    if (yj === 0) continue;
-    for (let p = Lp[j]!; p < Lp[j + 1]!; p++) y[Li[p]!]! -= Lx[p]! * yj;
+    if (yj !== 0) scatterSubtract(y, Li, Lx, Lp[j]!, Lp[j + 1]!, yj);
   }
 }
 
@@ -25,8 +50,7 @@ export function upperSolve(N: NumericLu, y: Float64Array): void {
   for (let j = n - 1; j >= 0; j--) {
     const yj = y[j]! / Ud[j]!;
     y[j] = yj;
-    if (yj === 0) continue;
-    for (let p = Up[j]!; p < Up[j + 1]!; p++) y[Ui[p]!]! -= Ux[p]! * yj;
+    if (yj !== 0) scatterSubtract(y, Ui, Ux, Up[j]!, Up[j + 1]!, yj);
   }
 }
 
@@ -35,7 +59,8 @@ export function upperTransposeSolve(N: NumericLu, y: Float64Array): void {
   const { n, Up, Ui, Ux, Ud } = N;
   for (let j = 0; j < n; j++) {
     let s = y[j]!;
-    for (let p = Up[j]!; p < Up[j + 1]!; p++) s -= Ux[p]! * y[Ui[p]!]!;
+    const end = Up[j + 1]!;
+    for (let p = Up[j]!; p < end; p++) s -= Ux[p]! * y[Ui[p]!]!;
     y[j] = s / Ud[j]!;
   }
 }
@@ -45,7 +70,8 @@ export function lowerTransposeSolve(N: NumericLu, y: Float64Array): void {
   const { n, Lp, Li, Lx } = N;
   for (let j = n - 1; j >= 0; j--) {
     let s = y[j]!;
-    for (let p = Lp[j]!; p < Lp[j + 1]!; p++) s -= Lx[p]! * y[Li[p]!]!;
+    const end = Lp[j + 1]!;
+    for (let p = Lp[j]!; p < end; p++) s -= Lx[p]! * y[Li[p]!]!;
     y[j] = s;
   }
 }

@@ -5,7 +5,8 @@
  *
  * Key to the names: `n` order; `x`/`z` dense real/imaginary accumulators, all zero between uses;
  * `rowScale` reciprocal row maxima; `stack` 2n integers, [0, n) the depth-first output and stack, [n, 2n) the saved edge positions;
- * `mark` visit marks, a node j counts as visited when mark[j] === generation.
+ * `mark` visit marks, a node j counts as visited when mark[j] === generation; `lend`/`pruned` the
+ * pruned extent of each column of L during a fresh factorization (prune.ts).
  */
 
 /** Scratch arrays owned by one solver; nothing in the kernels allocates beyond these. */
@@ -23,6 +24,10 @@ export interface LuWorkspace {
   readonly stack: Int32Array;
   /** 1 / max|A(i, :)| for each row i: the row scaling the pivot search compares magnitudes under. */
   readonly rowScale: Float64Array;
+  /** End of the part of L(:, j) the depth-first search scans (Lp[j+1] until j is pruned). */
+  readonly lend: Int32Array;
+  /** 1 once L(:, j) has been pruned (prune.ts). */
+  readonly pruned: Uint8Array;
   /** Visit marks compared with `generation`, so clearing costs nothing. */
   readonly mark: Int32Array;
   /** Current visit generation; advance it with {@link nextGeneration}. */
@@ -39,6 +44,8 @@ export function createLuWorkspace(n: number, complex: boolean): LuWorkspace {
     yz: new Float64Array(complex ? n : 0),
     stack: new Int32Array(2 * n),
     rowScale: new Float64Array(n),
+    lend: new Int32Array(n),
+    pruned: new Uint8Array(n),
     mark: new Int32Array(n),
     generation: 0,
   };
@@ -61,6 +68,25 @@ export function computeRowScale(Ap: Int32Array, Ai: Int32Array, Ax: Float64Array
   const nnz = Ap[ws.n]!;
   for (let p = 0; p < nnz; p++) {
     const a = Math.abs(Ax[p]!);
+    const i = Ai[p]!;
+    if (a > r[i]!) r[i] = a;
+  }
+  for (let i = 0; i < ws.n; i++) r[i] = r[i]! > 0 ? 1 / r[i]! : 1;
+}
+
+/** ws.rowScale[i] = 1 / max_j (|Re A(i, j)| + |Im A(i, j)|) (1 for an all-zero row), over the first nnz values. */
+export function computeRowScaleComplex(
+  Ap: Int32Array,
+  Ai: Int32Array,
+  Ax: Float64Array,
+  Az: Float64Array,
+  ws: LuWorkspace,
+): void {
+  const r = ws.rowScale;
+  r.fill(0);
+  const nnz = Ap[ws.n]!;
+  for (let p = 0; p < nnz; p++) {
+    const a = Math.abs(Ax[p]!) + Math.abs(Az[p]!);
     const i = Ai[p]!;
     if (a > r[i]!) r[i] = a;
   }

@@ -228,4 +228,30 @@ describe('the sparse real LU solver', () => {
       { numRuns: 40 },
     );
   });
+
+  // The transposed solve on several right-hand sides, each equal to a single transposed solve and
+  // checked against Aᵀ by its scaled residual (Davis, CSparse cs_demo.c, 2006).
+  it('solves several transposed right-hand sides, each equal to a single transposed solve', () => {
+    fc.assert(
+      fc.property(mnaCase, fc.integer({ min: 1, max: 3 }), ({ rand, m }, count) => {
+        const n = m.pattern.n;
+        const solver = createRealSolver(m.pattern);
+        expect(solver.factor(m.Ax)).toBe(0);
+        const stride = n + 2;
+        const B = new Float64Array(count * stride);
+        for (let k = 0; k < B.length; k++) B[k] = k % stride >= n ? -5 : rand();
+        const originals = Array.from({ length: count }, (_, r) => B.slice(r * stride, r * stride + n));
+        solver.solveMany(B, count, stride, true);
+        for (let r = 0; r < count; r++) {
+          const single = originals[r]!.slice();
+          solver.solveTranspose(single);
+          const column = B.subarray(r * stride, r * stride + n);
+          expect(Array.from(column)).toEqual(Array.from(single));
+          expect(scaledResidual(m.pattern, m.Ax, column, originals[r]!, true)).toBeLessThan(1e-12);
+          expect([B[r * stride + n], B[r * stride + n + 1]]).toEqual([-5, -5]);
+        }
+      }),
+      { numRuns: 40 },
+    );
+  });
 });
