@@ -126,7 +126,10 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
   for (const record of records) {
     for (const [, node] of terminalsOf(record)) {
       const k = nodeIndex.get(node)!;
-      if (k < n && !elementsAt[k]!.includes(record.name)) elementsAt[k]!.push(record.name);
+      // A record's terminals come together, so a repeat is always the last name pushed (no search:
+      // a supply node touches thousands of elements).
+      const names = elementsAt[k];
+      if (k < n && names![names!.length - 1] !== record.name) names!.push(record.name);
     }
     const k = branchIndex.get(record.name);
     if (k !== undefined) elementsAt[k]!.push(record.name);
