@@ -7,7 +7,11 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 /** Benchmark modules with their arguments, run in this order. */
-const BENCHMARKS: readonly (readonly string[])[] = [['lu-families.ts']];
+const BENCHMARKS: readonly (readonly string[])[] = [
+  ['lu-families.ts'],
+  ['operating-point.ts'],
+  ['ac-analysis.ts'],
+];
 
 const here = dirname(fileURLToPath(import.meta.url));
 let failed = 0;
