@@ -12,7 +12,7 @@ import { growL, growU } from './lu-types.js';
 import { pruneColumns } from './prune.js';
 import { reach } from './reach.js';
 import type { CscPattern, FactorStatus } from './types.js';
-import type { LuWorkspace } from './workspace.js';
+import { computeRowScaleComplex, type LuWorkspace, recordEntrySteps } from './workspace.js';
 
 /**
  * Factor A(prow, q) = L·U for A = Ax + j·Az, as luFactor does for real matrices. Returns 0 or c+1
@@ -102,14 +102,9 @@ export function luFactorComplex(
       }
     }
     const pref = prefRow[col]!;
-    if (
-      ipiv >= 0 &&
-      pref !== ipiv &&
-      mark[pref] === gen &&
-      pinv[pref]! < 0 &&
-      (Math.abs(x[pref]!) + Math.abs(z[pref]!)) * rowScale[pref]! >= tau * best
-    ) {
-      ipiv = pref;
+    if (ipiv >= 0 && pref !== ipiv && mark[pref] === gen && pinv[pref]! < 0) {
+      const a = Math.abs(x[pref]!) + Math.abs(z[pref]!);
+      if (a >= bestAbs || a * rowScale[pref]! >= tau * best) ipiv = pref; // as in lu.ts
     }
     if (ipiv < 0 || !(bestAbs > singular * Math.max(colMax, uMax))) {
       for (let px = top; px < n; px++) {
@@ -146,12 +141,14 @@ export function luFactorComplex(
   Up[n] = unz;
   const Li = N.Li;
   for (let p = 0; p < lnz; p++) Li[p] = pinv[Li[p]!]!;
+  recordEntrySteps(Ai, pinv, ws);
   return 0;
 }
 
 /**
  * Overwrite the values of N with the factors of A = Ax + j·Az on N's patterns, as luRefactor does
- * for real matrices. Returns 0, or −1 when a pivot fails the threshold or singular test.
+ * for real matrices (the same tests, row scales computed only when the plain test fails). Returns
+ * 0, or −1 when a pivot fails the threshold or singular test.
  */
 export function luRefactorComplex(
   A: CscPattern,
@@ -162,20 +159,22 @@ export function luRefactorComplex(
   ws: LuWorkspace,
   tol: PivotTolerances,
 ): number {
-  const { n, Ap, Ai } = A;
+  const { n, Ap } = A;
   const q = S.q;
-  const { pinv, prow, Lp, Li, Lx, Lz, Up, Ui, Ux, Uz, Ud, Udz } = N;
+  const { Lp, Li, Lx, Lz, Up, Ui, Ux, Uz, Ud, Udz } = N;
   const x = ws.x;
   const z = ws.z;
-  const rowScale = ws.rowScale;
+  const E = ws.entryStep;
   const tau = tol.pivotTolerance;
   const singular = tol.singularTolerance;
+  let uBegin = Up[0]!;
+  let lBegin = Lp[0]!;
   for (let k = 0; k < n; k++) {
     const col = q[k]!;
     let colMax = 0;
     const aEnd = Ap[col + 1]!;
     for (let p = Ap[col]!; p < aEnd; p++) {
-      const i = pinv[Ai[p]!]!;
+      const i = E[p]!;
       const vr = Ax[p]!;
       const vi = Az[p]!;
       x[i]! += vr;
@@ -185,7 +184,7 @@ export function luRefactorComplex(
     }
     let uMax = 0;
     const uEnd = Up[k + 1]!;
-    for (let p = Up[k]!; p < uEnd; p++) {
+    for (let p = uBegin; p < uEnd; p++) {
       const j = Ui[p]!;
       const xr = x[j]!;
       const xz = z[j]!;
@@ -196,9 +195,31 @@ export function luRefactorComplex(
       if (xr === 0 && xz === 0) continue;
       const a = Math.abs(xr) + Math.abs(xz);
       if (a > uMax) uMax = a;
-      // x −= L(:, j)·xj, unrolled by two (the real kernel's unrolling, halved for complex).
+      // x −= L(:, j)·xj, unrolled by four and then two (the real kernel's unrolling, halved).
       const end = Lp[j + 1]!;
       let r = Lp[j]!;
+      for (; r + 3 < end; r += 4) {
+        const i0 = Li[r]!;
+        const i1 = Li[r + 1]!;
+        const i2 = Li[r + 2]!;
+        const i3 = Li[r + 3]!;
+        const lr0 = Lx[r]!;
+        const lz0 = Lz[r]!;
+        const lr1 = Lx[r + 1]!;
+        const lz1 = Lz[r + 1]!;
+        const lr2 = Lx[r + 2]!;
+        const lz2 = Lz[r + 2]!;
+        const lr3 = Lx[r + 3]!;
+        const lz3 = Lz[r + 3]!;
+        x[i0] = x[i0]! - (lr0 * xr - lz0 * xz);
+        z[i0] = z[i0]! - (lr0 * xz + lz0 * xr);
+        x[i1] = x[i1]! - (lr1 * xr - lz1 * xz);
+        z[i1] = z[i1]! - (lr1 * xz + lz1 * xr);
+        x[i2] = x[i2]! - (lr2 * xr - lz2 * xz);
+        z[i2] = z[i2]! - (lr2 * xz + lz2 * xr);
+        x[i3] = x[i3]! - (lr3 * xr - lz3 * xz);
+        z[i3] = z[i3]! - (lr3 * xz + lz3 * xr);
+      }
       for (; r + 1 < end; r += 2) {
         const i0 = Li[r]!;
         const i1 = Li[r + 1]!;
@@ -219,26 +240,26 @@ export function luRefactorComplex(
         z[i] = z[i]! - (lr * xz + lz * xr);
       }
     }
+    uBegin = uEnd;
     const pr = x[k]!;
     const pz = z[k]!;
     x[k] = 0;
     z[k] = 0;
-    const p1 = Lp[k]!;
-    const p2 = Lp[k + 1]!;
+    const lEnd = Lp[k + 1]!;
     const a = Math.abs(pr) + Math.abs(pz);
     if (!(a > singular * Math.max(colMax, uMax))) {
-      for (let p = p1; p < p2; p++) {
+      for (let p = lBegin; p < lEnd; p++) {
         x[Li[p]!] = 0;
         z[Li[p]!] = 0;
       }
       return -1;
     }
-    // L(:, k) = x/pivot and the largest row-scaled candidate in one pass, as in refactor.ts.
+    // L(:, k) = x/pivot and the largest candidate in one pass, as in refactor.ts.
     const d = pr * pr + pz * pz;
     const invr = pr / d;
     const invz = -pz / d;
     let lMax = 0;
-    for (let p = p1; p < p2; p++) {
+    for (let p = lBegin; p < lEnd; p++) {
       const i = Li[p]!;
       const vr = x[i]!;
       const vi = z[i]!;
@@ -246,12 +267,41 @@ export function luRefactorComplex(
       Lz[p] = vr * invz + vi * invr;
       x[i] = 0;
       z[i] = 0;
-      const s = (Math.abs(vr) + Math.abs(vi)) * rowScale[prow[i]!]!;
-      if (s > lMax) lMax = s;
+      const b = Math.abs(vr) + Math.abs(vi);
+      if (b > lMax) lMax = b;
     }
-    if (!(a * rowScale[prow[k]!]! >= tau * lMax)) return -1;
+    if (!(a >= lMax) && !passesScaledTestComplex(A, Ax, Az, N, ws, k, pr, pz, tau)) return -1;
     Ud[k] = pr;
     Udz[k] = pz;
+    lBegin = lEnd;
   }
   return 0;
+}
+
+/**
+ * The row-scaled threshold test of step k once L(:, k) holds x/pivot, pivot = pr + j·pz: the
+ * candidates x = L(:, k)·pivot are rebuilt, and the scales computed from (Ax, Az) on first use.
+ */
+function passesScaledTestComplex(
+  A: CscPattern,
+  Ax: Float64Array,
+  Az: Float64Array,
+  N: ComplexNumericLu,
+  ws: LuWorkspace,
+  k: number,
+  pr: number,
+  pz: number,
+  tau: number,
+): boolean {
+  if (!ws.rowScaleCurrent) computeRowScaleComplex(A.Ap, A.Ai, Ax, Az, ws);
+  const { prow, Lp, Li, Lx, Lz } = N;
+  const rowScale = ws.rowScale;
+  let lMax = 0;
+  for (let p = Lp[k]!; p < Lp[k + 1]!; p++) {
+    const lr = Lx[p]!;
+    const lz = Lz[p]!;
+    const s = (Math.abs(lr * pr - lz * pz) + Math.abs(lr * pz + lz * pr)) * rowScale[prow[Li[p]!]!]!;
+    if (s > lMax) lMax = s;
+  }
+  return (Math.abs(pr) + Math.abs(pz)) * rowScale[prow[k]!]! >= tau * lMax;
 }

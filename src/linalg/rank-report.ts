@@ -40,7 +40,7 @@ export function reportSmallPivots(
   const tol = tolerancesOf(options);
   const S = options.symbolic ?? analyzePattern(pattern, Ax, options.ordering ?? 'amd', tol.pivotTolerance);
   const N = createNumericLu(n, 4 * pattern.Ap[n]! + n);
-  const ws = createLuWorkspace(n, false);
+  const ws = createLuWorkspace(n, pattern.Ap[n]!, false);
   const skipped = new Int32Array(n);
   computeRowScale(pattern.Ap, pattern.Ai, Ax, ws);
   const count = luFactor(pattern, Ax, S, N, ws, tol, skipped);

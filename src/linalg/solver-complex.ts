@@ -1,6 +1,7 @@
 /**
  * The sparse complex solver behind the ComplexLinearSolver contract: the real solver's policy
- * (analyse once, factor, refactor with fallback) on split real and imaginary arrays. It reuses a
+ * (analyse once, factor, refactor with fallback, analyse again before reporting a column) on split
+ * real and imaginary arrays. It reuses a
  * real symbolic analysis when given one (options.symbolic), since jωC entries sit on the pattern
  * of the conductance matrix.
  *
@@ -35,25 +36,32 @@ export function createSparseComplexSolver(
   const nnz = pattern.Ap[n]!;
   const tol = tolerancesOf(options);
   const ordering = options.ordering ?? 'amd';
-  const ws = createLuWorkspace(n, true);
+  const ws = createLuWorkspace(n, nnz, true);
   const N: ComplexNumericLu = createComplexNumericLu(n, 4 * nnz + n);
   let S: SymbolicLu | null = options.symbolic ?? null;
   let valid = false;
   let factorizations = 0;
   let refactorizations = 0;
   let fallbacks = 0;
+  let reanalyses = 0;
+  /** Matching on |Re| + |Im| of the present values, then the order (allocates; once per analysis). */
+  const analyze = (Ax: Float64Array, Az: Float64Array): SymbolicLu => {
+    const magnitude = new Float64Array(nnz);
+    for (let p = 0; p < nnz; p++) magnitude[p] = Math.abs(Ax[p]!) + Math.abs(Az[p]!);
+    return analyzePattern(pattern, magnitude, ordering, tol.pivotTolerance);
+  };
   return {
     n,
     get symbolic() {
       return S;
     },
     factor(Ax: Float64Array, Az: Float64Array): FactorStatus {
+      ws.rowScaleCurrent = false; // new values: the refactorization computes scales only if needed
+      let analysedNow = false;
       if (S === null) {
-        const magnitude = new Float64Array(nnz); // once per solver, for the matching
-        for (let p = 0; p < nnz; p++) magnitude[p] = Math.abs(Ax[p]!) + Math.abs(Az[p]!);
-        S = analyzePattern(pattern, magnitude, ordering, tol.pivotTolerance);
+        S = analyze(Ax, Az);
+        analysedNow = true;
       }
-      computeRowScaleComplex(pattern.Ap, pattern.Ai, Ax, Az, ws);
       if (valid) {
         if (luRefactorComplex(pattern, Ax, Az, S, N, ws, tol) === 0) {
           refactorizations++;
@@ -61,8 +69,16 @@ export function createSparseComplexSolver(
         }
         fallbacks++;
       }
+      if (!ws.rowScaleCurrent) computeRowScaleComplex(pattern.Ap, pattern.Ai, Ax, Az, ws);
       factorizations++;
-      const status = luFactorComplex(pattern, Ax, Az, S, N, ws, tol);
+      let status = luFactorComplex(pattern, Ax, Az, S, N, ws, tol);
+      if (status !== 0 && !analysedNow && ordering === 'amd') {
+        // As in solver.ts: an analysis from other values (another frequency) is redone on these.
+        S = analyze(Ax, Az);
+        reanalyses++;
+        factorizations++;
+        status = luFactorComplex(pattern, Ax, Az, S, N, ws, tol);
+      }
       valid = status === 0;
       return status;
     },
@@ -76,7 +92,7 @@ export function createSparseComplexSolver(
       valid = false;
     },
     statistics(): LuStatistics {
-      return { factorizations, refactorizations, fallbacks, nnzL: N.Lp[n]!, nnzU: N.Up[n]! + n };
+      return { factorizations, refactorizations, fallbacks, reanalyses, nnzL: N.Lp[n]!, nnzU: N.Up[n]! + n };
     },
   };
 }

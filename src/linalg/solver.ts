@@ -2,7 +2,9 @@
  * The sparse real solver behind the RealLinearSolver contract: symbolic analysis on the first
  * values, a fresh factorization, then refactorizations on the kept pivot order that fall back to a
  * fresh factorization when a pivot fails the threshold test (the refactor-or-factor policy of KLU,
- * Davis & Palamadai Natarajan, ACM TOMS 37, 2010).
+ * Davis & Palamadai Natarajan, ACM TOMS 37, 2010). A fresh factorization that finds no acceptable
+ * pivot on an analysis made from other values is retried once on a new analysis of the present
+ * values before the column is reported.
  *
  * Key to the names: `S` symbolic analysis, `N` numeric factorization, `ws` workspace, `valid`
  * whether N holds a complete factorization of the last values.
@@ -22,10 +24,11 @@ export interface SparseSolverOptions {
   /**
    * Threshold τ of partial pivoting (Duff, Erisman & Reid, "Direct Methods for Sparse Matrices",
    * 1986, §5.4): the matched row is kept while, row-scaled, it is ≥ τ × the column's largest
-   * candidate. Default 0.01: each step may grow entries by up to 1 + 1/τ, and on the random MNA
-   * matrices of the tests (transconductances up to 10⁶ × a diagonal) τ = 0.001 left about one
-   * matrix in a thousand with a scaled residual above 1e-12, τ = 0.01 none in 3,000, while the
-   * circuit families of bench/ keep exactly the same fill.
+   * candidate, or while it is the largest candidate outright (lu.ts). Default 0.01: each step may
+   * grow entries by up to 1 + 1/τ, and on the random MNA matrices of the tests (transconductances
+   * up to 10⁶ × a diagonal) τ = 0.001 left about one matrix in a thousand with a scaled residual
+   * above 1e-12, τ = 0.01 none in 3,000, while the circuit families of bench/ keep exactly the
+   * same fill.
    */
   readonly pivotTolerance?: number;
   /** Relative size below which a column has no acceptable pivot. 1e-13. */
@@ -42,6 +45,11 @@ export interface LuStatistics {
   readonly refactorizations: number;
   /** Refactorizations abandoned for a fresh factorization. */
   readonly fallbacks: number;
+  /**
+   * Symbolic analyses redone on the present values because a fresh factorization on the kept
+   * analysis found a column without an acceptable pivot.
+   */
+  readonly reanalyses: number;
   /** Entries of L (unit diagonal excluded) and U (diagonal included) of the last factorization. */
   readonly nnzL: number;
   readonly nnzU: number;
@@ -77,21 +85,26 @@ export function createSparseRealSolver(
   const n = pattern.n;
   const tol = tolerancesOf(options);
   const ordering = options.ordering ?? 'amd';
-  const ws: LuWorkspace = createLuWorkspace(n, false);
+  const ws: LuWorkspace = createLuWorkspace(n, pattern.Ap[n]!, false);
   const N: NumericLu = createNumericLu(n, 4 * pattern.Ap[n]! + n);
   let S: SymbolicLu | null = options.symbolic ?? null;
   let valid = false;
   let factorizations = 0;
   let refactorizations = 0;
   let fallbacks = 0;
+  let reanalyses = 0;
   return {
     n,
     get symbolic() {
       return S;
     },
     factor(Ax: Float64Array): FactorStatus {
-      if (S === null) S = analyzePattern(pattern, Ax, ordering, tol.pivotTolerance);
-      computeRowScale(pattern.Ap, pattern.Ai, Ax, ws);
+      ws.rowScaleCurrent = false; // new values: the refactorization computes scales only if needed
+      let analysedNow = false;
+      if (S === null) {
+        S = analyzePattern(pattern, Ax, ordering, tol.pivotTolerance);
+        analysedNow = true;
+      }
       if (valid) {
         if (luRefactor(pattern, Ax, S, N, ws, tol) === 0) {
           refactorizations++;
@@ -99,8 +112,18 @@ export function createSparseRealSolver(
         }
         fallbacks++;
       }
+      if (!ws.rowScaleCurrent) computeRowScale(pattern.Ap, pattern.Ai, Ax, ws);
       factorizations++;
-      const status = luFactor(pattern, Ax, S, N, ws, tol);
+      let status = luFactor(pattern, Ax, S, N, ws, tol);
+      if (status !== 0 && !analysedNow && ordering === 'amd') {
+        // The matching and order came from other values (an earlier Newton iterate or frequency);
+        // values far from those can leave a column whose matched pivot vanished while another row
+        // would serve. Analyse the present values and try once more before reporting.
+        S = analyzePattern(pattern, Ax, ordering, tol.pivotTolerance);
+        reanalyses++;
+        factorizations++;
+        status = luFactor(pattern, Ax, S, N, ws, tol);
+      }
       valid = status === 0;
       return status;
     },
@@ -117,7 +140,7 @@ export function createSparseRealSolver(
       valid = false;
     },
     statistics(): LuStatistics {
-      return { factorizations, refactorizations, fallbacks, nnzL: N.Lp[n]!, nnzU: N.Up[n]! + n };
+      return { factorizations, refactorizations, fallbacks, reanalyses, nnzL: N.Lp[n]!, nnzU: N.Up[n]! + n };
     },
   };
 }

@@ -4,7 +4,9 @@
  * value vector and a 2n integer vector, cs_lu.c).
  *
  * Key to the names: `n` order; `x`/`z` dense real/imaginary accumulators, all zero between uses;
- * `rowScale` reciprocal row maxima; `stack` 2n integers, [0, n) the depth-first output and stack, [n, 2n) the saved edge positions;
+ * `rowScale` reciprocal row maxima, `rowScaleCurrent` whether they belong to the values being factored;
+ * `entryStep` the pivot step of the row of each entry of A (pinv[Ai[p]], refreshed by every fresh
+ * factorization, so that the refactorization scatters A with one indirection fewer); `stack` 2n integers, [0, n) the depth-first output and stack, [n, 2n) the saved edge positions;
  * `mark` visit marks, a node j counts as visited when mark[j] === generation; `lend`/`pruned` the
  * pruned extent of each column of L during a fresh factorization (prune.ts).
  */
@@ -24,6 +26,14 @@ export interface LuWorkspace {
   readonly stack: Int32Array;
   /** 1 / max|A(i, :)| for each row i: the row scaling the pivot search compares magnitudes under. */
   readonly rowScale: Float64Array;
+  /**
+   * Whether rowScale belongs to the values now being factored: the solvers clear it on every
+   * factor() call, and the refactorization computes the scales only when a plain threshold test
+   * fails (rarely), so most refactorizations skip that pass over A.
+   */
+  rowScaleCurrent: boolean;
+  /** entryStep[p] = pinv[Ai[p]] of the last fresh factorization, for each of the nnz entries. */
+  readonly entryStep: Int32Array;
   /** End of the part of L(:, j) the depth-first search scans (Lp[j+1] until j is pruned). */
   readonly lend: Int32Array;
   /** 1 once L(:, j) has been pruned (prune.ts). */
@@ -34,8 +44,8 @@ export interface LuWorkspace {
   generation: number;
 }
 
-/** Allocate the workspace of a solver of order n; `complex` adds the imaginary vectors. */
-export function createLuWorkspace(n: number, complex: boolean): LuWorkspace {
+/** Allocate the workspace of a solver of order n for nnz entries; `complex` adds the imaginary vectors. */
+export function createLuWorkspace(n: number, nnz: number, complex: boolean): LuWorkspace {
   return {
     n,
     x: new Float64Array(n),
@@ -44,11 +54,20 @@ export function createLuWorkspace(n: number, complex: boolean): LuWorkspace {
     yz: new Float64Array(complex ? n : 0),
     stack: new Int32Array(2 * n),
     rowScale: new Float64Array(n),
+    rowScaleCurrent: false,
+    entryStep: new Int32Array(nnz),
     lend: new Int32Array(n),
     pruned: new Uint8Array(n),
     mark: new Int32Array(n),
     generation: 0,
   };
+}
+
+/** ws.entryStep[p] = pinv[Ai[p]] over the first nnz entries, after a complete fresh factorization. */
+export function recordEntrySteps(Ai: Int32Array, pinv: Int32Array, ws: LuWorkspace): void {
+  const E = ws.entryStep;
+  const nnz = E.length;
+  for (let p = 0; p < nnz; p++) E[p] = pinv[Ai[p]!]!;
 }
 
 /** Start a new visit: returns a generation that no mark holds yet. */
@@ -72,6 +91,7 @@ export function computeRowScale(Ap: Int32Array, Ai: Int32Array, Ax: Float64Array
     if (a > r[i]!) r[i] = a;
   }
   for (let i = 0; i < ws.n; i++) r[i] = r[i]! > 0 ? 1 / r[i]! : 1;
+  ws.rowScaleCurrent = true;
 }
 
 /** ws.rowScale[i] = 1 / max_j (|Re A(i, j)| + |Im A(i, j)|) (1 for an all-zero row), over the first nnz values. */
@@ -91,4 +111,5 @@ export function computeRowScaleComplex(
     if (a > r[i]!) r[i] = a;
   }
   for (let i = 0; i < ws.n; i++) r[i] = r[i]! > 0 ? 1 / r[i]! : 1;
+  ws.rowScaleCurrent = true;
 }
