@@ -59,7 +59,7 @@ export function luFactorComplex(
       const vi = Az[p]!;
       x[i]! += vr;
       z[i]! += vi;
-      const a = Math.abs(vr) + Math.abs(vi);
+      const a = (Math.abs(vr) + Math.abs(vi)) * rowScale[i]!;
       if (a > colMax) colMax = a;
     }
     for (let px = top; px < n; px++) {
@@ -98,7 +98,7 @@ export function luFactorComplex(
         Ui[unz] = pinv[i]!;
         Ux[unz] = vr;
         Uz[unz++] = vi;
-        if (a > uMax) uMax = a;
+        if (a * rowScale[i]! > uMax) uMax = a * rowScale[i]!;
       }
     }
     const pref = prefRow[col]!;
@@ -106,7 +106,8 @@ export function luFactorComplex(
       const a = Math.abs(x[pref]!) + Math.abs(z[pref]!);
       if (a >= bestAbs || a * rowScale[pref]! >= tau * best) ipiv = pref; // as in lu.ts
     }
-    if (ipiv < 0 || !(bestAbs > singular * Math.max(colMax, uMax))) {
+    // Row-scaled, as in lu.ts.
+    if (ipiv < 0 || !(best > singular * Math.max(colMax, uMax))) {
       for (let px = top; px < n; px++) {
         x[xi[px]!] = 0;
         z[xi[px]!] = 0;

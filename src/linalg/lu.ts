@@ -33,7 +33,9 @@ import { type LuWorkspace, recordEntrySteps } from './workspace.js';
  * supply node, coupled to every stage) filled U 70-fold. On 3,000 random MNA matrices the second
  * rule left the largest scaled residual unchanged, where accepting |x| ≥ τ·max|x| raised it 15-fold.
  * A column whose largest
- * candidate is ≤ singularTolerance × max(max|A(:, c)|, max|U(:, k)|) has no acceptable pivot.
+ * row-scaled candidate is ≤ singularTolerance × the largest row-scaled entry of A(:, c) and U(:, k)
+ * has no acceptable pivot (row-scaled, so a junction's huge conductance in one row does not make a
+ * source's unit branch entries in the same column look like round-off).
  *
  * With `skipped` null, returns 0 or c+1 for the first column c without an acceptable pivot. With
  * an array, such columns are written to skipped[0 …] instead, left without a pivot row, and the
@@ -80,8 +82,9 @@ export function luFactor(
     const aEnd = Ap[col + 1]!;
     for (let p = Ap[col]!; p < aEnd; p++) {
       const v = Ax[p]!;
-      x[Ai[p]!]! += v;
-      const a = Math.abs(v);
+      const i = Ai[p]!;
+      x[i]! += v;
+      const a = Math.abs(v) * rowScale[i]!;
       if (a > colMax) colMax = a;
     }
     for (let px = top; px < n; px++) {
@@ -124,7 +127,7 @@ export function luFactor(
       } else {
         Ui[unz] = pinv[i]!;
         Ux[unz++] = v;
-        if (a > uMax) uMax = a;
+        if (a * rowScale[i]! > uMax) uMax = a * rowScale[i]!;
       }
     }
     const pref = prefRow[col]!;
@@ -132,7 +135,9 @@ export function luFactor(
       const a = Math.abs(x[pref]!);
       if (a >= bestAbs || a * rowScale[pref]! >= tau * best) ipiv = pref;
     }
-    if (ipiv < 0 || !(bestAbs > singular * Math.max(colMax, uMax))) {
+    // Judged on row-scaled magnitudes, so that a row holding a huge conductance (a junction driven hard)
+    // does not make the unit entries of a source's branch look like round-off.
+    if (ipiv < 0 || !(best > singular * Math.max(colMax, uMax))) {
       for (let px = top; px < n; px++) x[xi[px]!] = 0;
       if (skipped === null) return col + 1;
       skipped[nskip++] = col; // no pivot row for this step: L(:, k) stays empty

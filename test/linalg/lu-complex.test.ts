@@ -233,7 +233,9 @@ describe('the sparse complex LU solver', () => {
   // 15.85 Hz, the gain piles up in U and a base column's last candidate falls below the 1e-13
   // relative test, though an analysis of the 15.85 Hz values factors the same matrix. Before a column is reported, the solver analyses
   // the present values again (as a fresh solver would) and factors once more.
-  it('analyses the present values again before reporting a column that an older analysis could not pivot', () => {
+  // With the unscaled singular test the fresh factorization failed on column b8 here and needed a
+  // re-analysis; the row-scaled test accepts the pivot on the first analysis. Either way it must factor.
+  it('factors the values of a far frequency after a failed refactorization, re-analysing only if it must', () => {
     const chain = stageChain({
       stages: 10,
       couplingFarads: 10e-6,
@@ -251,7 +253,10 @@ describe('the sparse complex LU solver', () => {
     expect(solver.factor(Ax, Az)).toBe(0);
     chain.assemble(15.85, Ax, Az);
     expect(solver.factor(Ax, Az)).toBe(0);
-    expect(solver.statistics()).toMatchObject({ fallbacks: 1, reanalyses: 1, factorizations: 3 });
+    const stats = solver.statistics();
+    expect(stats.fallbacks).toBe(1);
+    expect(stats.reanalyses).toBeLessThanOrEqual(1);
+    expect(stats.factorizations).toBe(2 + stats.reanalyses);
     const b = { re: new Float64Array(n), im: new Float64Array(n) };
     b.re[n - 1] = 1e-3; // 1 mV at the input
     const x = copy(b);
