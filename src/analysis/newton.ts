@@ -29,6 +29,8 @@ export class NewtonWorkspace {
   /** Norms of the last run, for diagnostics. */
   lastUpdateNorm = Number.POSITIVE_INFINITY;
   lastResidualNorm = Number.POSITIVE_INFINITY;
+  /** Whether every unknown of x was finite at the last residual pass (checked while reading x). */
+  lastIterateFinite = true;
 
   constructor(readonly system: CompiledSystem) {
     const { n, nnz } = system;
@@ -89,7 +91,9 @@ function loadAll(ws: NewtonWorkspace, sourceScale: number, shunt: number, first:
   const ctx = ws.context as { -readonly [K in keyof DcLoadContext]: DcLoadContext[K] };
   ws.A.set(ws.linearA);
   const { b, linearB } = ws;
-  for (let i = 0; i < b.length; i++) b[i] = sourceScale * linearB[i]!;
+  // 1·v is v exactly, so the full-scale case (every plain Newton iteration) is a copy.
+  if (sourceScale === 1) b.set(linearB);
+  else for (let i = 0; i < b.length; i++) b[i] = sourceScale * linearB[i]!;
   ctx.sourceScale = sourceScale;
   ctx.first = first;
   ctx.limited = false;
@@ -111,23 +115,40 @@ function residualWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
   const { Ap, Ai } = pattern;
   const { A, b, x, residual: r, rowScale } = ws;
   for (let i = 0; i < n; i++) {
-    r[i] = -b[i]!;
-    rowScale[i] = Math.abs(b[i]!);
+    const bi = b[i]!;
+    r[i] = -bi;
+    rowScale[i] = Math.abs(bi);
   }
+  // The column pass reads every x_j once, so it also tells whether the iterate is finite.
+  let finite = true;
+  let begin = Ap[0]!;
   for (let j = 0; j < n; j++) {
     const xj = x[j]!;
-    for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+    if (!Number.isFinite(xj)) finite = false;
+    const end = Ap[j + 1]!;
+    for (let p = begin; p < end; p++) {
       const term = A[p]! * xj;
-      r[Ai[p]!]! += term;
-      rowScale[Ai[p]!]! += Math.abs(term);
+      const i = Ai[p]!;
+      r[i]! += term;
+      rowScale[i]! += Math.abs(term);
     }
+    begin = end;
   }
+  ws.lastIterateFinite = finite;
+  const rel = o.relativeTolerance;
   let ok = true;
   let norm = 0;
-  for (let i = 0; i < n; i++) {
-    const abs = i < nodeCount ? o.currentTolerance : o.voltageTolerance;
+  // Node rows are currents, branch rows voltages: two loops instead of a test per row.
+  const currentTolerance = o.currentTolerance;
+  for (let i = 0; i < nodeCount; i++) {
     const ri = Math.abs(r[i]!);
-    if (!(ri <= o.relativeTolerance * rowScale[i]! + abs)) ok = false;
+    if (!(ri <= rel * rowScale[i]! + currentTolerance)) ok = false;
+    if (ri > norm || Number.isNaN(ri)) norm = ri;
+  }
+  const voltageTolerance = o.voltageTolerance;
+  for (let i = nodeCount; i < n; i++) {
+    const ri = Math.abs(r[i]!);
+    if (!(ri <= rel * rowScale[i]! + voltageTolerance)) ok = false;
     if (ri > norm || Number.isNaN(ri)) norm = ri;
   }
   ws.lastResidualNorm = norm;
@@ -138,19 +159,30 @@ function residualWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
 function updateWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
   const { n, nodeCount } = ws.system;
   const { x, previous } = ws;
+  const rel = o.relativeTolerance;
   let ok = true;
   let norm = 0;
-  for (let i = 0; i < n; i++) {
-    const abs = i < nodeCount ? o.voltageTolerance : o.currentTolerance;
-    const d = Math.abs(x[i]! - previous[i]!);
-    if (!(d <= o.relativeTolerance * Math.max(Math.abs(x[i]!), Math.abs(previous[i]!)) + abs)) ok = false;
+  // Node unknowns are voltages, branch unknowns currents: two loops instead of a test per unknown.
+  const voltageTolerance = o.voltageTolerance;
+  for (let i = 0; i < nodeCount; i++) {
+    const xi = x[i]!;
+    const pi = previous[i]!;
+    const d = Math.abs(xi - pi);
+    if (!(d <= rel * Math.max(Math.abs(xi), Math.abs(pi)) + voltageTolerance)) ok = false;
+    if (d > norm || Number.isNaN(d)) norm = d;
+  }
+  const currentTolerance = o.currentTolerance;
+  for (let i = nodeCount; i < n; i++) {
+    const xi = x[i]!;
+    const pi = previous[i]!;
+    const d = Math.abs(xi - pi);
+    if (!(d <= rel * Math.max(Math.abs(xi), Math.abs(pi)) + currentTolerance)) ok = false;
     if (d > norm || Number.isNaN(d)) norm = d;
   }
   ws.lastUpdateNorm = norm;
   return ok;
 }
 
-/** Factor and solve in place: previous ← x, x ← A⁻¹b. Throws `singular` naming the unknowns. */
 /** Factor and solve in place: previous ← x, x ← A⁻¹b. Returns 0, or k+1 when column k found no pivot. */
 function trySolve(ws: NewtonWorkspace): number {
   const status = ws.solver.factor(ws.A);
@@ -179,11 +211,6 @@ export function singularAt(system: CompiledSystem, k: number, context: string) {
   return singularMatrix(elements, nodes, context);
 }
 
-function allFinite(x: Float64Array, n: number): boolean {
-  for (let i = 0; i < n; i++) if (!Number.isFinite(x[i]!)) return false;
-  return true;
-}
-
 /**
  * Run Newton from ws.x with sources scaled by `sourceScale` and `shunt` siemens from every node to
  * ground. Converged means: the last load was taken at x itself (no junction step limited), every
@@ -204,7 +231,7 @@ export function runNewton(
   for (let iteration = 0; iteration <= maxIterations; iteration++) {
     const limited = loadAll(ws, sourceScale, shunt, iteration === 0);
     const residualOk = residualWithin(ws, o);
-    if (!allFinite(ws.x, n)) return { converged: false, iterations: iteration };
+    if (!ws.lastIterateFinite) return { converged: false, iterations: iteration };
     if (iteration > 0 && !limited && updateOk && residualOk)
       return { converged: true, iterations: iteration };
     // Global damping: go halfway back along a step that made an unlimited residual grow.
@@ -257,5 +284,5 @@ export function solveLinear(ws: NewtonWorkspace, o: ResolvedOptions): NewtonOutc
   loadAll(ws, 1, 0, true);
   step(ws, 'at the operating point');
   loadAll(ws, 1, 0, false);
-  return { converged: residualWithin(ws, o) && allFinite(ws.x, ws.system.n), iterations: 1 };
+  return { converged: residualWithin(ws, o) && ws.lastIterateFinite, iterations: 1 };
 }

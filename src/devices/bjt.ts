@@ -27,6 +27,8 @@ import {
   boundedExpSlope,
   criticalVoltage,
   depletionCapacitance,
+  EXP_LIMIT,
+  EXP_SLOPE_ABOVE_LIMIT,
   limitJunctionStep,
   saturationCurrentAt,
 } from './junction.js';
@@ -58,6 +60,17 @@ export class Bjt implements Device {
   private vCritF = 0;
   private vCritR = 0;
   private gmin = 0;
+  /** The temperature and thermal voltage the constants below were last prepared for (NaN: never). */
+  private preparedTemperature = Number.NaN;
+  private preparedThermalVoltage = Number.NaN;
+  // Constants of the load, taken from the parameters once instead of at every evaluation.
+  private forwardBeta = 1;
+  private reverseBeta = 1;
+  private earlyVoltage = Number.POSITIVE_INFINITY;
+  /** ∂q/∂vbe: 1/VA, or 0 without the Early effect. */
+  private dqdv = 0;
+  private isOverForwardBeta = 0;
+  private isOverReverseBeta = 0;
   private vbeOld = 0;
   private vbcOld = 0;
   // The last evaluation, in the mirrored frame: currents and their derivatives.
@@ -72,6 +85,10 @@ export class Bjt implements Device {
     this.name = record.name;
     this.p = withDefaults(BJT_PARAMETERS, record.model);
     this.sign = record.polarity === 'npn' ? 1 : -1;
+    this.forwardBeta = this.p.forwardBeta;
+    this.reverseBeta = this.p.reverseBeta;
+    this.earlyVoltage = this.p.earlyVoltage;
+    this.dqdv = this.earlyVoltage === Number.POSITIVE_INFINITY ? 0 : 1 / this.earlyVoltage;
   }
   bind(ctx: BindContext): void {
     this.c = ctx.node(this.record.collector);
@@ -85,8 +102,12 @@ export class Bjt implements Device {
     this.sBc = conductanceSlots(ctx, this.b, this.c);
   }
   prepare({ temperature, thermalVoltage, junctionConductance }: Conditions): void {
-    const p = this.p;
     this.gmin = junctionConductance;
+    // Every solve prepares again; at unchanged conditions the temperature laws give the same numbers.
+    if (temperature === this.preparedTemperature && thermalVoltage === this.preparedThermalVoltage) return;
+    this.preparedTemperature = temperature;
+    this.preparedThermalVoltage = thermalVoltage;
+    const p = this.p;
     this.nfVt = p.forwardEmissionCoefficient * thermalVoltage;
     this.nrVt = p.reverseEmissionCoefficient * thermalVoltage;
     // The transport current's temperature law, with emission coefficient 1.
@@ -100,28 +121,34 @@ export class Bjt implements Device {
     );
     this.vCritF = criticalVoltage(this.nfVt, this.is);
     this.vCritR = criticalVoltage(this.nrVt, this.is);
+    this.isOverForwardBeta = this.is / this.forwardBeta;
+    this.isOverReverseBeta = this.is / this.reverseBeta;
   }
   /** Evaluate the mirrored-frame currents and derivatives at (vbe, vbc), junction conductances included. */
   private evaluate(vbe: number, vbc: number, withGmin: boolean): void {
-    const p = this.p;
     const is = this.is;
-    const af = vbe / this.nfVt;
-    const ar = vbc / this.nrVt;
+    const nfVt = this.nfVt;
+    const nrVt = this.nrVt;
+    const af = vbe / nfVt;
+    const ar = vbc / nrVt;
     const ef = boundedExp(af);
     const er = boundedExp(ar);
-    const gf = (is * boundedExpSlope(af)) / this.nfVt; // ∂(Is·e_f)/∂vbe
-    const gr = (is * boundedExpSlope(ar)) / this.nrVt; // ∂(Is·e_r)/∂vbc
-    const va = p.earlyVoltage;
+    // One exponential per junction: below the limit the slope of boundedExp is its value.
+    const gf = (is * (af <= EXP_LIMIT ? ef : EXP_SLOPE_ABOVE_LIMIT)) / nfVt; // ∂(Is·e_f)/∂vbe
+    const gr = (is * (ar <= EXP_LIMIT ? er : EXP_SLOPE_ABOVE_LIMIT)) / nrVt; // ∂(Is·e_r)/∂vbc
+    const va = this.earlyVoltage;
     const q = va === Number.POSITIVE_INFINITY ? 1 : 1 + (vbe - vbc) / va;
-    const dqdv = va === Number.POSITIVE_INFINITY ? 0 : 1 / va; // ∂q/∂vbe = −∂q/∂vbc
     const transfer = is * (ef - er);
+    const transferSlope = transfer * this.dqdv; // ∂q/∂vbe = −∂q/∂vbc
     const g = withGmin ? this.gmin : 0;
-    this.ic = transfer * q - (is / p.reverseBeta) * (er - 1) - g * vbc;
-    this.ib = (is / p.forwardBeta) * (ef - 1) + (is / p.reverseBeta) * (er - 1) + g * (vbe + vbc);
-    this.dIcDvbe = gf * q + transfer * dqdv;
-    this.dIcDvbc = -gr * q - transfer * dqdv - gr / p.reverseBeta - g;
-    this.dIbDvbe = gf / p.forwardBeta + g;
-    this.dIbDvbc = gr / p.reverseBeta + g;
+    const reverseBase = this.isOverReverseBeta * (er - 1);
+    const grOverBetaR = gr / this.reverseBeta;
+    this.ic = transfer * q - reverseBase - g * vbc;
+    this.ib = this.isOverForwardBeta * (ef - 1) + reverseBase + g * (vbe + vbc);
+    this.dIcDvbe = gf * q + transferSlope;
+    this.dIcDvbc = -gr * q - transferSlope - grOverBetaR - g;
+    this.dIbDvbe = gf / this.forwardBeta + g;
+    this.dIbDvbc = grOverBetaR + g;
   }
   /** Add the Jacobian of (ic, ib, ie) with respect to the node voltages at rows/cols (c, b, e). */
   private stampJacobian(A: Float64Array): void {
@@ -145,8 +172,9 @@ export class Bjt implements Device {
   load(ctx: DcLoadContext): void {
     const x = ctx.x;
     const sign = this.sign;
-    const rawBe = sign * (x[this.b]! - x[this.e]!);
-    const rawBc = sign * (x[this.b]! - x[this.c]!);
+    const vb = x[this.b]!;
+    const rawBe = sign * (vb - x[this.e]!);
+    const rawBc = sign * (vb - x[this.c]!);
     let vbe = rawBe;
     let vbc = rawBc;
     if (!ctx.first) {

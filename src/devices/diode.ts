@@ -23,9 +23,10 @@ import { DIODE_PARAMETERS } from './diode-model.js';
 import {
   boundedExp,
   boundedExpCurvature,
-  boundedExpSlope,
   criticalVoltage,
   depletionCapacitance,
+  EXP_LIMIT,
+  EXP_SLOPE_ABOVE_LIMIT,
   limitJunctionStep,
   saturationCurrentAt,
 } from './junction.js';
@@ -47,6 +48,12 @@ export class Diode implements Device {
   private vCritical = 0;
   private vOld = 0;
   private gmin = 0;
+  /** The temperature and thermal voltage the constants below were last prepared for (NaN: never). */
+  private preparedTemperature = Number.NaN;
+  private preparedThermalVoltage = Number.NaN;
+  // Constants of the load, taken from the parameters once instead of at every evaluation.
+  private breakdownVoltage = Number.POSITIVE_INFINITY;
+  private seriesConductance = 0;
   // Scratch of the last evaluation: current and conductance.
   private i = 0;
   private g = 0;
@@ -55,6 +62,8 @@ export class Diode implements Device {
   constructor(readonly record: DiodeRecord) {
     this.name = record.name;
     this.p = withDefaults(DIODE_PARAMETERS, record.model);
+    this.breakdownVoltage = this.p.breakdownVoltage;
+    if (this.p.seriesResistance > 0) this.seriesConductance = 1 / this.p.seriesResistance;
   }
   allocateNodes(ctx: AllocationContext): void {
     if (this.p.seriesResistance > 0) this.j = ctx.internalNode(this.name, 'junction');
@@ -67,8 +76,12 @@ export class Diode implements Device {
     this.sJunction = conductanceSlots(ctx, this.j, this.c);
   }
   prepare({ temperature, thermalVoltage, junctionConductance }: Conditions): void {
-    const p = this.p;
     this.gmin = junctionConductance;
+    // Every solve prepares again; at unchanged conditions the temperature laws give the same numbers.
+    if (temperature === this.preparedTemperature && thermalVoltage === this.preparedThermalVoltage) return;
+    this.preparedTemperature = temperature;
+    this.preparedThermalVoltage = thermalVoltage;
+    const p = this.p;
     this.nVt = p.emissionCoefficient * thermalVoltage;
     this.is = saturationCurrentAt(
       p.saturationCurrent,
@@ -83,15 +96,20 @@ export class Diode implements Device {
   /** Evaluate current and conductance at junction voltage v into the scratch fields. */
   private evaluate(v: number): void {
     const gmin = this.gmin;
-    const a = v / this.nVt;
-    const gf = (this.is * boundedExpSlope(a)) / this.nVt;
-    let i = this.is * (boundedExp(a) - 1);
+    const is = this.is;
+    const nVt = this.nVt;
+    const a = v / nVt;
+    // One exponential per term: below the limit the slope of boundedExp is its value.
+    const e = boundedExp(a);
+    const gf = (is * (a <= EXP_LIMIT ? e : EXP_SLOPE_ABOVE_LIMIT)) / nVt;
+    let i = is * (e - 1);
     let g = gf;
-    const bv = this.p.breakdownVoltage;
+    const bv = this.breakdownVoltage;
     if (bv !== Number.POSITIVE_INFINITY) {
-      const ab = -(v + bv) / this.nVt;
-      i -= this.is * boundedExp(ab);
-      g += (this.is * boundedExpSlope(ab)) / this.nVt;
+      const ab = -(v + bv) / nVt;
+      const eb = boundedExp(ab);
+      i -= is * eb;
+      g += (is * (ab <= EXP_LIMIT ? eb : EXP_SLOPE_ABOVE_LIMIT)) / nVt;
     }
     this.i = i + gmin * v;
     this.g = g + gmin;
@@ -100,7 +118,7 @@ export class Diode implements Device {
   /** Limit a step on both knees: the forward one, and the breakdown one mirrored. */
   private limit(v: number): number {
     let out = limitJunctionStep(v, this.vOld, this.nVt, this.vCritical);
-    const bv = this.p.breakdownVoltage;
+    const bv = this.breakdownVoltage;
     if (bv !== Number.POSITIVE_INFINITY && out < -bv) {
       out = -bv - limitJunctionStep(-(out + bv), -(this.vOld + bv), this.nVt, this.vCritical);
     }
@@ -115,7 +133,7 @@ export class Diode implements Device {
     this.evaluate(v);
     addConductance(ctx.A, this.sJunction, 0, this.g);
     addCurrent(ctx.b, this.j, this.c, this.i - this.g * v);
-    if (this.p.seriesResistance > 0) addConductance(ctx.A, this.sSeries, 0, 1 / this.p.seriesResistance);
+    if (this.seriesConductance > 0) addConductance(ctx.A, this.sSeries, 0, this.seriesConductance);
   }
   loadAc(ctx: AcLoadContext): void {
     const v = ctx.x[this.j]! - ctx.x[this.c]!;

@@ -37,6 +37,11 @@ export function saturationCurrentAt(
  */
 export const EXP_LIMIT = 80;
 const EXP_AT_LIMIT = Math.exp(EXP_LIMIT);
+/**
+ * The slope of {@link boundedExp} above {@link EXP_LIMIT}. Below it the slope is the value itself, so
+ * a caller that needs both can take one exponential: slope = a <= EXP_LIMIT ? value : this.
+ */
+export const EXP_SLOPE_ABOVE_LIMIT = EXP_AT_LIMIT;
 
 /** exp(a), continued linearly above a = 80 (value and slope match there): finite on the whole real line. */
 export function boundedExp(a: number): number {
