@@ -59,7 +59,7 @@ export class Bjt implements Device {
   private nrVt = 0;
   private vCritF = 0;
   private vCritR = 0;
-  private gmin = 0;
+  private junctionConductance = 0;
   /** The temperature and thermal voltage the constants below were last prepared for (NaN: never). */
   private preparedTemperature = Number.NaN;
   private preparedThermalVoltage = Number.NaN;
@@ -80,6 +80,9 @@ export class Bjt implements Device {
   private dIcDvbc = 0;
   private dIbDvbe = 0;
   private dIbDvbc = 0;
+  // Scratch of the last capacitances() call.
+  private cpi = 0;
+  private cmu = 0;
 
   constructor(readonly record: BjtRecord) {
     this.name = record.name;
@@ -102,7 +105,7 @@ export class Bjt implements Device {
     this.sBc = conductanceSlots(ctx, this.b, this.c);
   }
   prepare({ temperature, thermalVoltage, junctionConductance }: Conditions): void {
-    this.gmin = junctionConductance;
+    this.junctionConductance = junctionConductance;
     // Every solve prepares again; at unchanged conditions the temperature laws give the same numbers.
     if (temperature === this.preparedTemperature && thermalVoltage === this.preparedThermalVoltage) return;
     this.preparedTemperature = temperature;
@@ -125,7 +128,7 @@ export class Bjt implements Device {
     this.isOverReverseBeta = this.is / this.reverseBeta;
   }
   /** Evaluate the mirrored-frame currents and derivatives at (vbe, vbc), junction conductances included. */
-  private evaluate(vbe: number, vbc: number, withGmin: boolean): void {
+  private evaluate(vbe: number, vbc: number, withJunctionConductance: boolean): void {
     const is = this.is;
     const nfVt = this.nfVt;
     const nrVt = this.nrVt;
@@ -140,7 +143,7 @@ export class Bjt implements Device {
     const q = va === Number.POSITIVE_INFINITY ? 1 : 1 + (vbe - vbc) / va;
     const transfer = is * (ef - er);
     const transferSlope = transfer * this.dqdv; // ∂q/∂vbe = −∂q/∂vbc
-    const g = withGmin ? this.gmin : 0;
+    const g = withJunctionConductance ? this.junctionConductance : 0;
     const reverseBase = this.isOverReverseBeta * (er - 1);
     const grOverBetaR = gr / this.reverseBeta;
     this.ic = transfer * q - reverseBase - g * vbc;
@@ -197,28 +200,31 @@ export class Bjt implements Device {
   private mirrored(x: Float64Array): [number, number] {
     return [this.sign * (x[this.b]! - x[this.e]!), this.sign * (x[this.b]! - x[this.c]!)];
   }
-  private capacitances(vbe: number, vbc: number, gm: number): [number, number] {
+  /** The base-emitter and base-collector capacitances at (vbe, vbc), written to `cpi` and `cmu`. */
+  private capacitances(vbe: number, vbc: number, gm: number): void {
     const p = this.p;
-    const cpi =
+    this.cpi =
       depletionCapacitance(p.baseEmitterCapacitance, vbe, p.baseEmitterPotential, p.baseEmitterGrading) +
       p.forwardTransitTime * gm;
-    const cmu = depletionCapacitance(
+    this.cmu = depletionCapacitance(
       p.baseCollectorCapacitance,
       vbc,
       p.baseCollectorPotential,
       p.baseCollectorGrading,
     );
-    return [cpi, cmu];
   }
   loadAc(ctx: AcLoadContext): void {
-    const [vbe, vbc] = this.mirrored(ctx.x);
+    // Inline rather than through mirrored(): no array allocated per frequency point.
+    const x = ctx.x;
+    const vb = x[this.b]!;
+    const vbe = this.sign * (vb - x[this.e]!);
+    const vbc = this.sign * (vb - x[this.c]!);
     this.evaluate(vbe, vbc, false);
-    const gm = this.dIcDvbe + this.dIcDvbc;
-    const [cpi, cmu] = this.capacitances(vbe, vbc, gm);
+    this.capacitances(vbe, vbc, this.dIcDvbe + this.dIcDvbc);
     this.evaluate(vbe, vbc, true);
     this.stampJacobian(ctx.Ar);
-    addConductance(ctx.Ai, this.sBe, 0, ctx.omega * cpi);
-    addConductance(ctx.Ai, this.sBc, 0, ctx.omega * cmu);
+    addConductance(ctx.Ai, this.sBe, 0, ctx.omega * this.cpi);
+    addConductance(ctx.Ai, this.sBc, 0, ctx.omega * this.cmu);
   }
   /** The operating region, by the bias of the two junctions (threshold {@link FORWARD_BIAS_THRESHOLD}·n·Vt). */
   region(vbe: number, vbc: number): BjtRegion {
@@ -233,7 +239,8 @@ export class Bjt implements Device {
     const gm = this.dIcDvbe + this.dIcDvbc;
     const gpi = this.dIbDvbe + this.dIbDvbc;
     const go = -this.dIcDvbc;
-    const [cpi, cmu] = this.capacitances(vbe, vbc, gm);
+    this.capacitances(vbe, vbc, gm);
+    const { cpi, cmu } = this;
     // Terminal currents include the junction conductances.
     this.evaluate(vbe, vbc, true);
     const sign = this.sign;

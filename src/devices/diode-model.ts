@@ -26,7 +26,7 @@ export interface DiodeModel {
   breakdownVoltage?: Value;
   /** Bandgap energy in eV for the temperature law of Is (default 1.12, silicon). */
   bandgap?: Value;
-  /** Temperature exponent xti of Is (default 3). */
+  /** The temperature exponent p of Is (default 3). */
   saturationCurrentTemperatureExponent?: Value;
   /** The temperature, in K, at which `saturationCurrent` is given (default 300.15). */
   referenceTemperature?: Value;

@@ -3,7 +3,7 @@
  * resistance through an internal node, depletion and diffusion capacitance.
  *
  * Junction current (anode → cathode) at junction voltage v, with nVt = n·k·T/q:
- *   i(v) = Is·(e^(v/nVt) − 1) − Is·e^(−(v + BV)/nVt) + g_min·v
+ *   i(v) = Is·(e^(v/nVt) − 1) − Is·e^(−(v + BV)/nVt) + g_j·v (g_j: the junction conductance)
  * The breakdown term is e-fold steeper per nVt below −BV, mirroring the forward knee.
  */
 import type { DiodeRecord } from '../circuit/elements.js';
@@ -47,7 +47,7 @@ export class Diode implements Device {
   private nVt = 0;
   private vCritical = 0;
   private vOld = 0;
-  private gmin = 0;
+  private junctionConductance = 0;
   /** The temperature and thermal voltage the constants below were last prepared for (NaN: never). */
   private preparedTemperature = Number.NaN;
   private preparedThermalVoltage = Number.NaN;
@@ -76,7 +76,7 @@ export class Diode implements Device {
     this.sJunction = conductanceSlots(ctx, this.j, this.c);
   }
   prepare({ temperature, thermalVoltage, junctionConductance }: Conditions): void {
-    this.gmin = junctionConductance;
+    this.junctionConductance = junctionConductance;
     // Every solve prepares again; at unchanged conditions the temperature laws give the same numbers.
     if (temperature === this.preparedTemperature && thermalVoltage === this.preparedThermalVoltage) return;
     this.preparedTemperature = temperature;
@@ -95,7 +95,7 @@ export class Diode implements Device {
   }
   /** Evaluate current and conductance at junction voltage v into the scratch fields. */
   private evaluate(v: number): void {
-    const gmin = this.gmin;
+    const gJunction = this.junctionConductance;
     const is = this.is;
     const nVt = this.nVt;
     const a = v / nVt;
@@ -111,8 +111,8 @@ export class Diode implements Device {
       i -= is * eb;
       g += (is * (ab <= EXP_LIMIT ? eb : EXP_SLOPE_ABOVE_LIMIT)) / nVt;
     }
-    this.i = i + gmin * v;
-    this.g = g + gmin;
+    this.i = i + gJunction * v;
+    this.g = g + gJunction;
     this.gDiffusion = gf;
   }
   /** Limit a step on both knees: the forward one, and the breakdown one mirrored. */
@@ -140,7 +140,7 @@ export class Diode implements Device {
     this.evaluate(v);
     addConductance(ctx.Ar, this.sJunction, 0, this.g);
     addConductance(ctx.Ai, this.sJunction, 0, ctx.omega * this.capacitanceAt(v));
-    if (this.p.seriesResistance > 0) addConductance(ctx.Ar, this.sSeries, 0, 1 / this.p.seriesResistance);
+    if (this.seriesConductance > 0) addConductance(ctx.Ar, this.sSeries, 0, this.seriesConductance);
   }
   /** The small-signal current anode to cathode: (g + jωC) times the junction voltage phasor. */
   acCurrent(xr: Float64Array, xi: Float64Array, omega: number, x: Float64Array, out: Float64Array): void {

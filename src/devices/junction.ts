@@ -16,7 +16,7 @@ export function thermalVoltage(temperature: number): number {
 /**
  * Saturation current at temperature T from its value at Tref, in the usual form derived from the
  * intrinsic carrier density (e.g. Sze & Ng, Physics of Semiconductor Devices, 3rd ed., 2007):
- * Is(T) = Is·(T/Tref)^(xti/n)·exp((Eg/(n·Vt(T)))·(T/Tref − 1)), with Eg in volts.
+ * Is(T) = Is·(T/Tref)^(p/n)·exp((Eg/(n·Vt(T)))·(T/Tref − 1)), with Eg in volts.
  */
 export function saturationCurrentAt(
   isRef: number,

@@ -47,7 +47,7 @@ export class Mosfet implements Device {
   private sBody: Int32Array = new Int32Array(0);
   private sGs: Int32Array = new Int32Array(0);
   private sGd: Int32Array = new Int32Array(0);
-  private gmin = 0;
+  private junctionConductance = 0;
   private vgsOld = 0;
   private vdsOld = 0;
   // The last evaluation in the mirrored frame.
@@ -80,7 +80,7 @@ export class Mosfet implements Device {
     this.sGd = conductanceSlots(ctx, this.g, this.d);
   }
   prepare({ junctionConductance }: Conditions): void {
-    this.gmin = junctionConductance;
+    this.junctionConductance = junctionConductance;
   }
   /** The square law for vds ≥ 0 in the mirrored frame; writes id, gm, gds, gmb, vth, regionNow. */
   private channel(vgs: number, vds: number, vbs: number): void {
@@ -139,10 +139,10 @@ export class Mosfet implements Device {
     const vs = x[this.s]!;
     return [sign * (x[this.g]! - vs), sign * (x[this.d]! - vs), sign * (x[this.bd]! - vs)];
   }
-  /** Add the channel Jacobian (gmin across the channel included) at rows (d, s), columns (d, g, s, b). */
+  /** Add the channel Jacobian (the junction conductance across the channel included) at rows (d, s), columns (d, g, s, b). */
   private stampJacobian(A: Float64Array): void {
     const s = this.sChannel;
-    const gds = this.gds + this.gmin;
+    const gds = this.gds + this.junctionConductance;
     const gm = this.gm;
     const gmb = this.gmb;
     A[s[0]!]! += gds;
@@ -155,7 +155,7 @@ export class Mosfet implements Device {
     A[s[7]!]! -= gmb;
   }
   load(ctx: DcLoadContext): void {
-    // Inline rather than through mirrored(): no array allocated per Newton iteration.
+    // Inline rather than through mirrored(): no array allocated per Newton iteration; the limiter needs vgs, vds.
     const x = ctx.x;
     const sign = this.sign;
     const vs = x[this.s]!;
@@ -179,17 +179,20 @@ export class Mosfet implements Device {
     this.vdsOld = vds;
     this.evaluate(vgs, vds, vbs);
     this.stampJacobian(ctx.A);
-    addConductance(ctx.A, this.sBody, 0, this.gmin);
+    addConductance(ctx.A, this.sBody, 0, this.junctionConductance);
     // Equivalent current into the drain, in the circuit's frame.
     const ieq = sign * (this.id - this.gm * vgs - this.gds * vds - this.gmb * vbs);
     ctx.b[this.d]! -= ieq;
     ctx.b[this.s]! += ieq;
   }
   loadAc(ctx: AcLoadContext): void {
-    const [vgs, vds, vbs] = this.mirrored(ctx.x);
-    this.evaluate(vgs, vds, vbs);
+    // Inline rather than through mirrored(): no array allocated per frequency point.
+    const x = ctx.x;
+    const sign = this.sign;
+    const vs = x[this.s]!;
+    this.evaluate(sign * (x[this.g]! - vs), sign * (x[this.d]! - vs), sign * (x[this.bd]! - vs));
     this.stampJacobian(ctx.Ar);
-    addConductance(ctx.Ar, this.sBody, 0, this.gmin);
+    addConductance(ctx.Ar, this.sBody, 0, this.junctionConductance);
     addConductance(ctx.Ai, this.sGs, 0, ctx.omega * this.p.gateSourceCapacitance);
     addConductance(ctx.Ai, this.sGd, 0, ctx.omega * this.p.gateDrainCapacitance);
   }
@@ -201,7 +204,7 @@ export class Mosfet implements Device {
       vgs: sign * vgs,
       vds: sign * vds,
       vbs: sign * vbs,
-      id: this.id + this.gmin * vds,
+      id: this.id + this.junctionConductance * vds,
       gm: this.gm,
       gds: this.gds,
       gmb: this.gmb,

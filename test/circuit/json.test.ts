@@ -241,7 +241,7 @@ describe('Circuit JSON documents', () => {
 
     it('rejects a wrong format name or an unsupported version', () => {
       // common practice, no source: a versioned format refuses what it does not know
-      expectRejected({ ...dividerDocument(), format: 'netlist' }, 'invalid-circuit', 'format');
+      expectRejected({ ...dividerDocument(), format: 'schematic' }, 'invalid-circuit', 'format');
       expectRejected({ ...dividerDocument(), version: DOCUMENT_VERSION + 1 }, 'invalid-circuit', 'version');
       expectRejected({ ...dividerDocument(), version: '1' }, 'invalid-circuit', 'version');
       const { format: _, ...noFormat } = dividerDocument();

@@ -175,13 +175,13 @@ describe('the diode temperature law', () => {
     expectRelativelyClose(d.voltage, vt * Math.log1p(1e-3 / 3e-15), 1e-10, 'junction voltage at Tref');
   });
 
-  it('follows ln Is(T) = ln Is + (xti/n)·ln(T/Tref) + (q·Eg/(n·k))·(1/Tref − 1/T) at another temperature', () => {
+  it('follows ln Is(T) = ln Is + (p/n)·ln(T/Tref) + (q·Eg/(n·k))·(1/Tref − 1/T), p the temperature exponent, at another temperature', () => {
     // Sze & Ng, Physics of Semiconductor Devices (3rd ed., 2007), from the intrinsic carrier density,
     // written in its Arrhenius form (from memory), with the exact SI 2019 constants.
     const k = 1.380649e-23;
     const q = 1.602176634e-19;
-    const [n, xti, eg, tref, t] = [1.3, 3, 1.12, 300.15, 360];
-    const isT = 1e-14 * Math.exp((xti / n) * Math.log(t / tref) + ((q * eg) / (n * k)) * (1 / tref - 1 / t));
+    const [n, p, eg, tref, t] = [1.3, 3, 1.12, 300.15, 360];
+    const isT = 1e-14 * Math.exp((p / n) * Math.log(t / tref) + ((q * eg) / (n * k)) * (1 / tref - 1 / t));
     const d = operatingPoint(currentDriven(1e-3, { emissionCoefficient: n }), {
       temperature: t,
       junctionConductance: 1e-30,
