@@ -1,5 +1,4 @@
 export { type CompressedPattern, compressPattern } from './csc.js';
-export { createDenseComplexSolver, createDenseRealSolver } from './dense-solver.js';
 export type { SymbolicLu } from './lu-types.js';
 export { formatMatrixMarket, type MatrixMarketMatrix, parseMatrixMarket } from './matrix-market.js';
 export type { Ordering } from './ordering.js';

@@ -98,7 +98,8 @@ export function luFactorComplex(
         Ui[unz] = pinv[i]!;
         Ux[unz] = vr;
         Uz[unz++] = vi;
-        if (a * rowScale[i]! > uMax) uMax = a * rowScale[i]!;
+        const s = a * rowScale[i]!;
+        if (s > uMax) uMax = s;
       }
     }
     const pref = prefRow[col]!;
@@ -148,8 +149,8 @@ export function luFactorComplex(
 
 /**
  * Overwrite the values of N with the factors of A = Ax + j·Az on N's patterns, as luRefactor does
- * for real matrices (the same tests, row scales computed only when the plain test fails). Returns
- * 0, or −1 when a pivot fails the threshold or singular test.
+ * for real matrices (the same tests: an unscaled singular test, and row scales computed only when
+ * the plain threshold test fails). Returns 0, or −1 when a pivot fails the threshold or singular test.
  */
 export function luRefactorComplex(
   A: CscPattern,
@@ -248,6 +249,7 @@ export function luRefactorComplex(
     z[k] = 0;
     const lEnd = Lp[k + 1]!;
     const a = Math.abs(pr) + Math.abs(pz);
+    // Unscaled, as in refactor.ts; the fresh factorization above judges row-scaled.
     if (!(a > singular * Math.max(colMax, uMax))) {
       for (let p = lBegin; p < lEnd; p++) {
         x[Li[p]!] = 0;

@@ -19,12 +19,10 @@ export interface SymbolicLu {
   readonly q: Int32Array;
   /** prefRow[j] is the row matched to column j: the pivot preferred for column j. */
   readonly prefRow: Int32Array;
-  /** Size of the matching found on the nonzero entries (n when the diagonal could be filled). */
-  readonly matched: number;
 }
 
 /** Pivot rows and the patterns of L and U of one fresh factorization (storage grows by doubling). */
-export interface LuPattern {
+interface LuPattern {
   readonly n: number;
   readonly pinv: Int32Array;
   readonly prow: Int32Array;

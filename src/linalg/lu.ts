@@ -32,8 +32,7 @@ import { type LuWorkspace, recordEntrySteps } from './workspace.js';
  * the scaled test by a hair while it was the largest candidate, and the row chosen instead (the
  * supply node, coupled to every stage) filled U 70-fold. On 3,000 random MNA matrices the second
  * rule left the largest scaled residual unchanged, where accepting |x| ≥ τ·max|x| raised it 15-fold.
- * A column whose largest
- * row-scaled candidate is ≤ singularTolerance × the largest row-scaled entry of A(:, c) and U(:, k)
+ * A column whose largest row-scaled candidate is ≤ singularTolerance × the largest row-scaled entry of A(:, c) and U(:, k)
  * has no acceptable pivot (row-scaled, so a junction's huge conductance in one row does not make a
  * source's unit branch entries in the same column look like round-off).
  *
@@ -93,7 +92,7 @@ export function luFactor(
       if (J < 0) continue; // row j has no pivot yet: x[j] is final
       const xj = x[j]!;
       if (xj === 0) continue;
-      // x −= L(:, J)·xj, unrolled by four as in refactor.ts.
+      // x −= L(:, J)·xj, unrolled by four (refactor.ts, which runs far more often, unrolls by eight).
       const end = Lp[J + 1]!;
       let p = Lp[J]!;
       for (; p + 3 < end; p += 4) {
@@ -127,7 +126,8 @@ export function luFactor(
       } else {
         Ui[unz] = pinv[i]!;
         Ux[unz++] = v;
-        if (a * rowScale[i]! > uMax) uMax = a * rowScale[i]!;
+        const s = a * rowScale[i]!;
+        if (s > uMax) uMax = s;
       }
     }
     const pref = prefRow[col]!;
@@ -135,8 +135,7 @@ export function luFactor(
       const a = Math.abs(x[pref]!);
       if (a >= bestAbs || a * rowScale[pref]! >= tau * best) ipiv = pref;
     }
-    // Judged on row-scaled magnitudes, so that a row holding a huge conductance (a junction driven hard)
-    // does not make the unit entries of a source's branch look like round-off.
+    // Row-scaled singular test (see above); refactor.ts keeps an unscaled one and falls back here.
     if (ipiv < 0 || !(best > singular * Math.max(colMax, uMax))) {
       for (let px = top; px < n; px++) x[xi[px]!] = 0;
       if (skipped === null) return col + 1;

@@ -30,12 +30,12 @@ export function analyzePattern(A: CscPattern, Ax: Float64Array, ordering: Orderi
       q[k] = k;
       imatch[k] = k;
     }
-    return { n, q, prefRow: imatch, matched: n };
+    return { n, q, prefRow: imatch };
   }
-  const matched = maximumMatching(A, Ax, tau, imatch);
+  maximumMatching(A, Ax, tau, imatch);
   const rowPos = new Int32Array(n);
   for (let j = 0; j < n; j++) rowPos[imatch[j]!] = j;
   const { Cp, Ci } = symmetrizedPattern(n, Ap, Ai, rowPos);
   const q = amdOrder(n, Cp, Ci);
-  return { n, q: q.slice(), prefRow: imatch, matched };
+  return { n, q: q.slice(), prefRow: imatch }; // slice: amdOrder returns a view on n+1 entries
 }

@@ -14,9 +14,12 @@ import { computeRowScale, type LuWorkspace } from './workspace.js';
 
 /**
  * Overwrite the values of N with the factors of A(prow, q) on N's patterns. Returns 0, or −1 when
- * some pivot U(k, k) fails the singular test or the tests of lu.ts (neither the largest candidate
- * of its column outright nor, row-scaled, at least τ times the largest): then N is left
- * inconsistent and the caller must factor afresh. ws.entryStep must hold the steps of N's fresh factorization.
+ * some pivot U(k, k) fails the singular test or the threshold test of lu.ts (neither the largest
+ * candidate of its column outright nor, row-scaled, at least τ times the largest): then N is left
+ * inconsistent and the caller must factor afresh. Unlike lu.ts, the singular test here is unscaled
+ * (|pivot| against the largest |entry| of A(:, c) and U(:, k)), so that it needs no row scales; a
+ * pivot it rejects is judged again, row-scaled, by the fresh factorization the caller falls back
+ * to. ws.entryStep must hold the steps of N's fresh factorization.
  */
 export function luRefactor(
   A: CscPattern,
@@ -94,6 +97,7 @@ export function luRefactor(
     x[k] = 0;
     const a = Math.abs(pivot);
     const lEnd = Lp[k + 1]!;
+    // Unscaled singular test (see above); the fresh factorization's is row-scaled.
     if (!(a > singular * Math.max(colMax, uMax))) return clearFrom(x, Li, lBegin, lEnd);
     // L(:, k) = x/pivot, finding the largest candidate in the same pass (the values are discarded
     // when the test fails). No row scale is read here: the scaled test runs only for a pivot that

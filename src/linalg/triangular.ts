@@ -36,7 +36,7 @@ function scatterSubtract(
 }
 
 /** y is overwritten with L⁻¹y (L unit lower triangular, by columns). */
-export function lowerSolve(N: NumericLu, y: Float64Array): void {
+function lowerSolve(N: NumericLu, y: Float64Array): void {
   const { n, Lp, Li, Lx } = N;
   for (let j = 0; j < n; j++) {
     const yj = y[j]!;
@@ -45,7 +45,7 @@ export function lowerSolve(N: NumericLu, y: Float64Array): void {
 }
 
 /** y is overwritten with U⁻¹y (U upper triangular, by columns, diagonal in Ud). */
-export function upperSolve(N: NumericLu, y: Float64Array): void {
+function upperSolve(N: NumericLu, y: Float64Array): void {
   const { n, Up, Ui, Ux, Ud } = N;
   for (let j = n - 1; j >= 0; j--) {
     const yj = y[j]! / Ud[j]!;
@@ -55,7 +55,7 @@ export function upperSolve(N: NumericLu, y: Float64Array): void {
 }
 
 /** y is overwritten with U⁻ᵀy. */
-export function upperTransposeSolve(N: NumericLu, y: Float64Array): void {
+function upperTransposeSolve(N: NumericLu, y: Float64Array): void {
   const { n, Up, Ui, Ux, Ud } = N;
   for (let j = 0; j < n; j++) {
     let s = y[j]!;
@@ -66,7 +66,7 @@ export function upperTransposeSolve(N: NumericLu, y: Float64Array): void {
 }
 
 /** y is overwritten with L⁻ᵀy. */
-export function lowerTransposeSolve(N: NumericLu, y: Float64Array): void {
+function lowerTransposeSolve(N: NumericLu, y: Float64Array): void {
   const { n, Lp, Li, Lx } = N;
   for (let j = n - 1; j >= 0; j--) {
     let s = y[j]!;

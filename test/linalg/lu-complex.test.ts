@@ -2,16 +2,45 @@ import fc from 'fast-check';
 import { Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { compressPattern, createComplexSolver, createRealSolver } from '../../src/linalg/index.js';
-import { randomMna, scaledResidualComplex, seeded, toDenseRealForm } from './mna-matrices.js';
-import { stageChain } from './stage-chain.js';
+import { mnaCases, scaledResidualComplex, toDenseRealForm } from './mna-matrices.js';
+import { type StageChainValues, stageChain } from './stage-chain.js';
 
 /** Random MNA-shaped admittance matrices G + jωC: sizes 1…50 nodes, up to 8 sources, 12 gm. */
-const mnaCase = fc
-  .record({ seed: fc.integer(), nodes: fc.integer({ min: 1, max: 50 }), sources: fc.nat(8), gms: fc.nat(12) })
-  .map(({ seed, nodes, sources, gms }) => {
-    const rand = seeded(seed);
-    return { rand, m: randomMna(rand, nodes, sources, gms) };
+const mnaCase = mnaCases(50);
+
+/** A stage chain with zeroed value arrays of length nnz and a fresh complex solver on it. */
+function chainWithSolver(values: StageChainValues) {
+  const chain = stageChain(values);
+  return {
+    chain,
+    n: chain.pattern.n,
+    Ax: new Float64Array(chain.nnz),
+    Az: new Float64Array(chain.nnz),
+    solver: createComplexSolver(chain.pattern),
+  };
+}
+
+/**
+ * The LC tank of the resonance tests, [[1, −1], [−1, 1 + jB]]: node 1 tied to ground by an
+ * inductor L = 1 µH and a capacitor C tuned to 1 MHz, and to node 0 by 1 S. tune(f) sets
+ * B = ωfC − 1/(ωL), zero at f = 1 up to rounding (Kirchhoff; common practice, no source).
+ */
+function lcTank() {
+  const { pattern, slots } = compressPattern(2, [0, 0, 1, 1], [0, 1, 0, 1]);
+  const Ax = new Float64Array(pattern.Ap[2]! + 1);
+  const Az = new Float64Array(pattern.Ap[2]! + 1);
+  [1, -1, -1, 1].forEach((g, t) => {
+    Ax[slots[t]!]! += g;
   });
+  const omega = 2 * Math.PI * 1e6;
+  const L = 1e-6;
+  const C = 1 / (omega * omega * L);
+  const tune = (f: number): number => {
+    Az[slots[3]!] = omega * f * C - 1 / (omega * L);
+    return Az[slots[3]!]!;
+  };
+  return { pattern, Ax, Az, tune };
+}
 
 /** A complex right-hand side with a trash slot at index n on both parts. */
 function rhs(rand: () => number, n: number): { re: Float64Array; im: Float64Array } {
@@ -146,25 +175,16 @@ describe('the sparse complex LU solver', () => {
   // The matrix [[1, −1], [−1, 1 + jB]] has determinant jB, zero at resonance up to rounding
   // (Kirchhoff; common practice, no source). Just off resonance the same pattern factors.
   it('reports an LC tank at resonance as singular, relative to its 1 S neighbour, and factors it off resonance', () => {
-    const { pattern, slots } = compressPattern(2, [0, 0, 1, 1], [0, 1, 0, 1]);
-    const Ax = new Float64Array(pattern.Ap[2]! + 1);
-    const Az = new Float64Array(pattern.Ap[2]! + 1);
-    [1, -1, -1, 1].forEach((g, t) => {
-      Ax[slots[t]!]! += g;
-    });
-    const omega = 2 * Math.PI * 1e6;
-    const L = 1e-6;
-    const C = 1 / (omega * omega * L);
+    const { pattern, Ax, Az, tune } = lcTank();
     const solver = createComplexSolver(pattern);
-    Az[slots[3]!] = omega * C - 1 / (omega * L); // |B| ≤ a few 1e-16
+    tune(1); // |B| ≤ a few 1e-16
     expect([1, 2]).toContain(solver.factor(Ax, Az));
-    Az[slots[3]!] = omega * 1.01 * C - 1 / (omega * L); // B ≈ 0.0100 S
+    const B = tune(1.01); // B ≈ 0.0100 S
     expect(solver.factor(Ax, Az)).toBe(0);
     // 1 A into node 0: the current flows through the susceptance B, so v1 = 1/(jB), v0 = v1 + 1.
     const br = Float64Array.from([1, 0, 0]);
     const bi = new Float64Array(3);
     solver.solve(br, bi);
-    const B = Az[slots[3]!]!;
     expect(br[1]).toBeCloseTo(0, 9);
     expect(bi[1]! * B).toBeCloseTo(-1, 9);
     expect(br[0]).toBeCloseTo(1, 9);
@@ -192,7 +212,7 @@ describe('the sparse complex LU solver', () => {
   // must keep the order (Duff, Erisman & Reid, "Direct Methods for Sparse Matrices", 1986, §5.4:
   // any row within the threshold may be taken, so the one the ordering chose is).
   it('keeps the fill of the first factorization when a far frequency is factored afresh on the kept analysis', () => {
-    const chain = stageChain({
+    const { chain, n, Ax, Az, solver } = chainWithSolver({
       stages: 333,
       couplingFarads: 100e-6,
       bypassFarads: 0,
@@ -201,10 +221,6 @@ describe('the sparse complex LU solver', () => {
       beta: 150,
       earlyVolts: 90,
     });
-    const n = chain.pattern.n;
-    const Ax = new Float64Array(chain.nnz);
-    const Az = new Float64Array(chain.nnz);
-    const solver = createComplexSolver(chain.pattern);
     chain.assemble(10, Ax, Az);
     expect(solver.factor(Ax, Az)).toBe(0);
     const fill = (): number => solver.statistics().nnzL + solver.statistics().nnzU;
@@ -231,12 +247,13 @@ describe('the sparse complex LU solver', () => {
   // Ten high-gain stages (emitters bypassed; at 15.85 Hz about 30 dB each, 295 dB from input to
   // last collector, 79 dB at 1 Hz): the analysis made at 1 Hz orders the columns so that, at
   // 15.85 Hz, the gain piles up in U and a base column's last candidate falls below the 1e-13
-  // relative test, though an analysis of the 15.85 Hz values factors the same matrix. Before a column is reported, the solver analyses
-  // the present values again (as a fresh solver would) and factors once more.
+  // relative test, though an analysis of the 15.85 Hz values factors the same matrix. Before a
+  // column is reported, the solver analyses the present values again (as a fresh solver would)
+  // and factors once more.
   // With the unscaled singular test the fresh factorization failed on column b8 here and needed a
   // re-analysis; the row-scaled test accepts the pivot on the first analysis. Either way it must factor.
   it('factors the values of a far frequency after a failed refactorization, re-analysing only if it must', () => {
-    const chain = stageChain({
+    const { chain, n, Ax, Az, solver } = chainWithSolver({
       stages: 10,
       couplingFarads: 10e-6,
       bypassFarads: 1e-4,
@@ -245,10 +262,6 @@ describe('the sparse complex LU solver', () => {
       beta: 300,
       earlyVolts: 200,
     });
-    const n = chain.pattern.n;
-    const Ax = new Float64Array(chain.nnz);
-    const Az = new Float64Array(chain.nnz);
-    const solver = createComplexSolver(chain.pattern);
     chain.assemble(1, Ax, Az);
     expect(solver.factor(Ax, Az)).toBe(0);
     chain.assemble(15.85, Ax, Az);
@@ -273,20 +286,11 @@ describe('the sparse complex LU solver', () => {
   // A truly singular matrix is still reported after the second analysis: the LC tank at resonance
   // (the test above) factored first off resonance, so the resonance values reach a fallback.
   it('still reports a singular column after analysing the present values again', () => {
-    const { pattern, slots } = compressPattern(2, [0, 0, 1, 1], [0, 1, 0, 1]);
-    const Ax = new Float64Array(pattern.Ap[2]!);
-    const Az = new Float64Array(pattern.Ap[2]!);
-    Ax[slots[0]!] = 1;
-    Ax[slots[1]!] = -1;
-    Ax[slots[2]!] = -1;
-    Ax[slots[3]!] = 1;
-    const omega = 2 * Math.PI * 1e6;
-    const L = 1e-6;
-    const C = 1 / (omega * omega * L);
+    const { pattern, Ax, Az, tune } = lcTank();
     const solver = createComplexSolver(pattern);
-    Az[slots[3]!] = omega * 1.01 * C - 1 / (omega * L);
+    tune(1.01);
     expect(solver.factor(Ax, Az)).toBe(0);
-    Az[slots[3]!] = omega * C - 1 / (omega * L);
+    tune(1);
     expect([1, 2]).toContain(solver.factor(Ax, Az));
     expect(solver.statistics()).toMatchObject({ fallbacks: 1, reanalyses: 1 });
   });

@@ -6,6 +6,7 @@
  * Construction: common practice of nodal analysis (Ho, Ruehli & Brennan, "The modified nodal
  * approach to network analysis", IEEE Trans. Circuits Syst. 22, 1975).
  */
+import fc from 'fast-check';
 import { compressPattern } from '../../src/linalg/csc.js';
 import type { CscPattern } from '../../src/linalg/types.js';
 
@@ -36,6 +37,24 @@ export interface MnaMatrix {
   readonly slots: Int32Array;
   /** Index of each voltage-source branch row. */
   readonly branches: number[];
+}
+
+/**
+ * fast-check cases of random MNA-shaped matrices: 1…maxNodes nodes, up to 8 sources and 12
+ * transconductances, with the seeded generator that built them (for right-hand sides).
+ */
+export function mnaCases(maxNodes: number): fc.Arbitrary<{ rand: Random; m: MnaMatrix }> {
+  return fc
+    .record({
+      seed: fc.integer(),
+      nodes: fc.integer({ min: 1, max: maxNodes }),
+      sources: fc.nat(8),
+      gms: fc.nat(12),
+    })
+    .map(({ seed, nodes, sources, gms }) => {
+      const rand = seeded(seed);
+      return { rand, m: randomMna(rand, nodes, sources, gms) };
+    });
 }
 
 /** Build a random MNA-shaped matrix; ground is index −1 and is dropped from the stamps. */
