@@ -9,6 +9,7 @@ import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { type AcAnalysisJson, acAnalysisToJson } from '../report/result-json.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { currentReader, type ProbeReader, probeReader, voltageReader } from './distortion-probe.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { checkAscending, crossings, decibels, unwrappedPhase } from './frequency-response.js';
 import { nodeAt, type OperatingPoint } from './operating-point.js';
@@ -78,15 +79,7 @@ export class AcAnalysis {
   /** The peak voltage phasor of `node` against `reference` (ground by default) at every frequency, in V. */
   voltage(node: string, reference: string = GROUND): Complex[] {
     const system = this.operatingPoint.system;
-    const a = nodeAt(system, node);
-    const b = nodeAt(system, reference);
-    const stride = system.n + 1;
-    const out: Complex[] = new Array(this.frequencies.length);
-    for (let k = 0; k < this.frequencies.length; k++) {
-      const base = k * stride;
-      out[k] = new Complex(this.re[base + a]! - this.re[base + b]!, this.im[base + a]! - this.im[base + b]!);
-    }
-    return out;
+    return this.#phasors(voltageReader(nodeAt(system, node), nodeAt(system, reference)));
   }
 
   /**
@@ -95,37 +88,28 @@ export class AcAnalysis {
    * sources their output branch, an op-amp the current out of its output).
    */
   current(element: string): Complex[] {
-    const system = this.operatingPoint.system;
-    const device = system.deviceByName.get(element);
-    if (device === undefined) throw unknownElement(element);
-    if (device.acCurrent === undefined) {
-      throw unknownElement(
-        element,
-        'it has no single small-signal current; read its terminals through voltages',
-      );
-    }
-    const stride = system.n + 1;
-    const out: Complex[] = new Array(this.frequencies.length);
-    const value = new Float64Array(2);
-    const x = this.operatingPoint.x;
-    for (let k = 0; k < this.frequencies.length; k++) {
-      const xr = this.re.subarray(k * stride, (k + 1) * stride);
-      const xi = this.im.subarray(k * stride, (k + 1) * stride);
-      device.acCurrent(xr, xi, 2 * Math.PI * this.frequencies[k]!, x, value);
-      out[k] = new Complex(value[0]!, value[1]!);
-    }
-    return out;
+    const op = this.operatingPoint;
+    return this.#phasors(currentReader(op.system, op.x, element, false));
   }
 
   /** The phasor a {@link Probe} reads at every frequency (V for voltages, A for currents). */
   response(probe: Probe): Complex[] {
-    if (typeof probe === 'string') return this.voltage(probe);
-    if (probe !== null && typeof probe === 'object') {
-      if ('element' in probe && typeof probe.element === 'string') return this.current(probe.element);
-      if ('node' in probe && typeof probe.node === 'string')
-        return this.voltage(probe.node, probe.reference ?? GROUND);
+    const op = this.operatingPoint;
+    return this.#phasors(probeReader(op.system, op.x, probe, false, 'probe'));
+  }
+
+  /** What `read` finds in the stored solution at every frequency. */
+  #phasors(read: ProbeReader): Complex[] {
+    const stride = this.operatingPoint.system.n + 1;
+    const out: Complex[] = new Array(this.frequencies.length);
+    const value = new Float64Array(2);
+    for (let k = 0; k < this.frequencies.length; k++) {
+      const xr = this.re.subarray(k * stride, (k + 1) * stride);
+      const xi = this.im.subarray(k * stride, (k + 1) * stride);
+      read(xr, xi, 2 * Math.PI * this.frequencies[k]!, value);
+      out[k] = new Complex(value[0]!, value[1]!);
     }
-    throw invalidValue(['probe'], probe, 'a node name, { node, reference? } or { element }');
+    return out;
   }
 
   /** output/input at every frequency: a voltage gain for two node probes, a transimpedance for a voltage over a current, … */

@@ -35,7 +35,7 @@ const FREQUENCY_AFFINE_KINDS: ReadonlySet<ElementKind> = new Set<ElementKind>([
 ]);
 
 /** Relative residual above which a complex solve is refused as numerically singular. */
-export const AC_RESIDUAL_LIMIT = 1e-9;
+const AC_RESIDUAL_LIMIT = 1e-9;
 
 /** The small-signal system of one operating point, reused across frequencies. */
 export class AcWorkspace {

@@ -13,13 +13,15 @@ import { nodeAt } from './operating-point.js';
 export type ProbeReader = (xr: Float64Array, xi: Float64Array, omega: number, out: Float64Array) => void;
 
 /**
- * A reader for `probe`, checked at once.
+ * A reader for `probe`, checked at once. `AcAnalysis.response` reads the stored solutions through
+ * it too, so the two never disagree on what a probe means.
  *
  * @param system - the compiled circuit
  * @param x - the operating point the devices are linearized at
  * @param probe - a node name, `{ node, reference? }` or `{ element }`
  * @param harmonic - whether the solutions read carry no source excitation (the 2nd and 3rd harmonic):
  *   an independent current source then carries no current, whatever its AC value
+ * @param option - the option name an unreadable probe is reported under (default `'output'`)
  * @throws QuiescentError `unknown-node`, `unknown-element`, `invalid-value`
  */
 export function probeReader(
@@ -27,52 +29,64 @@ export function probeReader(
   x: Float64Array,
   probe: Probe,
   harmonic: boolean,
+  option = 'output',
 ): ProbeReader {
   if (typeof probe === 'string') return voltageReader(nodeAt(system, probe), system.n);
   if (probe !== null && typeof probe === 'object') {
     if ('element' in probe && typeof probe.element === 'string') {
-      const device = system.deviceByName.get(probe.element);
-      if (device === undefined) throw unknownElement(probe.element);
-      const acCurrent = device.acCurrent?.bind(device);
-      if (acCurrent === undefined) {
-        throw unknownElement(
-          probe.element,
-          'it has no single small-signal current; read its terminals through voltages',
-        );
-      }
-      if (harmonic && device.nonlinear) {
-        // At 2f and 3f a nonlinear element's current holds its own nonlinear current besides the
-        // linear response, which acCurrent does not know of.
-        throw unknownElement(
-          probe.element,
-          'the harmonics of a nonlinear device current are not estimated; read a linear element in series with it',
-        );
-      }
-      if (harmonic && device.record.kind === 'current-source') {
-        return (_xr, _xi, _omega, out) => {
-          out[0] = 0;
-          out[1] = 0;
-        };
-      }
-      return (xr, xi, omega, out) => acCurrent(xr, xi, omega, x, out);
+      return currentReader(system, x, probe.element, harmonic);
     }
     if ('node' in probe && typeof probe.node === 'string') {
-      const a = nodeAt(system, probe.node);
-      const b = nodeAt(system, probe.reference ?? GROUND);
-      return (xr, xi, _omega, out) => {
-        out[0] = xr[a]! - xr[b]!;
-        out[1] = xi[a]! - xi[b]!;
-      };
+      return voltageReader(nodeAt(system, probe.node), nodeAt(system, probe.reference ?? GROUND));
     }
   }
-  throw invalidValue(['output'], probe, 'a node name, { node, reference? } or { element }');
+  throw invalidValue([option], probe, 'a node name, { node, reference? } or { element }');
 }
 
-function voltageReader(a: number, ground: number): ProbeReader {
+/** Reads v(a) − v(b), two unknown indices (the ground index n for ground). */
+export function voltageReader(a: number, b: number): ProbeReader {
   return (xr, xi, _omega, out) => {
-    out[0] = xr[a]! - xr[ground]!;
-    out[1] = xi[a]! - xi[ground]!;
+    out[0] = xr[a]! - xr[b]!;
+    out[1] = xi[a]! - xi[b]!;
   };
+}
+
+/**
+ * Reads the small-signal current of `element` by the sign conventions of `OperatingPoint.current`.
+ *
+ * @throws QuiescentError `unknown-element` for a missing element, one without a single current, or
+ *   (with `harmonic`) a nonlinear one
+ */
+export function currentReader(
+  system: CompiledSystem,
+  x: Float64Array,
+  element: string,
+  harmonic: boolean,
+): ProbeReader {
+  const device = system.deviceByName.get(element);
+  if (device === undefined) throw unknownElement(element);
+  const acCurrent = device.acCurrent?.bind(device);
+  if (acCurrent === undefined) {
+    throw unknownElement(
+      element,
+      'it has no single small-signal current; read its terminals through voltages',
+    );
+  }
+  if (harmonic && device.nonlinear) {
+    // At 2f and 3f a nonlinear element's current holds its own nonlinear current besides the
+    // linear response, which acCurrent does not know of.
+    throw unknownElement(
+      element,
+      'the harmonics of a nonlinear device current are not estimated; read a linear element in series with it',
+    );
+  }
+  if (harmonic && device.record.kind === 'current-source') {
+    return (_xr, _xi, _omega, out) => {
+      out[0] = 0;
+      out[1] = 0;
+    };
+  }
+  return (xr, xi, omega, out) => acCurrent(xr, xi, omega, x, out);
 }
 
 /** A short text naming a probe, for reports and messages. */

@@ -139,10 +139,7 @@ export function distortion(ac: AcAnalysis, options: DistortionOptions): Distorti
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output to estimate');
   }
-  const scale = options.scale ?? 1;
-  if (typeof scale !== 'number' || !Number.isFinite(scale) || scale <= 0) {
-    throw invalidValue(['scale'], scale, 'a finite factor > 0');
-  }
+  const scale = checkDriveScale(options.scale ?? 1);
   const indices = frequencyIndices(ac, options.frequency);
   const op = ac.operatingPoint;
   const system = op.system;
@@ -211,6 +208,14 @@ export function distortion(ac: AcAnalysis, options: DistortionOptions): Distorti
   return { output: options.output, outputName: describeProbe(options.output), scale, points };
 }
 
+/** Check the factor every AC source is scaled by: a finite number > 0. Shared with the quasi-static check. */
+export function checkDriveScale(scale: unknown): number {
+  if (typeof scale !== 'number' || !Number.isFinite(scale) || scale <= 0) {
+    throw invalidValue(['scale'], scale, 'a finite factor > 0');
+  }
+  return scale;
+}
+
 /** The indices of the analysed frequencies to estimate at. */
 function frequencyIndices(ac: AcAnalysis, frequency: number | undefined): number[] {
   const all = Array.from(ac.frequencies.keys());
@@ -268,10 +273,12 @@ function controlPhasors(
   outRe: Float64Array,
   outIm: Float64Array,
 ): void {
-  current.controls.forEach(({ plus, minus }, a) => {
+  const controls = current.controls;
+  for (let a = 0; a < controls.length; a++) {
+    const { plus, minus } = controls[a]!;
     outRe[a] = xr[plus]! - xr[minus]!;
     outIm[a] = xi[plus]! - xi[minus]!;
-  });
+  }
 }
 
 /** I⁽²⁾ = ¼ Σ_ab f_ab·V_a·V_b into injected[i]. */
@@ -372,11 +379,12 @@ function solveShares(
     const im = work.shareIm[g]!;
     re.fill(0);
     im.fill(0);
-    injections.forEach(({ current, group }, i) => {
-      if (group !== g) return;
+    for (let i = 0; i < injections.length; i++) {
+      const { current, group } = injections[i]!;
+      if (group !== g) continue;
       addCurrent(re, current.from, current.to, work.injectedRe[i]!);
       addCurrent(im, current.from, current.to, work.injectedIm[i]!);
-    });
+    }
     workspace.solve(re, im);
     read(re, im, omega, work.value);
     shares.push(new Complex(work.value[0]! * factor, work.value[1]! * factor));

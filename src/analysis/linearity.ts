@@ -22,6 +22,7 @@ import {
 } from '../math/junction-nonlinearity.js';
 import { type LinearityReportJson, linearityToJson } from '../report/result-json.js';
 import type { AcAnalysis } from './ac-analysis.js';
+import { forwardBias } from './junction-bias.js';
 import { prepareDevices } from './newton.js';
 
 /** Default budget of the first-order error bound: 10 % of the linear term. */
@@ -97,7 +98,7 @@ export interface LinearityReport {
 }
 
 /** Check a budget option: a finite number > 0. */
-export function checkBudget(budget: unknown): number {
+function checkBudget(budget: unknown): number {
   if (budget === undefined) return DEFAULT_LINEARITY_BUDGET;
   if (typeof budget !== 'number' || !Number.isFinite(budget) || budget <= 0) {
     throw invalidValue(['budget'], budget, 'a finite positive error bound (such as 0.1)');
@@ -151,11 +152,7 @@ export function linearity(ac: AcAnalysis, options: LinearityOptions = {}): Linea
       const amplitude = amplitudes[worst]!;
       const x = amplitude / probe.scale;
       const channel = probe.junction === 'channel';
-      const record = device.record;
-      const mirrored =
-        (record.kind === 'bjt' && record.polarity === 'pnp') ||
-        (record.kind === 'mosfet' && record.polarity === 'pmos');
-      const bias = (mirrored ? -1 : 1) * (op.x[probe.plus]! - op.x[probe.minus]!);
+      const bias = forwardBias(device.record, probe, op.x);
       const figures = channel ? channelNonlinearity(x) : junctionNonlinearity(x);
       junctions.push({
         device: device.name,

@@ -194,13 +194,10 @@ function trySolve(ws: NewtonWorkspace): number {
   return 0;
 }
 
+/** {@link trySolve}, throwing `singular` (with `context`) where it found no pivot. */
 function step(ws: NewtonWorkspace, context: string): void {
-  const status = ws.solver.factor(ws.A);
+  const status = trySolve(ws);
   if (status !== 0) throw singularAt(ws.system, status - 1, context);
-  ws.previous.set(ws.x);
-  ws.x.set(ws.b);
-  ws.solver.solve(ws.x);
-  ws.x[ws.system.n] = 0;
 }
 
 /** The `singular` error for unknown k: its node or branch, and the elements that touch it. */

@@ -10,6 +10,7 @@ import { noConvergence, unknownElement, unknownNode } from '../errors/messages.j
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
 import { type CompiledSystem, compileCircuit } from '../mna/system.js';
 import { type OperatingPointJson, operatingPointToJson } from '../report/operating-point-json.js';
+import { forwardBias } from './junction-bias.js';
 import {
   measureResidual,
   type NewtonOutcome,
@@ -126,9 +127,8 @@ export class OperatingPoint {
     for (const device of this.system.devices) {
       for (const probe of device.junctions?.(this.x) ?? []) {
         if (probe.junction === 'channel') continue;
-        const record = device.record;
-        const sign = record.kind === 'bjt' && record.polarity === 'pnp' ? -1 : 1;
-        const exponent = (sign * (this.x[probe.plus]! - this.x[probe.minus]!)) / probe.scale;
+        // Channels were skipped above, so of the mirrored devices only a pnp reaches here.
+        const exponent = forwardBias(device.record, probe, this.x) / probe.scale;
         if (exponent > EXP_LIMIT) {
           out.push(
             `${probe.junction} junction of '${device.name}' at ${exponent.toFixed(0)}·n·Vt, beyond the ` +

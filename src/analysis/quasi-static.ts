@@ -17,7 +17,7 @@ import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import type { AcAnalysis, Probe } from './ac-analysis.js';
 import { acAnalysis } from './ac-analysis.js';
-import { type DistortionPoint, distortion } from './distortion.js';
+import { checkDriveScale, type DistortionPoint, distortion } from './distortion.js';
 import { describeProbe } from './distortion-probe.js';
 import {
   conditionsAt,
@@ -109,9 +109,7 @@ export function quasiStaticHarmonics(circuit: Circuit, options: QuasiStaticOptio
   if (typeof phases !== 'number' || !Number.isInteger(phases) || phases < 8) {
     throw invalidValue(['phases'], phases, 'a whole number of phases ≥ 8');
   }
-  if (typeof scale !== 'number' || !Number.isFinite(scale) || scale <= 0) {
-    throw invalidValue(['scale'], scale, 'a finite factor > 0');
-  }
+  checkDriveScale(scale);
   const given = Object.fromEntries(Object.entries(rest).filter(([, v]) => v !== undefined));
   const solver = prepareSolver(circuit, { ...CHECK_TOLERANCES, ...given });
   const read = outputReader(solver, output);

@@ -7,22 +7,11 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { acAnalysis } from '../../src/analysis/ac-analysis.js';
 import { logSweep } from '../../src/analysis/frequency-grid.js';
-import { Circuit, GROUND, operatingPoint, QuiescentError } from '../../src/index.js';
+import { Circuit, GROUND, operatingPoint } from '../../src/index.js';
 import { expectRelativelyClose } from '../support/close.js';
+import { expectQuiescentError } from '../support/quiescent-error.js';
 
 const DEG = 180 / Math.PI;
-
-function expectQuiescentError(run: () => unknown, code: string, mentions: string): void {
-  let caught: unknown;
-  try {
-    run();
-  } catch (error) {
-    caught = error;
-  }
-  expect(caught).toBeInstanceOf(QuiescentError);
-  expect((caught as QuiescentError).code).toBe(code);
-  expect((caught as QuiescentError).message).toContain(mentions);
-}
 
 describe('acAnalysis on first-order RC filters', () => {
   // R = 1.5 kΩ, C = 47 nF: f_c = 1/(2πRC) ≈ 2.258 kHz.

@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { Circuit, dcSweep, GROUND, operatingPoint, QuiescentError, thermalVoltage } from '../../src/index.js';
+import { Circuit, dcSweep, GROUND, operatingPoint, thermalVoltage } from '../../src/index.js';
 import { expectRelativelyClose } from '../support/close.js';
 import { diodeSeriesResistorSolution } from '../support/diode-series-resistor.js';
+import { thrown } from '../support/quiescent-error.js';
 
 const IS = 1e-14;
 /** The reference has no junction conductance; tight tolerances make the comparison exact. */
@@ -23,16 +24,6 @@ function lambert(supply: number, resistance: number, temperature = 300.15) {
     emissionCoefficient: 1,
     thermalVoltage: thermalVoltage(temperature),
   });
-}
-
-function thrown(f: () => unknown): QuiescentError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof QuiescentError) return e;
-    throw e;
-  }
-  throw new Error('expected a QuiescentError');
 }
 
 describe('dcSweep over a source value', () => {

@@ -219,15 +219,7 @@ describe('the distortion estimate of transistor stages against the quasi-static 
     // Source: quasi-static check. With λ > 0 the drain voltage feeds back on the channel current, so
     // the 3rd harmonic comes from the interaction term ½·f_ab·V_a·W_b alone (the square law has no
     // cubic term).
-    const c = new Circuit()
-      .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
-      .voltageSource('VG', 'g', GROUND, { dc: 1.7, ac: 0.1 })
-      .resistor('RD', 'vdd', 'd', '5k')
-      .mosfet(
-        'M1',
-        { drain: 'd', gate: 'g', source: GROUND },
-        { polarity: 'nmos', channelLengthModulation: 0.05 },
-      );
+    const c = nmosCommonSource(1.7, 0.1, 0.05);
     const result = checkDistortion(c, { output: 'd' });
     expect(result.check.thirdRatio).toBeGreaterThan(1e-5);
     expectRelativelyClose(result.estimate.thirdRatio, result.check.thirdRatio, THIRD_TOLERANCE, '3rd');
@@ -260,18 +252,7 @@ describe('the distortion estimate of transistor stages against the quasi-static 
           { polarity: 'nmos', bodyEffect: 0.5, channelLengthModulation: 0.02 },
         ),
     ],
-    [
-      'an nmos stage in the triode region',
-      new Circuit()
-        .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
-        .voltageSource('VG', 'g', GROUND, { dc: 3, ac: 0.05 })
-        .resistor('RD', 'vdd', 'd', '5k')
-        .mosfet(
-          'M1',
-          { drain: 'd', gate: 'g', source: GROUND },
-          { polarity: 'nmos', channelLengthModulation: 0.02 },
-        ),
-    ],
+    ['an nmos stage in the triode region', nmosCommonSource(3, 0.05, 0.02)],
   ];
   for (const [label, circuit] of mosfetStages) {
     it(`agrees with the quasi-static check on ${label}`, () => {
@@ -329,3 +310,12 @@ describe('distortion arguments', () => {
     });
   }
 });
+
+/** An nmos common-source stage: 10 V supply, 5 kΩ drain load, the gate driven at `gate` V ± `swing` V. */
+function nmosCommonSource(gate: number, swing: number, channelLengthModulation: number): Circuit {
+  return new Circuit()
+    .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
+    .voltageSource('VG', 'g', GROUND, { dc: gate, ac: swing })
+    .resistor('RD', 'vdd', 'd', '5k')
+    .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', channelLengthModulation });
+}

@@ -3,19 +3,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { linearSweep, logSweep } from '../../src/analysis/frequency-grid.js';
-import { QuiescentError } from '../../src/index.js';
 import { expectRelativelyClose } from '../support/close.js';
+import { expectQuiescentError } from '../support/quiescent-error.js';
 
 function expectInvalid(run: () => unknown, mentions: string): void {
-  let caught: unknown;
-  try {
-    run();
-  } catch (error) {
-    caught = error;
-  }
-  expect(caught).toBeInstanceOf(QuiescentError);
-  expect((caught as QuiescentError).code).toBe('invalid-value');
-  expect((caught as QuiescentError).message).toContain(mentions);
+  expectQuiescentError(run, 'invalid-value', mentions);
 }
 
 describe('logSweep', () => {
@@ -46,11 +38,13 @@ describe('logSweep', () => {
   });
 
   it('gives one point when start equals stop, and two for less than a step', () => {
+    // Source: a log grid keeps both ends and never spaces wider than asked (common practice, no source).
     expect(Array.from(logSweep(50, 50, 10))).toEqual([50]);
     expect(Array.from(logSweep(100, 101, 10))).toEqual([100, 101]);
   });
 
   it('refuses zero, negative, non-finite and reversed arguments', () => {
+    // Source: the contract's `invalid-value` for every bad input (API.md).
     expectInvalid(() => logSweep(0, 10, 10), 'start');
     expectInvalid(() => logSweep(-1, 10, 10), 'start');
     expectInvalid(() => logSweep(1, Number.POSITIVE_INFINITY, 10), 'stop');
@@ -72,11 +66,13 @@ describe('linearSweep', () => {
   });
 
   it('allows a descending grid and a single point where start equals stop', () => {
+    // Source: an arithmetic grid runs either way (common practice, no source).
     expect(Array.from(linearSweep(3, 1, 3))).toEqual([3, 2, 1]);
     expect(Array.from(linearSweep(5, 5, 1))).toEqual([5]);
   });
 
   it('refuses non-finite ends and a count that is not a whole number of at least 2', () => {
+    // Source: the contract's `invalid-value` for every bad input (API.md).
     expectInvalid(() => linearSweep(Number.NaN, 1, 3), 'start');
     expectInvalid(() => linearSweep(0, Number.POSITIVE_INFINITY, 3), 'stop');
     expectInvalid(() => linearSweep(0, 1, 1), 'count');

@@ -26,6 +26,7 @@ describe('unwrappedPhase', () => {
   });
 
   it('starts in (−180°, 180°] and unwraps upwards as well', () => {
+    // Source: the principal value of arg lies in (−180°, 180°] (common practice, no source).
     const degrees = [170, 190, 300, 370];
     const h = degrees.map((d) => new Complex({ abs: 2, arg: (d * Math.PI) / 180 }));
     const phase = unwrappedPhase(h);
@@ -46,6 +47,8 @@ describe('crossings', () => {
   });
 
   it('finds every crossing of a band-pass, rising and falling, and none when the level is never reached', () => {
+    // Source: −10 dB lies halfway in dB between −20 and 0 dB, so at the geometric mean of the decade's
+    // ends: √10 and 1000·√10 Hz (common practice, no source).
     const f = Float64Array.of(1, 10, 100, 1e3, 1e4);
     const level = Float64Array.of(-20, 0, 0, 0, -20);
     const at = crossings(f, level, -10);
@@ -56,6 +59,8 @@ describe('crossings', () => {
   });
 
   it('reports a point that lies exactly on the level once, and interpolates linearly from 0 Hz', () => {
+    // Source: linear interpolation on a segment from 0 Hz, where log f is undefined (common practice,
+    // no source).
     const f = Float64Array.of(0, 10, 20);
     const level = Float64Array.of(-6, 0, 6);
     expect(crossings(f, level, -3)).toEqual([5]);

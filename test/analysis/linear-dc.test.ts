@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { Circuit, type ErrorCode, GROUND, operatingPoint, QuiescentError } from '../../src/index.js';
+import { Circuit, type ErrorCode, GROUND, operatingPoint } from '../../src/index.js';
 import { expectRelativelyClose } from '../support/close.js';
+import { expectQuiescentError } from '../support/quiescent-error.js';
 
 /**
  * Linear DC circuits against their textbook closed forms. A linear solve is exact up to rounding, so
@@ -486,15 +487,7 @@ describe('linear DC operating point', () => {
       );
 
     function expectRejected(read: () => unknown, code: ErrorCode, name: string): void {
-      let error: unknown;
-      try {
-        read();
-      } catch (e) {
-        error = e;
-      }
-      expect(error).toBeInstanceOf(QuiescentError);
-      expect((error as QuiescentError).code).toBe(code);
-      expect((error as QuiescentError).message).toContain(`'${name}'`);
+      expectQuiescentError(read, code, `'${name}'`);
     }
 
     it('rejects a node the circuit lacks with unknown-node, naming it', () => {

@@ -5,6 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { Circuit, GROUND, type OperatingPoint, operatingPoint, QuiescentError } from '../../src/index.js';
+import { crossCoupledBistable } from '../support/bistable.js';
 import { worstKcl } from '../support/kcl.js';
 
 const NPN = { polarity: 'npn', forwardBeta: 100, earlyVoltage: 80 } as const;
@@ -128,16 +129,7 @@ describe('operatingPoint on hard circuits', () => {
   });
 
   it('settles a bistable (two cross-coupled transistors) at a solution with a tiny KCL residual', () => {
-    const c = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 5 })
-      .resistor('Rc1', 'vcc', 'c1', '1k')
-      .resistor('Rc2', 'vcc', 'c2', '1k')
-      .resistor('Rx1', 'c1', 'b2', '10k')
-      .resistor('Rx2', 'c2', 'b1', '10k')
-      .resistor('Rb1', 'b1', GROUND, '10k')
-      .resistor('Rb2', 'b2', GROUND, '10k')
-      .bjt('Q1', { collector: 'c1', base: 'b1', emitter: GROUND }, NPN)
-      .bjt('Q2', { collector: 'c2', base: 'b2', emitter: GROUND }, NPN);
+    const c = crossCoupledBistable(NPN);
     // Any of its three solutions is accepted; an initial guess that tips it one way must land there.
     expectKcl(c, operatingPoint(c));
     const tipped = operatingPoint(c, { initialGuess: { b1: 0.8, b2: 0 } });

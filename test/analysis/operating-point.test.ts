@@ -1,15 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { Circuit, GROUND, operatingPoint, QuiescentError } from '../../src/index.js';
-
-function thrown(f: () => unknown): QuiescentError {
-  try {
-    f();
-  } catch (e) {
-    if (e instanceof QuiescentError) return e;
-    throw e;
-  }
-  throw new Error('expected a QuiescentError');
-}
+import { Circuit, GROUND, operatingPoint } from '../../src/index.js';
+import { crossCoupledBistable } from '../support/bistable.js';
+import { thrown } from '../support/quiescent-error.js';
 
 function diodeChain(count: number): Circuit {
   const c = new Circuit().voltageSource('V1', 'n0', GROUND, { dc: 20 }).resistor('R1', 'n0', 'n1', '10k');
@@ -31,6 +23,7 @@ describe('operatingPoint strategies', () => {
   });
 
   it('records plain Newton when it succeeds', () => {
+    // Source: the contract's strategy names and attempts (API.md).
     const op = operatingPoint(diodeChain(3));
     expect(op.strategy).toBe('newton');
     expect(op.attempts).toEqual([{ strategy: 'newton', iterations: op.iterations, converged: true }]);
@@ -48,18 +41,10 @@ describe('operatingPoint strategies', () => {
   });
 
   it('starts from the initial guess given per node', () => {
-    // The bistable of the hard-circuit tests settles on the side the guess favours.
+    // The bistable of the hard-circuit tests settles on the side the guess favours; a saturated
+    // transistor's collector sits a few hundred mV above its emitter (from memory).
     const npn = { polarity: 'npn' } as const;
-    const c = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 5 })
-      .resistor('Rc1', 'vcc', 'c1', '1k')
-      .resistor('Rc2', 'vcc', 'c2', '1k')
-      .resistor('Rx1', 'c1', 'b2', '10k')
-      .resistor('Rx2', 'c2', 'b1', '10k')
-      .resistor('Rb1', 'b1', GROUND, '10k')
-      .resistor('Rb2', 'b2', GROUND, '10k')
-      .bjt('Q1', { collector: 'c1', base: 'b1', emitter: GROUND }, npn)
-      .bjt('Q2', { collector: 'c2', base: 'b2', emitter: GROUND }, npn);
+    const c = crossCoupledBistable(npn);
     const left = operatingPoint(c, { initialGuess: { b1: 0.8 } });
     const right = operatingPoint(c, { initialGuess: { b2: 0.8 } });
     expect(left.voltage('c1')).toBeLessThan(0.5);

@@ -6,22 +6,11 @@ import Complex from 'complex.js';
 import { describe, expect, it } from 'vitest';
 import { acAnalysis } from '../../src/analysis/ac-analysis.js';
 import { portImpedance } from '../../src/analysis/port-impedance.js';
-import { Circuit, GROUND, operatingPoint, QuiescentError } from '../../src/index.js';
+import { Circuit, GROUND, operatingPoint } from '../../src/index.js';
 import { expectRelativelyClose } from '../support/close.js';
+import { expectQuiescentError } from '../support/quiescent-error.js';
 
 const parallel = (...r: number[]) => 1 / r.reduce((sum, x) => sum + 1 / x, 0);
-
-function expectQuiescentError(run: () => unknown, code: string, mentions: string): void {
-  let caught: unknown;
-  try {
-    run();
-  } catch (error) {
-    caught = error;
-  }
-  expect(caught).toBeInstanceOf(QuiescentError);
-  expect((caught as QuiescentError).code).toBe(code);
-  expect((caught as QuiescentError).message).toContain(mentions);
-}
 
 function expectComplexClose(actual: Complex, expected: Complex, tolerance: number, what: string): void {
   const error = actual.sub(expected).abs() / expected.abs();
