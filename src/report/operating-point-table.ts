@@ -90,17 +90,21 @@ export function operatingPointTables(op: OperatingPoint, options: ReportOptions 
       }),
     },
   ];
-  const diodes = records.filter((r) => r.kind === 'diode').map((r) => op.diode(r.name));
-  const bjts = records.filter((r) => r.kind === 'bjt').map((r) => op.bjt(r.name));
-  const mosfets = records.filter((r) => r.kind === 'mosfet').map((r) => op.mosfet(r.name));
   const names = (kind: string) => records.filter((r) => r.kind === kind).map((r) => r.name);
-  if (diodes.length > 0)
-    tables.push(deviceTable('Diodes', names('diode'), diodes, DIODE_COLUMNS, false, digits));
+  const diodes = names('diode');
+  const bjts = names('bjt');
+  const mosfets = names('mosfet');
+  if (diodes.length > 0) {
+    const reports = diodes.map((name) => op.diode(name));
+    tables.push(deviceTable('Diodes', diodes, reports, DIODE_COLUMNS, false, digits));
+  }
   if (bjts.length > 0) {
-    tables.push(deviceTable('Bipolar transistors', names('bjt'), bjts, BJT_COLUMNS, true, digits));
+    const reports = bjts.map((name) => op.bjt(name));
+    tables.push(deviceTable('Bipolar transistors', bjts, reports, BJT_COLUMNS, true, digits));
   }
   if (mosfets.length > 0) {
-    tables.push(deviceTable('MOSFETs', names('mosfet'), mosfets, MOSFET_COLUMNS, true, digits));
+    const reports = mosfets.map((name) => op.mosfet(name));
+    tables.push(deviceTable('MOSFETs', mosfets, reports, MOSFET_COLUMNS, true, digits));
   }
   return tables;
 }

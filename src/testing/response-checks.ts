@@ -49,6 +49,25 @@ function subjectOf(what: string, at: ResponsePoint): string {
   return `${what} ${ratio} at ${formatValue(at.frequency, 'Hz')}`;
 }
 
+/**
+ * The value of a response series at the analysed frequency of `at`, read in the order the errors are
+ * reported (frequency, probes, then the expectation, which must be a finite number).
+ */
+function responseAt(
+  ac: AcAnalysis,
+  at: ResponsePoint,
+  series: () => Float64Array,
+  expected: number,
+  expectation: string,
+): number {
+  const k = frequencyIndex(ac, at.frequency);
+  const actual = series()[k]!;
+  if (typeof expected !== 'number' || !Number.isFinite(expected)) {
+    throw invalidValue(['expected'], expected, expectation);
+  }
+  return actual;
+}
+
 const showDb = (value: number): string => `${Number(value.toPrecision(6))} dB`;
 const showDegrees = (value: number): string => `${Number(value.toPrecision(6))}°`;
 
@@ -68,11 +87,13 @@ export function checkGain(
   expectedDb: number,
   tolerance: Tolerance,
 ): CheckResult {
-  const k = frequencyIndex(ac, at.frequency);
-  const actual = ac.magnitudeDb(at.output, at.input)[k]!;
-  if (typeof expectedDb !== 'number' || !Number.isFinite(expectedDb)) {
-    throw invalidValue(['expected'], expectedDb, 'a finite level in dB');
-  }
+  const actual = responseAt(
+    ac,
+    at,
+    () => ac.magnitudeDb(at.output, at.input),
+    expectedDb,
+    'a finite level in dB',
+  );
   return compare(
     subjectOf('gain', at),
     actual,
@@ -101,11 +122,13 @@ export function checkPhase(
   expectedDegrees: number,
   tolerance: Tolerance,
 ): CheckResult {
-  const k = frequencyIndex(ac, at.frequency);
-  const actual = ac.phaseDegrees(at.output, at.input)[k]!;
-  if (typeof expectedDegrees !== 'number' || !Number.isFinite(expectedDegrees)) {
-    throw invalidValue(['expected'], expectedDegrees, 'a finite phase in degrees');
-  }
+  const actual = responseAt(
+    ac,
+    at,
+    () => ac.phaseDegrees(at.output, at.input),
+    expectedDegrees,
+    'a finite phase in degrees',
+  );
   const off = actual - expectedDegrees - 360 * Math.round((actual - expectedDegrees) / 360);
   return compare(subjectOf('phase', at), actual, expectedDegrees, off, tolerance, undefined, showDegrees);
 }

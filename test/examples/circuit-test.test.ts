@@ -6,6 +6,7 @@ describe('examples/circuit-test', () => {
     // 0 °C = 273.15 K and 70 °C = 343.15 K (BIPM, SI Brochure, 9th ed., 2019, §2.3.1).
     expect(TEMPERATURES[0]).toBe(273.15);
     expect(TEMPERATURES[TEMPERATURES.length - 1]).toBe(343.15);
+    // Four checks at each of the 8 temperatures, counted by hand (common practice, no source).
     expect(acceptanceTest()).toBe(4 * TEMPERATURES.length);
   });
 

@@ -41,7 +41,8 @@ describe('examples/coupling-capacitors', () => {
   });
 
   it('has the mid-band gain of a non-inverting stage of 11 behind the source divider', () => {
-    // Non-inverting gain 1 + 100k/10k (common practice); the 600 Ω source into 100 kΩ divides by 100.6.
+    // Non-inverting gain 1 + 100k/10k (common practice, no source); the 600 Ω source into 100 kΩ
+    // divides by 100.6.
     expect(design.midbandGainDb).toBeCloseTo(20 * Math.log10((11 * 100e3) / 100.6e3), 2);
   });
 });

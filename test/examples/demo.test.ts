@@ -8,6 +8,7 @@ describe('the demo', () => {
   const lines: string[] = [];
   const result = runDemo(mkdtempSync(join(tmpdir(), 'quiescent-demo-')), (text) => lines.push(text));
 
+  // The section titles the library's text reports print (common practice, no source).
   it('prints the operating point, the AC table and the linearity report', () => {
     const text = lines.join('\n');
     expect(text).toContain('Node voltages (to ground)');

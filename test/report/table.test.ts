@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { cell, renderTable } from '../../src/index.js';
 
 describe('renderTable', () => {
+  // The layout the library chose for its tables, widths counted by hand (common practice, no source).
   it('pads every column to its widest cell and right-aligns numeric columns', () => {
     const text = renderTable({
       title: 'Supply rails',

@@ -1,11 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { Circuit, GROUND, operatingPoint } from '../../src/index.js';
-import {
-  assertDeviceRegion,
-  assertElementCurrent,
-  assertNodeVoltage,
-  QuiescentAssertionError,
-} from '../../src/testing/index.js';
+import { assertDeviceRegion, assertElementCurrent, assertNodeVoltage } from '../../src/testing/index.js';
+import { failure } from './assertion-failure.js';
 
 // 10 V across 1 kΩ and 4 kΩ: 8 V at the tap, 2 mA through both (Ohm's law; common practice, no source).
 const divider = operatingPoint(
@@ -14,17 +10,6 @@ const divider = operatingPoint(
     .resistor('Rtop', 'in', 'tap', '1k')
     .resistor('Rbottom', 'tap', GROUND, '4k'),
 );
-
-/** The error a failing assertion throws. */
-function failure(assertion: () => void): QuiescentAssertionError {
-  try {
-    assertion();
-  } catch (e) {
-    if (e instanceof QuiescentAssertionError) return e;
-    throw e;
-  }
-  throw new Error('the assertion passed');
-}
 
 describe('assertNodeVoltage', () => {
   it('passes within an absolute tolerance, given as a number or with a unit', () => {

@@ -6,10 +6,10 @@ import {
   assertGain,
   assertJunctionWithinBudget,
   assertPhase,
-  QuiescentAssertionError,
   type QuiescentMatchers,
   quiescentMatchers,
 } from '../../src/testing/index.js';
+import { failure } from './assertion-failure.js';
 
 declare module 'vitest' {
   // biome-ignore lint/suspicious/noExplicitAny: the type parameter must match vitest's own declaration.
@@ -27,16 +27,6 @@ const lowPass = new Circuit()
   .resistor('R', 'in', 'out', '10k')
   .capacitor('C', 'out', GROUND, '10n');
 const ac = acAnalysis(operatingPoint(lowPass), { frequencies: [fc, 10 * fc] });
-
-function failure(assertion: () => void): QuiescentAssertionError {
-  try {
-    assertion();
-  } catch (e) {
-    if (e instanceof QuiescentAssertionError) return e;
-    throw e;
-  }
-  throw new Error('the assertion passed');
-}
 
 describe('assertGain and assertPhase', () => {
   it('pass at the corner and a decade above it', () => {
