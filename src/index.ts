@@ -38,9 +38,10 @@ export {
   type LinearityReport,
   linearity,
 } from './analysis/linearity.js';
-export { OperatingPoint, operatingPoint } from './analysis/operating-point.js';
+export { OperatingPoint } from './analysis/operating-point.js';
 export { DEFAULT_TEMPERATURE, type OperatingPointOptions } from './analysis/options.js';
 export { type Port, portImpedance } from './analysis/port-impedance.js';
+export { operatingPoint, PreparedCircuit, prepareCircuit } from './analysis/prepared.js';
 export {
   checkDistortion,
   DEFAULT_PHASES,

@@ -75,7 +75,9 @@ export class AcWorkspace {
     this.sourceIm = new Float64Array(n + 1);
     this.#residualRe = new Float64Array(n + 1);
     this.#residualIm = new Float64Array(n + 1);
-    this.#solver = createComplexSolver(this.system.pattern);
+    // The DC ordering serves the AC matrix: jωC entries sit on the same pattern.
+    const symbolic = this.system.ordering.symbolic;
+    this.#solver = createComplexSolver(this.system.pattern, symbolic === null ? {} : { symbolic });
     this.#context = { x: op.x, omega: 0, Ar: this.Ar, Ai: this.Ai, br: this.sourceRe, bi: this.sourceIm };
 
     const affine = devices.filter((d) => FREQUENCY_AFFINE_KINDS.has(d.record.kind));

@@ -4,7 +4,7 @@
  */
 import type { Conditions, DcLoadContext, Device } from '../devices/device.js';
 import { singularMatrix } from '../errors/messages.js';
-import { createRealSolver, type RealLinearSolver } from '../linalg/index.js';
+import { createRealSolver, type SparseRealSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import type { ResolvedOptions } from './options.js';
 
@@ -16,7 +16,7 @@ export class NewtonWorkspace {
   readonly b: Float64Array;
   readonly residual: Float64Array;
   readonly rowScale: Float64Array;
-  readonly solver: RealLinearSolver;
+  readonly solver: SparseRealSolver;
   readonly context: DcLoadContext;
   /**
    * The linear devices' share of A and b (b at full source value), loaded once per set of
@@ -24,7 +24,9 @@ export class NewtonWorkspace {
    */
   readonly linearA: Float64Array;
   readonly linearB: Float64Array;
-  readonly nonlinearDevices: readonly Device[];
+  nonlinearDevices: readonly Device[];
+  /** The compiled system the arrays belong to; a value change swaps in a system of the same pattern. */
+  system: CompiledSystem;
   readonly #linearContext: DcLoadContext;
   /** Norms of the last run, for diagnostics. */
   lastUpdateNorm = Number.POSITIVE_INFINITY;
@@ -32,7 +34,8 @@ export class NewtonWorkspace {
   /** Whether every unknown of x was finite at the last residual pass (checked while reading x). */
   lastIterateFinite = true;
 
-  constructor(readonly system: CompiledSystem) {
+  constructor(system: CompiledSystem) {
+    this.system = system;
     const { n, nnz } = system;
     this.x = new Float64Array(n + 1);
     this.previous = new Float64Array(n + 1);
@@ -40,7 +43,9 @@ export class NewtonWorkspace {
     this.b = new Float64Array(n + 1);
     this.residual = new Float64Array(n + 1);
     this.rowScale = new Float64Array(n + 1);
-    this.solver = createRealSolver(system.pattern);
+    // One ordering per topology: a later workspace on the same pattern starts from the first's.
+    const symbolic = system.ordering.symbolic;
+    this.solver = createRealSolver(system.pattern, symbolic === null ? {} : { symbolic });
     this.context = { x: this.x, A: this.A, b: this.b, sourceScale: 1, limited: false, first: true };
     this.linearA = new Float64Array(nnz + 1);
     this.linearB = new Float64Array(n + 1);
@@ -53,6 +58,16 @@ export class NewtonWorkspace {
       limited: false,
       first: true,
     };
+  }
+
+  /**
+   * Work on `system` from now on: a system of the same unknowns and pattern whose element values
+   * changed. The factorization and its pivot order are kept; the next factor refactors.
+   */
+  useSystem(system: CompiledSystem): void {
+    if (system.pattern !== this.system.pattern) throw new Error('a workspace serves one pattern');
+    this.system = system;
+    this.nonlinearDevices = system.devices.filter((d) => d.nonlinear);
   }
 
   /** Load the linear devices into linearA and linearB; call after every change of the conditions. */
@@ -187,6 +202,7 @@ function updateWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
 function trySolve(ws: NewtonWorkspace): number {
   const status = ws.solver.factor(ws.A);
   if (status !== 0) return status;
+  ws.system.ordering.symbolic ??= ws.solver.symbolic;
   ws.previous.set(ws.x);
   ws.x.set(ws.b);
   ws.solver.solve(ws.x);

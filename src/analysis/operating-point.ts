@@ -2,7 +2,6 @@
  * The DC operating point: plain Newton first, then conductance stepping, then source ramping, each
  * tried only when the one before failed. The result is immutable and answers by node and element name.
  */
-import type { Circuit } from '../circuit/circuit.js';
 import { type ElementRecord, GROUND } from '../circuit/elements.js';
 import type { Conditions } from '../devices/device.js';
 import { EXP_LIMIT, thermalVoltage } from '../devices/junction.js';
@@ -14,7 +13,7 @@ import { forwardBias } from './junction-bias.js';
 import {
   measureResidual,
   type NewtonOutcome,
-  NewtonWorkspace,
+  type NewtonWorkspace,
   prepareDevices,
   prepareWorkspace,
   residualExcess,
@@ -167,20 +166,6 @@ export interface Solver {
   readonly system: CompiledSystem;
   readonly workspace: NewtonWorkspace;
   readonly options: ResolvedOptions;
-}
-
-/** Compile a circuit for repeated operating-point solves. */
-export function prepareSolver(circuit: Circuit, options?: OperatingPointOptions): Solver {
-  return solverFor(circuit.elements, resolveOptions(options));
-}
-
-/** Compile element records (a circuit's, or a variant of them) for repeated solves with resolved options. */
-export function solverFor(records: readonly ElementRecord[], options: ResolvedOptions): Solver {
-  const system = compileCircuit(records);
-  for (const node of Object.keys(options.initialGuess)) {
-    if (!system.nodeIndex.has(node)) throw unknownNode(node, ['options', 'initialGuess', node]);
-  }
-  return { system, workspace: new NewtonWorkspace(system), options };
 }
 
 /** Set the workspace's x to the options' initial guess (0 V wherever none is given). */
@@ -354,26 +339,4 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
     lastUpdateNorm: Number.isNaN(updateNorm) ? Number.POSITIVE_INFINITY : updateNorm,
     lastResidualNorm: Number.isNaN(ws.lastResidualNorm) ? Number.POSITIVE_INFINITY : ws.lastResidualNorm,
   });
-}
-
-/**
- * Find the DC operating point of a circuit.
- *
- * @param circuit - the circuit to solve
- * @param options - temperature (K), junction conductance, tolerances, iteration limit, initial guess
- * @returns the immutable {@link OperatingPoint}
- * @throws QuiescentError `no-ground`, `floating-node`, `singular`, `unknown-element`, `no-convergence`,
- *   `invalid-value`
- *
- * @example
- * ```ts
- * const op = operatingPoint(circuit);
- * op.voltage('out');          // volts
- * op.device('D1').resistance; // the diode's dynamic resistance, Ω
- * ```
- */
-export function operatingPoint(circuit: Circuit, options?: OperatingPointOptions): OperatingPoint {
-  const solver = prepareSolver(circuit, options);
-  startFromGuess(solver);
-  return solveFromCurrent(solver, conditionsAt(solver.options.temperature, solver.options));
 }

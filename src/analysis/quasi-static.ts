@@ -23,13 +23,12 @@ import {
   conditionsAt,
   nodeAt,
   type OperatingPoint,
-  operatingPoint,
-  prepareSolver,
   type Solver,
   solveFromCurrent,
   startFromGuess,
 } from './operating-point.js';
 import type { OperatingPointOptions } from './options.js';
+import { operatingPoint, prepareSolver } from './prepared.js';
 
 /** Default number of phases per period. */
 export const DEFAULT_PHASES = 64;
