@@ -2,12 +2,12 @@
  * The DC operating point: plain Newton first, then conductance stepping, then source ramping, each
  * tried only when the one before failed. The result is immutable and answers by node and element name.
  */
-import { type ElementRecord, GROUND } from '../circuit/elements.js';
+import { GROUND } from '../circuit/elements.js';
 import type { Conditions } from '../devices/device.js';
 import { EXP_LIMIT, thermalVoltage } from '../devices/junction.js';
 import { noConvergence, unknownElement, unknownNode } from '../errors/messages.js';
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
-import { type CompiledSystem, compileCircuit } from '../mna/system.js';
+import type { CompiledSystem } from '../mna/system.js';
 import { type OperatingPointJson, operatingPointToJson } from '../report/operating-point-json.js';
 import { forwardBias } from './junction-bias.js';
 import {
@@ -22,7 +22,7 @@ import {
   solveLinear,
   worstResidualExcess,
 } from './newton.js';
-import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
+import type { ResolvedOptions } from './options.js';
 import type { BjtReport, DeviceReport, DiodeReport, MosfetReport } from './reports.js';
 
 /** The DC solution of a circuit: node voltages, element currents and every device's operating values. */
