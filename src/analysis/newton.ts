@@ -28,6 +28,8 @@ export class NewtonWorkspace {
   /** The compiled system the arrays belong to; a value change swaps in a system of the same pattern. */
   system: CompiledSystem;
   readonly #linearContext: DcLoadContext;
+  /** The system and conditions linearA and linearB were last loaded for (null: not loaded). */
+  linearFor: { readonly system: CompiledSystem; readonly conditions: Conditions } | null = null;
   /** Norms of the last run, for diagnostics. */
   lastUpdateNorm = Number.POSITIVE_INFINITY;
   lastResidualNorm = Number.POSITIVE_INFINITY;
@@ -91,10 +93,26 @@ export function prepareDevices(system: CompiledSystem, conditions: Conditions): 
   for (const d of system.devices) d.prepare?.(conditions);
 }
 
-/** Hand the conditions to every device of the workspace's system and reload its linear part. */
+/**
+ * Hand the conditions to every device of the workspace's system and reload its linear part, unless
+ * the workspace already holds that part for the same system and equal conditions (a repeated solve).
+ */
 export function prepareWorkspace(ws: NewtonWorkspace, conditions: Conditions): void {
   prepareDevices(ws.system, conditions);
+  const last = ws.linearFor;
+  if (
+    last !== null &&
+    last.system === ws.system &&
+    last.conditions.temperature === conditions.temperature &&
+    last.conditions.thermalVoltage === conditions.thermalVoltage &&
+    last.conditions.junctionConductance === conditions.junctionConductance &&
+    last.conditions.sourceValues === undefined &&
+    conditions.sourceValues === undefined
+  ) {
+    return;
+  }
   ws.loadLinearPart();
+  ws.linearFor = { system: ws.system, conditions };
 }
 
 /**

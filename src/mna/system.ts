@@ -119,9 +119,10 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
   const n = labels.length;
   nodeIndex.set(GROUND, n);
 
-  const rows: number[] = [];
-  const cols: number[] = [];
-  const requests: { target: Int32Array; first: number }[] = [];
+  // Slot requests land in chunks of one shared store, in request order: each device keeps a view
+  // on its part, and one pass over the store fills every view once the pattern is compressed.
+  const triplets = new TripletBuffer();
+  const store = new SlotStore();
   const bind: BindContext = {
     node(name) {
       const k = nodeIndex.get(name);
@@ -134,51 +135,21 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
       return k;
     },
     slots(pairs) {
-      const target = new Int32Array(pairs.length / 2);
-      requests.push({ target, first: rows.length });
-      for (let t = 0; t < pairs.length; t += 2) {
-        rows.push(pairs[t]!);
-        cols.push(pairs[t + 1]!);
-      }
-      return target;
+      for (let t = 0; t < pairs.length; t += 2) triplets.push(pairs[t]!, pairs[t + 1]!);
+      return store.take(pairs.length >> 1);
     },
   };
   for (const d of devices) d.bind(bind);
-  const diagonalRequest = bind.slots(Array.from({ length: nodeCount * 2 }, (_, i) => i >> 1));
+  const diagonalPairs = new Array<number>(2 * nodeCount);
+  for (let i = 0; i < 2 * nodeCount; i++) diagonalPairs[i] = i >> 1;
+  const diagonalRequest = bind.slots(diagonalPairs);
 
   // Ground rows and columns go to the trash slot nnz; the rest are compressed.
-  const kept: number[] = [];
-  for (let t = 0; t < rows.length; t++) if (rows[t]! < n && cols[t]! < n) kept.push(t);
-  const { pattern, slots } = compressPattern(
-    n,
-    kept.map((t) => rows[t]!),
-    kept.map((t) => cols[t]!),
-  );
+  const { pattern, slots } = compressPattern(n, triplets.rows, triplets.cols, triplets.count);
   const nnz = pattern.Ai.length;
-  const slotOfTriplet = new Int32Array(rows.length).fill(nnz);
-  kept.forEach((t, k) => {
-    slotOfTriplet[t] = slots[k]!;
-  });
-  for (const { target, first } of requests) {
-    for (let k = 0; k < target.length; k++) target[k] = slotOfTriplet[first + k]!;
-  }
+  store.fill(slots);
 
-  const elementsAt: string[][] = labels.map(() => []);
-  for (const record of records) {
-    for (const [, node] of terminalsOf(record)) {
-      const k = nodeIndex.get(node)!;
-      // A record's terminals come together, so a repeat is always the last name pushed (no search:
-      // a supply node touches thousands of elements).
-      const names = elementsAt[k];
-      if (k < n && names![names!.length - 1] !== record.name) names!.push(record.name);
-    }
-    const k = branchIndex.get(record.name);
-    if (k !== undefined) elementsAt[k]!.push(record.name);
-  }
-  labels.forEach((label, k) => {
-    if (label.kind === 'node' && label.name.includes('#')) elementsAt[k]!.push(label.name.split('#')[0]!);
-  });
-
+  const elementsAt = once(() => elementsTouching(records, labels, nodeIndex, branchIndex, n));
   const deviceIndex = new Map<string, number>();
   for (let k = 0; k < devices.length; k++) deviceIndex.set(devices[k]!.name, k);
   return {
@@ -194,11 +165,98 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
     nnz,
     nodeDiagonal: diagonalRequest,
     nonlinear: devices.some((d) => d.nonlinear),
-    elementsAt,
+    get elementsAt() {
+      return elementsAt();
+    },
     records,
     allocations,
     ordering: { symbolic: null },
   };
+}
+
+/** A function that computes `make()` on its first call and returns that value ever after. */
+function once<T>(make: () => T): () => T {
+  let value: T | undefined;
+  return () => {
+    value ??= make();
+    return value;
+  };
+}
+
+/** Names of the elements touching each unknown, for messages about singular rows and residuals. */
+function elementsTouching(
+  records: readonly ElementRecord[],
+  labels: readonly UnknownLabel[],
+  nodeIndex: ReadonlyMap<string, number>,
+  branchIndex: ReadonlyMap<string, number>,
+  n: number,
+): string[][] {
+  const elementsAt: string[][] = labels.map(() => []);
+  for (const record of records) {
+    for (const [, node] of terminalsOf(record)) {
+      const k = nodeIndex.get(node)!;
+      // A record's terminals come together, so a repeat is always the last name pushed (no search:
+      // a supply node touches thousands of elements).
+      const names = elementsAt[k];
+      if (k < n && names![names!.length - 1] !== record.name) names!.push(record.name);
+    }
+    const k = branchIndex.get(record.name);
+    if (k !== undefined) elementsAt[k]!.push(record.name);
+  }
+  labels.forEach((label, k) => {
+    if (label.kind === 'node' && label.name.includes('#')) elementsAt[k]!.push(label.name.split('#')[0]!);
+  });
+  return elementsAt;
+}
+
+/** Growable (row, column) triplet arrays. */
+class TripletBuffer {
+  rows = new Int32Array(1024);
+  cols = new Int32Array(1024);
+  count = 0;
+  push(row: number, col: number): void {
+    if (this.count === this.rows.length) {
+      const rows = new Int32Array(2 * this.count);
+      const cols = new Int32Array(2 * this.count);
+      rows.set(this.rows);
+      cols.set(this.cols);
+      this.rows = rows;
+      this.cols = cols;
+    }
+    this.rows[this.count] = row;
+    this.cols[this.count] = col;
+    this.count++;
+  }
+}
+
+/**
+ * Slot arrays handed to devices as views on a few large chunks, in request order, so that binding
+ * allocates no array per device and one pass fills them all.
+ */
+class SlotStore {
+  static readonly CHUNK = 1 << 16;
+  readonly #chunks: Int32Array[] = [];
+  readonly #used: number[] = [];
+  take(length: number): Int32Array {
+    let last = this.#chunks.length - 1;
+    if (last < 0 || this.#used[last]! + length > this.#chunks[last]!.length) {
+      this.#chunks.push(new Int32Array(Math.max(SlotStore.CHUNK, length)));
+      this.#used.push(0);
+      last++;
+    }
+    const start = this.#used[last]!;
+    this.#used[last] = start + length;
+    return this.#chunks[last]!.subarray(start, start + length);
+  }
+  /** Write slots[t] into the t-th slot taken. */
+  fill(slots: Int32Array): void {
+    let t = 0;
+    for (let c = 0; c < this.#chunks.length; c++) {
+      const chunk = this.#chunks[c]!;
+      const used = this.#used[c]!;
+      for (let k = 0; k < used; k++) chunk[k] = slots[t++]!;
+    }
+  }
 }
 
 /**
@@ -222,11 +280,25 @@ export function withRecords(
     records[k] = record;
   }
   return {
-    ...system,
+    n: system.n,
+    nodeCount: system.nodeCount,
+    labels: system.labels,
+    nodeIndex: system.nodeIndex,
     devices,
-    records,
+    deviceIndex: system.deviceIndex,
     deviceByName: deviceLookup(system.deviceIndex, devices),
+    branchIndex: system.branchIndex,
+    pattern: system.pattern,
+    nnz: system.nnz,
+    nodeDiagonal: system.nodeDiagonal,
     nonlinear: devices.some((d) => d.nonlinear),
+    // Values do not change which elements touch an unknown.
+    get elementsAt() {
+      return system.elementsAt;
+    },
+    records,
+    allocations: system.allocations,
+    ordering: system.ordering,
   };
 }
 
