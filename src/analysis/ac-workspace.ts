@@ -63,6 +63,9 @@ export class AcWorkspace {
   readonly #residualRe: Float64Array;
   readonly #residualIm: Float64Array;
   #frequency = Number.NaN;
+  /** Largest |Re| + |Im| of each row, and of the whole matrix, at the last assembly. */
+  readonly #rowMax: Float64Array;
+  #aNorm = 0;
 
   /** Evaluate every frequency-affine device once at `op` (G and C); nothing is factored yet. */
   constructor(op: OperatingPoint) {
@@ -75,6 +78,7 @@ export class AcWorkspace {
     this.sourceIm = new Float64Array(n + 1);
     this.#residualRe = new Float64Array(n + 1);
     this.#residualIm = new Float64Array(n + 1);
+    this.#rowMax = new Float64Array(n);
     // The DC ordering serves the AC matrix: jωC entries sit on the same pattern.
     const symbolic = this.system.ordering.symbolic;
     this.#solver = createComplexSolver(this.system.pattern, symbolic === null ? {} : { symbolic });
@@ -111,18 +115,69 @@ export class AcWorkspace {
     const gi = this.#conductanceIm;
     const cr = this.#capacitanceRe;
     const ci = this.#capacitanceIm;
-    for (let p = 0; p < Ar.length; p++) {
-      Ar[p] = gr[p]! + omega * cr[p]!;
-      Ai[p] = gi[p]! + omega * ci[p]!;
+    const perFrequency = this.#perFrequency;
+    if (perFrequency.length === 0) {
+      // One pass forms the values and the norms the factorization and the residual check need.
+      this.#formWithNorms(omega);
+    } else {
+      for (let p = 0; p < Ar.length; p++) {
+        Ar[p] = gr[p]! + omega * cr[p]!;
+        Ai[p] = gi[p]! + omega * ci[p]!;
+      }
     }
     this.sourceRe.set(this.#baseSourceRe);
     this.sourceIm.set(this.#baseSourceIm);
+    if (perFrequency.length === 0) return;
     const ctx = this.#context;
     ctx.omega = omega;
-    for (const d of this.#perFrequency) {
+    for (const d of perFrequency) {
       d.prepare?.(this.op.conditions);
       d.loadAc(ctx);
     }
+    this.#measureNorms();
+  }
+
+  /** Ar + j·Ai = G + jωC, with every row's largest |Re| + |Im| and the largest of all. */
+  #formWithNorms(omega: number): void {
+    const { Ar, Ai } = this;
+    const gr = this.#conductanceRe;
+    const gi = this.#conductanceIm;
+    const cr = this.#capacitanceRe;
+    const ci = this.#capacitanceIm;
+    const rows = this.system.pattern.Ai;
+    const rowMax = this.#rowMax;
+    rowMax.fill(0);
+    let aNorm = 0;
+    const nnz = rows.length;
+    for (let p = 0; p < nnz; p++) {
+      const re = gr[p]! + omega * cr[p]!;
+      const im = gi[p]! + omega * ci[p]!;
+      Ar[p] = re;
+      Ai[p] = im;
+      const a = Math.abs(re) + Math.abs(im);
+      const i = rows[p]!;
+      if (a > rowMax[i]!) rowMax[i] = a;
+      if (a > aNorm) aNorm = a;
+    }
+    Ar[nnz] = gr[nnz]! + omega * cr[nnz]!;
+    Ai[nnz] = gi[nnz]! + omega * ci[nnz]!;
+    this.#aNorm = aNorm;
+  }
+
+  /** The norms of {@link AcWorkspace.#formWithNorms} for values already in Ar, Ai. */
+  #measureNorms(): void {
+    const { Ar, Ai } = this;
+    const rows = this.system.pattern.Ai;
+    const rowMax = this.#rowMax;
+    rowMax.fill(0);
+    let aNorm = 0;
+    for (let p = 0; p < rows.length; p++) {
+      const a = Math.abs(Ar[p]!) + Math.abs(Ai[p]!);
+      const i = rows[p]!;
+      if (a > rowMax[i]!) rowMax[i] = a;
+      if (a > aNorm) aNorm = a;
+    }
+    this.#aNorm = aNorm;
   }
 
   /**
@@ -130,7 +185,7 @@ export class AcWorkspace {
    */
   factorAt(frequency: number): void {
     this.assembleAt(frequency);
-    const status = this.#solver.factor(this.Ar, this.Ai);
+    const status = this.#solver.factor(this.Ar, this.Ai, this.#rowMax);
     if (status !== 0) {
       this.#frequency = Number.NaN;
       throw singularAt(this.system, status - 1, `in the small-signal circuit at ${frequency} Hz`);
@@ -175,22 +230,28 @@ export class AcWorkspace {
     const Ar = this.Ar;
     const Az = this.Ai;
     let bNorm = 0;
-    let aNorm = 0;
     let xNorm = 0;
     for (let i = 0; i < n; i++) bNorm = Math.max(bNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
+    let begin = Ap[0]!;
     for (let j = 0; j < n; j++) {
       const vr = xr[j]!;
       const vi = xi[j]!;
       xNorm = Math.max(xNorm, Math.abs(vr) + Math.abs(vi));
-      for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+      const end = Ap[j + 1]!;
+      if (vr === 0 && vi === 0) {
+        begin = end;
+        continue;
+      }
+      for (let p = begin; p < end; p++) {
         const i = rows[p]!;
         const ar = Ar[p]!;
         const ai = Az[p]!;
-        aNorm = Math.max(aNorm, Math.abs(ar) + Math.abs(ai));
         rr[i]! -= ar * vr - ai * vi;
         ri[i]! -= ar * vi + ai * vr;
       }
+      begin = end;
     }
+    const aNorm = this.#aNorm;
     let rNorm = 0;
     for (let i = 0; i < n; i++) rNorm = Math.max(rNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
     const scale = bNorm + aNorm * xNorm;
