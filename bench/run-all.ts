@@ -11,6 +11,8 @@ const BENCHMARKS: readonly (readonly string[])[] = [
   ['lu-families.ts'],
   ['operating-point.ts'],
   ['ac-analysis.ts'],
+  ['pipeline.ts', '--sizes', '1000,10000'],
+  ['small-circuit.ts'],
 ];
 
 const here = dirname(fileURLToPath(import.meta.url));
