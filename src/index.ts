@@ -60,6 +60,16 @@ export type {
   MosfetReport,
 } from './analysis/reports.js';
 export {
+  AcSensitivity,
+  type AcSensitivityEntry,
+  type AcSensitivityOptions,
+  type DcSensitivityOptions,
+  Sensitivity,
+  type SensitivityEntry,
+  type SensitivityOutput,
+  sensitivity,
+} from './analysis/sensitivity.js';
+export {
   type BjtTerminals,
   Circuit,
   type MosfetTerminals,

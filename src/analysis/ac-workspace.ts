@@ -10,7 +10,7 @@
  */
 import type { ElementKind } from '../circuit/elements.js';
 import type { AcLoadContext, Device } from '../devices/device.js';
-import { type ComplexLinearSolver, createComplexSolver } from '../linalg/index.js';
+import { createComplexSolver, type SparseComplexSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import { singularAt } from './newton.js';
 import type { OperatingPoint } from './operating-point.js';
@@ -49,7 +49,7 @@ export class AcWorkspace {
   /** The excitation the sources wrote at the last assembly, length n+1. */
   readonly sourceRe: Float64Array;
   readonly sourceIm: Float64Array;
-  readonly #solver: ComplexLinearSolver;
+  readonly #solver: SparseComplexSolver;
   readonly #context: AcLoadContext & { omega: number };
   /** G and C of the frequency-affine devices (real and imaginary parts of each), and their excitation. */
   readonly #conductanceRe: Float64Array;
@@ -217,6 +217,53 @@ export class AcWorkspace {
     re[n] = 0;
     im[n] = 0;
     this.#checkResidual(re, im, rr, ri);
+  }
+
+  /**
+   * Overwrite (re, im) with the solution of the transposed system Aᵀy = re + j·im (plain transpose,
+   * no conjugation) on the last factorization: the adjoint solve that gives the transfer from every
+   * unknown's row to one output at once. Its residual is checked as the direct solve's is.
+   */
+  solveTranspose(re: Float64Array, im: Float64Array): void {
+    const n = this.system.n;
+    const rr = this.#residualRe;
+    const ri = this.#residualIm;
+    rr.set(re);
+    ri.set(im);
+    this.#solver.solveTranspose(re, im);
+    re[n] = 0;
+    im[n] = 0;
+    // r = b − Aᵀy: row i of Aᵀ is column i of A.
+    const { Ap, Ai: rows } = this.system.pattern;
+    const Ar = this.Ar;
+    const Az = this.Ai;
+    let bNorm = 0;
+    let yNorm = 0;
+    for (let i = 0; i < n; i++) {
+      bNorm = Math.max(bNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
+      yNorm = Math.max(yNorm, Math.abs(re[i]!) + Math.abs(im[i]!));
+    }
+    let rNorm = 0;
+    for (let j = 0; j < n; j++) {
+      let sr = rr[j]!;
+      let si = ri[j]!;
+      for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+        const i = rows[p]!;
+        const ar = Ar[p]!;
+        const ai = Az[p]!;
+        sr -= ar * re[i]! - ai * im[i]!;
+        si -= ar * im[i]! + ai * re[i]!;
+      }
+      rNorm = Math.max(rNorm, Math.abs(sr) + Math.abs(si));
+    }
+    const scale = bNorm + this.#aNorm * yNorm;
+    if (!(rNorm <= AC_RESIDUAL_LIMIT * scale) && !(scale === 0 && rNorm === 0)) {
+      throw singularAt(
+        this.system,
+        0,
+        `in the transposed small-signal circuit at ${this.#frequency} Hz (relative residual ${(rNorm / scale).toExponential(1)})`,
+      );
+    }
   }
 
   /**

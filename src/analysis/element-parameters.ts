@@ -131,3 +131,36 @@ export function parameterValue(record: ElementRecord, parameter: string): number
       return (record as unknown as Record<string, number>)[parameter]!;
   }
 }
+
+/**
+ * The numeric parameters of `record` a sensitivity lists: its scalar value, a source's `dc` (and `ac`
+ * when `withAc`), every model parameter of a diode, transistor or finite-gain op-amp whether given or
+ * defaulted, except those whose value is infinite (an absent effect). An ideal op-amp has none: its
+ * finite-gain parameters would change its model, not move it.
+ */
+export function parametersOf(record: ElementRecord, withAc: boolean): string[] {
+  const scalars = SCALAR_PARAMETERS[record.kind];
+  if (scalars !== undefined) return Object.keys(scalars);
+  let names: string[];
+  switch (record.kind) {
+    case 'voltage-source':
+    case 'current-source':
+      return withAc ? ['dc', 'ac'] : ['dc'];
+    case 'diode':
+      names = Object.keys(DIODE_PARAMETERS);
+      break;
+    case 'bjt':
+      names = Object.keys(BJT_PARAMETERS);
+      break;
+    case 'mosfet':
+      names = Object.keys(MOSFET_PARAMETERS);
+      break;
+    case 'op-amp':
+      if (record.options === undefined) return [];
+      names = Object.keys(OP_AMP_PARAMETERS);
+      break;
+    default:
+      return [];
+  }
+  return names.filter((name) => Number.isFinite(parameterValue(record, name)));
+}

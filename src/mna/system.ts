@@ -302,8 +302,11 @@ export function withRecords(
   };
 }
 
-/** A device for `record` bound into the existing numbering and pattern, or null if it does not fit. */
-function rebind(system: CompiledSystem, k: number, record: ElementRecord): Device | null {
+/**
+ * A device for `record` (element number k of `system`, with other values) bound into the existing
+ * numbering and pattern, or null if it does not fit (it asks for other unknowns or entries).
+ */
+export function rebind(system: CompiledSystem, k: number, record: ElementRecord): Device | null {
   const device = createDevice(record);
   const recorded = system.allocations[k]!;
   const { labels, nodeIndex, branchIndex, pattern, nnz, n } = system;
