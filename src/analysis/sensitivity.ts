@@ -25,7 +25,7 @@ import type { Conditions, Device } from '../devices/device.js';
 import { thermalVoltage } from '../devices/junction.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { type CompiledSystem, rebind } from '../mna/system.js';
-import { type AcAnalysis, acAnalysis, type Probe } from './ac-analysis.js';
+import type { AcAnalysis, Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { currentReader } from './distortion-probe.js';
 import { parametersOf, parameterValue, parameterVariant } from './element-parameters.js';
