@@ -208,15 +208,17 @@ export class AcWorkspace {
    * check its residual. re[n] and im[n] are set to 0 (ground).
    */
   solve(re: Float64Array, im: Float64Array): void {
-    const n = this.system.n;
-    const rr = this.#residualRe;
-    const ri = this.#residualIm;
-    rr.set(re);
-    ri.set(im);
+    this.#keepRightHandSide(re, im);
     this.#solver.solve(re, im);
-    re[n] = 0;
-    im[n] = 0;
-    this.#checkResidual(re, im, rr, ri);
+    re[this.system.n] = 0;
+    im[this.system.n] = 0;
+    this.#checkResidual(re, im, this.#residualRe, this.#residualIm);
+  }
+
+  /** Keep b = (re, im) in the residual arrays before a solve overwrites it. */
+  #keepRightHandSide(re: Float64Array, im: Float64Array): void {
+    this.#residualRe.set(re);
+    this.#residualIm.set(im);
   }
 
   /**
@@ -228,8 +230,7 @@ export class AcWorkspace {
     const n = this.system.n;
     const rr = this.#residualRe;
     const ri = this.#residualIm;
-    rr.set(re);
-    ri.set(im);
+    this.#keepRightHandSide(re, im);
     this.#solver.solveTranspose(re, im);
     re[n] = 0;
     im[n] = 0;

@@ -124,16 +124,7 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
   const triplets = new TripletBuffer();
   const store = new SlotStore();
   const bind: BindContext = {
-    node(name) {
-      const k = nodeIndex.get(name);
-      if (k === undefined) throw new Error(`node '${name}' was not numbered`);
-      return k;
-    },
-    branchOf(name) {
-      const k = branchIndex.get(name);
-      if (k === undefined) throw unknownElement(name, 'it has no current unknown');
-      return k;
-    },
+    ...lookups(nodeIndex, branchIndex),
     slots(pairs) {
       for (let t = 0; t < pairs.length; t += 2) triplets.push(pairs[t]!, pairs[t + 1]!);
       return store.take(pairs.length >> 1);
@@ -171,6 +162,25 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
     records,
     allocations,
     ordering: { symbolic: null },
+  };
+}
+
+/** The name lookups of a bind context: node and branch-current unknowns by name. */
+function lookups(
+  nodeIndex: ReadonlyMap<string, number>,
+  branchIndex: ReadonlyMap<string, number>,
+): Pick<BindContext, 'node' | 'branchOf'> {
+  return {
+    node(name) {
+      const k = nodeIndex.get(name);
+      if (k === undefined) throw new Error(`node '${name}' was not numbered`);
+      return k;
+    },
+    branchOf(name) {
+      const k = branchIndex.get(name);
+      if (k === undefined) throw unknownElement(name, 'it has no current unknown');
+      return k;
+    },
   };
 }
 
@@ -331,16 +341,7 @@ export function rebind(system: CompiledSystem, k: number, record: ElementRecord)
   if (!fits || cursor !== recorded.length) return null;
   const { Ap, Ai } = pattern;
   const bind: BindContext = {
-    node(name) {
-      const index = nodeIndex.get(name);
-      if (index === undefined) throw new Error(`node '${name}' was not numbered`);
-      return index;
-    },
-    branchOf(name) {
-      const index = branchIndex.get(name);
-      if (index === undefined) throw unknownElement(name, 'it has no current unknown');
-      return index;
-    },
+    ...lookups(nodeIndex, branchIndex),
     slots(pairs) {
       const target = new Int32Array(pairs.length / 2);
       for (let t = 0; t < target.length; t++) {
