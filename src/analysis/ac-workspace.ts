@@ -10,7 +10,7 @@
  */
 import type { ElementKind } from '../circuit/elements.js';
 import type { AcLoadContext, Device } from '../devices/device.js';
-import { type ComplexLinearSolver, createComplexSolver } from '../linalg/index.js';
+import { createComplexSolver, type SparseComplexSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import { singularAt } from './newton.js';
 import type { OperatingPoint } from './operating-point.js';
@@ -49,7 +49,7 @@ export class AcWorkspace {
   /** The excitation the sources wrote at the last assembly, length n+1. */
   readonly sourceRe: Float64Array;
   readonly sourceIm: Float64Array;
-  readonly #solver: ComplexLinearSolver;
+  readonly #solver: SparseComplexSolver;
   readonly #context: AcLoadContext & { omega: number };
   /** G and C of the frequency-affine devices (real and imaginary parts of each), and their excitation. */
   readonly #conductanceRe: Float64Array;
@@ -163,11 +163,35 @@ export class AcWorkspace {
   }
 
   /**
-   * r = b − A·x on the pattern, against ‖b‖ + ‖A‖·‖x‖ (max norms); refuse a solve that misses. Each
+   * Overwrite (re, im), a right-hand side of length n+1, with the solution of the transposed system
+   * Aᵀ·z = b (plain transpose, no conjugation) of the last factored system, and check its residual.
+   * Its solution z gives the output response y = cᵀ·x to every excitation b at once, as y = zᵀ·b,
+   * when (re, im) held the output's coefficients c (the adjoint method). re[n] and im[n] are set to 0.
+   */
+  solveTranspose(re: Float64Array, im: Float64Array): void {
+    const n = this.system.n;
+    const rr = this.#residualRe;
+    const ri = this.#residualIm;
+    rr.set(re);
+    ri.set(im);
+    this.#solver.solveTranspose(re, im);
+    re[n] = 0;
+    im[n] = 0;
+    this.#checkResidual(re, im, rr, ri, true);
+  }
+
+  /**
+   * r = b − A·x (or b − Aᵀ·x) on the pattern, against ‖b‖ + ‖A‖·‖x‖ (max norms); refuse a solve that misses. Each
    * complex modulus is bounded by |re| + |im| (within √2 of it), which is ample against the limit and
    * far cheaper than Math.hypot on every nonzero.
    */
-  #checkResidual(xr: Float64Array, xi: Float64Array, rr: Float64Array, ri: Float64Array): void {
+  #checkResidual(
+    xr: Float64Array,
+    xi: Float64Array,
+    rr: Float64Array,
+    ri: Float64Array,
+    transposed = false,
+  ): void {
     const { n, pattern } = this.system;
     const { Ap, Ai: rows } = pattern;
     const Ar = this.Ar;
@@ -176,7 +200,25 @@ export class AcWorkspace {
     let aNorm = 0;
     let xNorm = 0;
     for (let i = 0; i < n; i++) bNorm = Math.max(bNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
-    for (let j = 0; j < n; j++) {
+    if (transposed) {
+      // (Aᵀx)_j = Σ over column j of A(i, j)·x_i.
+      for (let j = 0; j < n; j++) {
+        xNorm = Math.max(xNorm, Math.abs(xr[j]!) + Math.abs(xi[j]!));
+        let sr = 0;
+        let si = 0;
+        for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+          const i = rows[p]!;
+          const ar = Ar[p]!;
+          const ai = Az[p]!;
+          aNorm = Math.max(aNorm, Math.abs(ar) + Math.abs(ai));
+          sr += ar * xr[i]! - ai * xi[i]!;
+          si += ar * xi[i]! + ai * xr[i]!;
+        }
+        rr[j]! -= sr;
+        ri[j]! -= si;
+      }
+    }
+    for (let j = 0; j < n && !transposed; j++) {
       const vr = xr[j]!;
       const vi = xi[j]!;
       xNorm = Math.max(xNorm, Math.abs(vr) + Math.abs(vi));

@@ -1,0 +1,318 @@
+/**
+ * Noise analysis: every noise generator of the circuit (thermal, shot, flicker, op-amp input noise),
+ * each an uncorrelated excitation of the small-signal equations at the operating point, carried to
+ * an output. One transposed (adjoint) solve per frequency, Aᵀ·z = c with c the output's coefficients,
+ * gives the transfer from every generator at once: the output's response to an excitation b is zᵀ·b
+ * (docs/noise.md, "How it is computed").
+ */
+
+import type { NoiseGenerator, NoiseMechanism } from '../devices/device.js';
+import { invalidValue, unknownElement } from '../errors/messages.js';
+import { type NoiseJson, noiseToJson } from '../report/noise-json.js';
+import type { Probe } from './ac-analysis.js';
+import { AcWorkspace } from './ac-workspace.js';
+import { checkFrequencies } from './frequency-grid.js';
+import { integratePsd } from './noise-integral.js';
+import type { OperatingPoint } from './operating-point.js';
+import { OutputFunctional } from './output-functional.js';
+
+/** Options of {@link noise}. */
+export interface NoiseOptions {
+  /** Where the noise is observed: a node, `{ node, reference }` or `{ element }` (its current). */
+  readonly output: Probe;
+  /** The frequencies in Hz, each greater than 0, in any order. */
+  readonly frequencies: readonly number[] | Float64Array;
+  /** An independent voltage or current source: the noise is also referred to it (`inputDensity`). */
+  readonly input?: string;
+  /** A resistor standing for the signal source's resistance: the noise figure is taken against it. */
+  readonly sourceResistor?: string;
+}
+
+/** One generator's share of the output noise. */
+export interface NoiseContribution {
+  /** The element the generator belongs to. */
+  readonly element: string;
+  /** Its physical origin. */
+  readonly mechanism: NoiseMechanism;
+  /** Which terminal or input, where the element has several generators of one mechanism. */
+  readonly terminal?: string;
+  /** √(PSD) of its share of the output noise at each frequency, in V/√Hz (A/√Hz for a current output). */
+  readonly density: Float64Array;
+}
+
+/** The result of a noise analysis. Immutable. */
+export class Noise {
+  /** The operating point the noise was evaluated at (its temperature is the noise temperature). */
+  readonly operatingPoint: OperatingPoint;
+  /** The output the noise is referred to. */
+  readonly output: Probe;
+  /** The analysed frequencies in Hz, in the order given. */
+  readonly frequencies: Float64Array;
+  /** √(output noise PSD) at each frequency, in V/√Hz (A/√Hz for an element-current output). */
+  readonly outputDensity: Float64Array;
+  /** The input source, when one was named. */
+  readonly input: string | undefined;
+  /**
+   * The output density divided by |H|, H the output's phasor per volt (per ampere) of the input source
+   * alone: V/√Hz for a voltage source, A/√Hz for a current source. Present when `input` was named.
+   */
+  readonly inputDensity: Float64Array | undefined;
+  /** The source resistor, when one was named. */
+  readonly sourceResistor: string | undefined;
+  /**
+   * 10·log10(total output PSD / output PSD of the source resistor's thermal noise alone), in dB, at
+   * each frequency. Present when `sourceResistor` was named.
+   */
+  readonly noiseFigure: Float64Array | undefined;
+  /** Every generator's output-referred density, the largest total power (over all frequencies) first. */
+  readonly contributions: readonly NoiseContribution[];
+  /** Ascending frequencies and the output PSD at them, for integration. */
+  readonly #sortedFrequencies: Float64Array;
+  readonly #sortedPsd: Float64Array;
+
+  /** @internal Built by {@link noise}. */
+  constructor(
+    op: OperatingPoint,
+    options: NoiseOptions,
+    frequencies: Float64Array,
+    outputPsd: Float64Array,
+    contributions: readonly NoiseContribution[],
+    inputDensity: Float64Array | undefined,
+    noiseFigure: Float64Array | undefined,
+  ) {
+    this.operatingPoint = op;
+    this.output = options.output;
+    this.frequencies = frequencies;
+    this.outputDensity = outputPsd.map(Math.sqrt);
+    this.input = options.input;
+    this.inputDensity = inputDensity;
+    this.sourceResistor = options.sourceResistor;
+    this.noiseFigure = noiseFigure;
+    this.contributions = contributions;
+    const order = Array.from(frequencies.keys()).sort((a, b) => frequencies[a]! - frequencies[b]!);
+    this.#sortedFrequencies = Float64Array.from(order, (k) => frequencies[k]!);
+    this.#sortedPsd = Float64Array.from(order, (k) => outputPsd[k]!);
+  }
+
+  /**
+   * The RMS output noise over [low, high] Hz, √∫ PSD df, with the PSD interpolated as a straight line
+   * on log-log axes between analysed frequencies (a power law, integrated exactly).
+   *
+   * @throws QuiescentError `invalid-value` when low ≥ high or either lies outside the analysed range
+   */
+  integrated(low: number, high: number): number {
+    return Math.sqrt(integratePsd(this.#sortedFrequencies, this.#sortedPsd, low, high));
+  }
+
+  /** Plain data: frequencies, densities and contributions as arrays. */
+  toJSON(): NoiseJson {
+    return noiseToJson(this);
+  }
+}
+
+/** The generators of a circuit, flattened into arrays for the frequency loop. */
+interface GeneratorTable {
+  readonly generators: readonly NoiseGenerator[];
+  readonly owners: readonly string[];
+  readonly from: Int32Array;
+  readonly to: Int32Array;
+  readonly white: Float64Array;
+  readonly flicker: Float64Array;
+}
+
+function collectGenerators(op: OperatingPoint): GeneratorTable {
+  const generators: NoiseGenerator[] = [];
+  const owners: string[] = [];
+  for (const device of op.system.devices) {
+    device.prepare?.(op.conditions);
+    for (const g of device.noiseGenerators?.(op.x, op.conditions) ?? []) {
+      generators.push(g);
+      owners.push(device.name);
+    }
+  }
+  return {
+    generators,
+    owners,
+    from: Int32Array.from(generators, (g) => g.from),
+    to: Int32Array.from(generators, (g) => g.to),
+    white: Float64Array.from(generators, (g) => g.white),
+    flicker: Float64Array.from(generators, (g) => g.flicker),
+  };
+}
+
+/** The rows an input source's unit excitation occupies: (from, to) as a generator's. */
+function inputRows(op: OperatingPoint, input: string): [number, number] {
+  const system = op.system;
+  const record = system.deviceByName.get(input)?.record;
+  if (record === undefined) throw unknownElement(input, 'the circuit has no element of that name', ['input']);
+  if (record.kind === 'voltage-source') return [system.n, system.branchIndex.get(input)!];
+  if (record.kind === 'current-source') {
+    return [system.nodeIndex.get(record.from)!, system.nodeIndex.get(record.to)!];
+  }
+  throw unknownElement(input, 'noise is referred to an independent voltage or current source only', [
+    'input',
+  ]);
+}
+
+/** The index of the thermal generator of resistor `name`. */
+function sourceResistorGenerator(table: GeneratorTable, op: OperatingPoint, name: string): number {
+  const record = op.system.deviceByName.get(name)?.record;
+  if (record === undefined)
+    throw unknownElement(name, 'the circuit has no element of that name', ['sourceResistor']);
+  if (record.kind !== 'resistor') {
+    throw unknownElement(name, 'the noise figure is taken against a resistor', ['sourceResistor']);
+  }
+  const index = table.owners.indexOf(name);
+  if (index < 0) {
+    throw invalidValue(
+      ['sourceResistor'],
+      name,
+      'a resistor with thermal noise (this one was built noiseless)',
+    );
+  }
+  return index;
+}
+
+/**
+ * The noise at an output: its density, every generator's contribution, and (optionally) the noise
+ * referred to an input source and the noise figure against a source resistor.
+ *
+ * @param op - the operating point: every generator is evaluated there, at its temperature
+ * @param options - `output`, `frequencies` (Hz, > 0), optional `input` and `sourceResistor`
+ * @returns the immutable {@link Noise}
+ * @throws QuiescentError `invalid-value` for a missing or non-positive frequency, an input the output
+ *   does not see at some frequency, or a noiseless source resistor; `unknown-node` / `unknown-element`
+ *   for an output, input or source resistor the circuit lacks; `singular` when the small-signal
+ *   circuit has no unique solution at some frequency
+ *
+ * @example
+ * ```ts no-run
+ * const nz = noise(op, { output: 'out', frequencies: logSweep(10, 100e3, 10), input: 'mic' });
+ * nz.integrated(20, 20e3); // RMS output noise over the audio band, in V
+ * ```
+ */
+export function noise(op: OperatingPoint, options: NoiseOptions): Noise {
+  if (options === null || typeof options !== 'object') {
+    throw invalidValue(['options'], options, 'an object with the output and the frequencies');
+  }
+  const frequencies = checkFrequencies(options.frequencies);
+  for (let k = 0; k < frequencies.length; k++) {
+    if (!(frequencies[k]! > 0))
+      throw invalidValue(['frequencies', k], frequencies[k], 'a frequency above 0 Hz');
+  }
+  const system = op.system;
+  const n = system.n;
+  const count = frequencies.length;
+  let lowest = Infinity;
+  let highest = 0;
+  for (const f of frequencies) {
+    lowest = Math.min(lowest, f);
+    highest = Math.max(highest, f);
+  }
+  const output = new OutputFunctional(system, op.x, options.output, [
+    2 * Math.PI * lowest,
+    2 * Math.PI * highest,
+    2 * Math.PI * 1234.5,
+  ]);
+  const input = options.input === undefined ? undefined : inputRows(op, options.input);
+  const workspace = new AcWorkspace(op);
+  const table = collectGenerators(op);
+  const source =
+    options.sourceResistor === undefined ? -1 : sourceResistorGenerator(table, op, options.sourceResistor);
+
+  const { generators, from, to, white, flicker } = table;
+  const size = generators.length;
+  const weighted = Uint8Array.from(generators, (g) => (g.weightAt === undefined ? 0 : 1));
+  // A generator inside the output element's own current reaches the output directly, besides its response.
+  const outputElement =
+    typeof options.output === 'object' && 'element' in options.output ? options.output.element : undefined;
+  const direct = Float64Array.from(generators, (g, index) =>
+    g.ownCurrent === true && table.owners[index] === outputElement ? 1 : 0,
+  );
+  const power = new Float64Array(size * count); // generator g at frequency k: power[g·count + k]
+  const total = new Float64Array(count);
+  const gainSquared = new Float64Array(count);
+  const zr = new Float64Array(n + 1);
+  const zi = new Float64Array(n + 1);
+  const weight = new Float64Array(2);
+  for (let k = 0; k < count; k++) {
+    const f = frequencies[k]!;
+    const omega = 2 * Math.PI * f;
+    workspace.factorAt(f);
+    zr.fill(0);
+    zi.fill(0);
+    output.addAt(omega, zr, zi);
+    workspace.solveTranspose(zr, zi);
+    let sum = 0;
+    for (let g = 0; g < size; g++) {
+      let tr = zr[to[g]!]! - zr[from[g]!]! + direct[g]!;
+      let ti = zi[to[g]!]! - zi[from[g]!]!;
+      if (weighted[g] === 1) {
+        generators[g]!.weightAt!(omega, weight);
+        const wr = weight[0]!;
+        const wi = weight[1]!;
+        const r = tr * wr - ti * wi;
+        ti = tr * wi + ti * wr;
+        tr = r;
+      }
+      const p = (tr * tr + ti * ti) * (white[g]! + flicker[g]! / f);
+      power[g * count + k] = p;
+      sum += p;
+    }
+    total[k] = sum;
+    if (input !== undefined) {
+      const hr = zr[input[1]]! - zr[input[0]]!;
+      const hi = zi[input[1]]! - zi[input[0]]!;
+      gainSquared[k] = hr * hr + hi * hi;
+    }
+  }
+
+  let inputDensity: Float64Array | undefined;
+  if (input !== undefined) {
+    inputDensity = new Float64Array(count);
+    for (let k = 0; k < count; k++) {
+      if (!(gainSquared[k]! > 0)) {
+        throw invalidValue(
+          ['input'],
+          options.input,
+          `a source whose signal reaches the output (it does not at ${frequencies[k]} Hz)`,
+        );
+      }
+      inputDensity[k] = Math.sqrt(total[k]! / gainSquared[k]!);
+    }
+  }
+  let noiseFigure: Float64Array | undefined;
+  if (source >= 0) {
+    noiseFigure = new Float64Array(count);
+    for (let k = 0; k < count; k++) {
+      noiseFigure[k] = 10 * Math.log10(total[k]! / power[source * count + k]!);
+    }
+  }
+  return new Noise(
+    op,
+    options,
+    frequencies,
+    total,
+    rankContributions(table, power, count),
+    inputDensity,
+    noiseFigure,
+  );
+}
+
+/** One contribution per generator, the largest total power first (device order on a tie). */
+function rankContributions(table: GeneratorTable, power: Float64Array, count: number): NoiseContribution[] {
+  const entries = table.generators.map((g, index) => {
+    const psd = power.subarray(index * count, (index + 1) * count);
+    let sum = 0;
+    for (const p of psd) sum += p;
+    const contribution: NoiseContribution = {
+      element: table.owners[index]!,
+      mechanism: g.mechanism,
+      ...(g.terminal === undefined ? {} : { terminal: g.terminal }),
+      density: psd.map(Math.sqrt),
+    };
+    return { contribution, sum, index };
+  });
+  entries.sort((a, b) => b.sum - a.sum || a.index - b.index);
+  return entries.map((e) => e.contribution);
+}
