@@ -69,6 +69,8 @@ export class Noise {
   /** Ascending frequencies and the output PSD at them, for integration. */
   readonly #sortedFrequencies: Float64Array;
   readonly #sortedPsd: Float64Array;
+  /** Indices of the analysed frequencies in ascending order of frequency. */
+  readonly #order: Int32Array;
 
   /** @internal Built by {@link noise}. */
   constructor(
@@ -89,7 +91,8 @@ export class Noise {
     this.sourceResistor = options.sourceResistor;
     this.noiseFigure = noiseFigure;
     this.contributions = contributions;
-    const order = Array.from(frequencies.keys()).sort((a, b) => frequencies[a]! - frequencies[b]!);
+    const order = Int32Array.from(frequencies.keys()).sort((a, b) => frequencies[a]! - frequencies[b]!);
+    this.#order = order;
     this.#sortedFrequencies = Float64Array.from(order, (k) => frequencies[k]!);
     this.#sortedPsd = Float64Array.from(order, (k) => outputPsd[k]!);
   }
@@ -102,6 +105,22 @@ export class Noise {
    */
   integrated(low: number, high: number): number {
     return Math.sqrt(integratePsd(this.#sortedFrequencies, this.#sortedPsd, low, high));
+  }
+
+  /**
+   * The RMS output noise of each contribution over [low, high] Hz, in the order of
+   * {@link Noise.contributions}, integrated as {@link Noise.integrated}; their squares add up to the
+   * square of `integrated(low, high)`.
+   *
+   * @throws QuiescentError `invalid-value` when low ≥ high or either lies outside the analysed range
+   */
+  integratedContributions(low: number, high: number): Float64Array {
+    const order = this.#order;
+    const psd = new Float64Array(order.length);
+    return Float64Array.from(this.contributions, (c) => {
+      for (let k = 0; k < order.length; k++) psd[k] = c.density[order[k]!]! ** 2;
+      return Math.sqrt(integratePsd(this.#sortedFrequencies, psd, low, high));
+    });
   }
 
   /** Plain data: frequencies, densities and contributions as arrays. */
