@@ -69,7 +69,8 @@ function densityAt(nz: Noise, density: Float64Array, f: number): number {
 /**
  * The noise as two tables: the densities at each decade (1, 10, 100 … Hz) inside the analysed range
  * (its ends when it holds no decade), read on the log-log line between analysed frequencies; and the
- * `top` contributors with their RMS output noise and share of the total power over the whole range.
+ * `top` contributors with their RMS output noise and share of the total power over the whole range,
+ * the largest RMS first.
  *
  * @param nz - the noise analysis
  * @param options - `top` (default 5) and `digits` (default 4)
@@ -126,10 +127,11 @@ export function noiseTables(nz: Noise, options: NoiseReportOptions = {}): TextTa
       { header: high > low ? 'RMS at the output' : 'density (per √Hz)', align: 'right' },
       { header: 'share of power', align: 'right' },
     ],
-    rows: nz.contributions
+    rows: Array.from(rms.keys())
+      .sort((a, b) => rms[b]! - rms[a]! || a - b)
       .slice(0, top)
-      .map((c, i) => [
-        contributionLabel(c),
+      .map((i) => [
+        contributionLabel(nz.contributions[i]!),
         cell(rms[i]!, unit, digits),
         `${total > 0 ? ((100 * rms[i]! ** 2) / total).toFixed(1) : '0.0'} %`,
       ]),
