@@ -137,6 +137,12 @@ interface GeneratorTable {
   readonly to: Int32Array;
   readonly white: Float64Array;
   readonly flicker: Float64Array;
+  /** 1 for a generator with a frequency-dependent weight. */
+  readonly weighted: Uint8Array;
+  /** 1 for a generator that is part of the output current itself (set per analysis). */
+  readonly direct: Float64Array;
+  /** Scratch for a generator's weight. */
+  readonly weight: Float64Array;
 }
 
 function collectGenerators(op: OperatingPoint): GeneratorTable {
@@ -156,6 +162,9 @@ function collectGenerators(op: OperatingPoint): GeneratorTable {
     to: Int32Array.from(generators, (g) => g.to),
     white: Float64Array.from(generators, (g) => g.white),
     flicker: Float64Array.from(generators, (g) => g.flicker),
+    weighted: Uint8Array.from(generators, (g) => (g.weightAt === undefined ? 0 : 1)),
+    direct: new Float64Array(generators.length),
+    weight: new Float64Array(2),
   };
 }
 
@@ -239,46 +248,26 @@ export function noise(op: OperatingPoint, options: NoiseOptions): Noise {
   const source =
     options.sourceResistor === undefined ? -1 : sourceResistorGenerator(table, op, options.sourceResistor);
 
-  const { generators, from, to, white, flicker } = table;
-  const size = generators.length;
-  const weighted = Uint8Array.from(generators, (g) => (g.weightAt === undefined ? 0 : 1));
+  const size = table.generators.length;
   // A generator inside the output element's own current reaches the output directly, besides its response.
   const outputElement =
     typeof options.output === 'object' && 'element' in options.output ? options.output.element : undefined;
-  const direct = Float64Array.from(generators, (g, index) =>
-    g.ownCurrent === true && table.owners[index] === outputElement ? 1 : 0,
-  );
-  const power = new Float64Array(size * count); // generator g at frequency k: power[g·count + k]
+  for (let g = 0; g < size; g++) {
+    table.direct[g] = table.generators[g]!.ownCurrent === true && table.owners[g] === outputElement ? 1 : 0;
+  }
+  const power = new Float64Array(size * count); // frequency k, generator g: power[k·size + g]
   const total = new Float64Array(count);
   const gainSquared = new Float64Array(count);
   const zr = new Float64Array(n + 1);
   const zi = new Float64Array(n + 1);
-  const weight = new Float64Array(2);
   for (let k = 0; k < count; k++) {
     const f = frequencies[k]!;
-    const omega = 2 * Math.PI * f;
     workspace.factorAt(f);
     zr.fill(0);
     zi.fill(0);
-    output.addAt(omega, zr, zi);
+    output.addAt(2 * Math.PI * f, zr, zi);
     workspace.solveTranspose(zr, zi);
-    let sum = 0;
-    for (let g = 0; g < size; g++) {
-      let tr = zr[to[g]!]! - zr[from[g]!]! + direct[g]!;
-      let ti = zi[to[g]!]! - zi[from[g]!]!;
-      if (weighted[g] === 1) {
-        generators[g]!.weightAt!(omega, weight);
-        const wr = weight[0]!;
-        const wi = weight[1]!;
-        const r = tr * wr - ti * wi;
-        ti = tr * wi + ti * wr;
-        tr = r;
-      }
-      const p = (tr * tr + ti * ti) * (white[g]! + flicker[g]! / f);
-      power[g * count + k] = p;
-      sum += p;
-    }
-    total[k] = sum;
+    total[k] = generatorPowers(table, zr, zi, f, power, k * size);
     if (input !== undefined) {
       const hr = zr[input[1]]! - zr[input[0]]!;
       const hi = zi[input[1]]! - zi[input[0]]!;
@@ -304,31 +293,83 @@ export function noise(op: OperatingPoint, options: NoiseOptions): Noise {
   if (source >= 0) {
     noiseFigure = new Float64Array(count);
     for (let k = 0; k < count; k++) {
-      noiseFigure[k] = 10 * Math.log10(total[k]! / power[source * count + k]!);
+      noiseFigure[k] = 10 * Math.log10(total[k]! / power[k * size + source]!);
     }
   }
-  return new Noise(
-    op,
-    options,
-    frequencies,
-    total,
-    rankContributions(table, power, count),
-    inputDensity,
-    noiseFigure,
-  );
+  const contributions = rankContributions(table, byGenerator(power, size, count), count);
+  return new Noise(op, options, frequencies, total, contributions, inputDensity, noiseFigure);
 }
 
-/** One contribution per generator, the largest total power first (device order on a tie). */
-function rankContributions(table: GeneratorTable, power: Float64Array, count: number): NoiseContribution[] {
+/**
+ * Every generator's output PSD at frequency f, from the adjoint solution (zr, zi), written to
+ * power[offset + g]; returns their sum. The transfer of a generator from `from` into `to` is
+ * z[to] − z[from] (times its weight, plus 1 when it is part of the output current itself).
+ */
+function generatorPowers(
+  table: GeneratorTable,
+  zr: Float64Array,
+  zi: Float64Array,
+  f: number,
+  power: Float64Array,
+  offset: number,
+): number {
+  const { from, to, white, flicker, direct, weighted, generators, weight } = table;
+  const omega = 2 * Math.PI * f;
+  let sum = 0;
+  for (let g = 0; g < from.length; g++) {
+    let tr = zr[to[g]!]! - zr[from[g]!]! + direct[g]!;
+    let ti = zi[to[g]!]! - zi[from[g]!]!;
+    if (weighted[g] === 1) {
+      generators[g]!.weightAt!(omega, weight);
+      const wr = weight[0]!;
+      const wi = weight[1]!;
+      const r = tr * wr - ti * wi;
+      ti = tr * wi + ti * wr;
+      tr = r;
+    }
+    const p = (tr * tr + ti * ti) * (white[g]! + flicker[g]! / f);
+    power[offset + g] = p;
+    sum += p;
+  }
+  return sum;
+}
+
+/** Block size of the transpose below: a tile of TILE × TILE doubles stays in the first-level cache. */
+const TILE = 32;
+
+/** The frequency-major PSDs as generator-major densities (√), transposed tile by tile. */
+function byGenerator(power: Float64Array, size: number, count: number): Float64Array {
+  const out = new Float64Array(size * count);
+  for (let k0 = 0; k0 < count; k0 += TILE) {
+    const k1 = Math.min(count, k0 + TILE);
+    for (let g0 = 0; g0 < size; g0 += TILE) {
+      const g1 = Math.min(size, g0 + TILE);
+      for (let g = g0; g < g1; g++) {
+        for (let k = k0; k < k1; k++) out[g * count + k] = Math.sqrt(power[k * size + g]!);
+      }
+    }
+  }
+  return out;
+}
+
+/**
+ * One contribution per generator, its density a view of `densities`, the largest total power first
+ * (device order on a tie).
+ */
+function rankContributions(
+  table: GeneratorTable,
+  densities: Float64Array,
+  count: number,
+): NoiseContribution[] {
   const entries = table.generators.map((g, index) => {
-    const psd = power.subarray(index * count, (index + 1) * count);
+    const density = densities.subarray(index * count, (index + 1) * count);
     let sum = 0;
-    for (const p of psd) sum += p;
+    for (let k = 0; k < count; k++) sum += density[k]! * density[k]!;
     const contribution: NoiseContribution = {
       element: table.owners[index]!,
       mechanism: g.mechanism,
       ...(g.terminal === undefined ? {} : { terminal: g.terminal }),
-      density: psd.map(Math.sqrt),
+      density,
     };
     return { contribution, sum, index };
   });
