@@ -143,7 +143,13 @@ export {
   linearityTables,
   linearityVerdict,
 } from './report/linearity-table.js';
-export { type NoiseContributionJson, type NoiseJson, noiseToJson } from './report/noise-json.js';
+export {
+  type NoiseContributionJson,
+  type NoiseFigureJson,
+  type NoiseInputJson,
+  type NoiseJson,
+  noiseToJson,
+} from './report/noise-json.js';
 export { type NoisePlotOptions, noisePlotSvg } from './report/noise-plot.js';
 export { formatNoise, type NoiseReportOptions, noiseTables } from './report/noise-table.js';
 export {

@@ -19,6 +19,22 @@ export interface NoiseContributionJson {
   readonly density: readonly number[];
 }
 
+/** The input-referred density as JSON. */
+export interface NoiseInputJson {
+  /** The independent source the noise is referred to. */
+  readonly source: string;
+  /** Input-referred density at each frequency, in V/√Hz (A/√Hz for a current source). */
+  readonly density: readonly number[];
+}
+
+/** The noise figure as JSON. */
+export interface NoiseFigureJson {
+  /** The resistor that stands for the signal source. */
+  readonly sourceResistor: string;
+  /** The noise figure at each frequency in dB; `null` where the source resistor does not reach the output. */
+  readonly decibels: readonly (number | null)[];
+}
+
 /** A noise analysis as plain JSON. */
 export interface NoiseJson {
   /** The output, as it was given: a node name, `{ node, reference }` or `{ element }`. */
@@ -30,9 +46,9 @@ export interface NoiseJson {
   /** Output density at each frequency. */
   readonly outputDensity: readonly number[];
   /** The input source and the input-referred density, when an input was named. */
-  readonly input?: { readonly source: string; readonly density: readonly number[] };
+  readonly input?: NoiseInputJson;
   /** The source resistor and the noise figure in dB, when one was named. */
-  readonly noiseFigure?: { readonly sourceResistor: string; readonly decibels: readonly (number | null)[] };
+  readonly noiseFigure?: NoiseFigureJson;
   /** Every generator's contribution, the largest first. */
   readonly contributions: readonly NoiseContributionJson[];
 }
