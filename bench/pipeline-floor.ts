@@ -30,7 +30,17 @@ const { values } = parseArgs({
 const dir = mkdtempSync(join(tmpdir(), 'pipeline-floor-'));
 const lines = execFileSync(
   process.execPath,
-  ['--import', 'tsx', join(here, 'pipeline.ts'), '--families', values.families!, '--sizes', values.sizes!, '--export', dir],
+  [
+    '--import',
+    'tsx',
+    join(here, 'pipeline.ts'),
+    '--families',
+    values.families!,
+    '--sizes',
+    values.sizes!,
+    '--export',
+    dir,
+  ],
   { encoding: 'utf8', maxBuffer: 1 << 24 },
 )
   .split('\n')

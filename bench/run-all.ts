@@ -13,6 +13,7 @@ const BENCHMARKS: readonly (readonly string[])[] = [
   ['ac-analysis.ts'],
   ['pipeline.ts', '--sizes', '1000,10000'],
   ['small-circuit.ts'],
+  ['noise.ts'],
 ];
 
 const here = dirname(fileURLToPath(import.meta.url));

@@ -38,6 +38,7 @@ export {
   type LinearityReport,
   linearity,
 } from './analysis/linearity.js';
+export { Noise, type NoiseContribution, type NoiseOptions, noise } from './analysis/noise.js';
 export { OperatingPoint } from './analysis/operating-point.js';
 export { DEFAULT_TEMPERATURE, type OperatingPointOptions } from './analysis/options.js';
 export { type Port, portImpedance } from './analysis/port-impedance.js';
@@ -74,6 +75,7 @@ export {
   Circuit,
   type MosfetTerminals,
   type OpAmpTerminals,
+  type ResistorOptions,
   type SourceSpec,
 } from './circuit/circuit.js';
 export {
@@ -98,6 +100,7 @@ export {
 } from './circuit/elements.js';
 export { type CircuitDocument, DOCUMENT_FORMAT, DOCUMENT_VERSION } from './circuit/json.js';
 export type { BjtModel } from './devices/bjt-model.js';
+export type { NoiseMechanism } from './devices/device.js';
 export type { DiodeModel } from './devices/diode-model.js';
 export { BOLTZMANN, ELEMENTARY_CHARGE, thermalVoltage } from './devices/junction.js';
 export type { MosfetModel } from './devices/mosfet-model.js';
@@ -151,6 +154,15 @@ export {
   linearityTables,
   linearityVerdict,
 } from './report/linearity-table.js';
+export {
+  type NoiseContributionJson,
+  type NoiseFigureJson,
+  type NoiseInputJson,
+  type NoiseJson,
+  noiseToJson,
+} from './report/noise-json.js';
+export { type NoisePlotOptions, noisePlotSvg } from './report/noise-plot.js';
+export { formatNoise, type NoiseReportOptions, noiseTables } from './report/noise-table.js';
 export {
   type FormatOptions,
   formatValue,

@@ -222,57 +222,31 @@ export class AcWorkspace {
   }
 
   /**
-   * Overwrite (re, im) with the solution of the transposed system Aᵀy = re + j·im (plain transpose,
-   * no conjugation) on the last factorization: the adjoint solve that gives the transfer from every
-   * unknown's row to one output at once. Its residual is checked as the direct solve's is.
+   * Overwrite (re, im), a right-hand side of length n+1, with the solution of the transposed system
+   * Aᵀ·z = b (plain transpose, no conjugation) of the last factored system, and check its residual.
+   * Its solution z gives the output response y = cᵀ·x to every excitation b at once, as y = zᵀ·b,
+   * when (re, im) held the output's coefficients c (the adjoint method). re[n] and im[n] are set to 0.
    */
   solveTranspose(re: Float64Array, im: Float64Array): void {
-    const n = this.system.n;
-    const rr = this.#residualRe;
-    const ri = this.#residualIm;
     this.#keepRightHandSide(re, im);
     this.#solver.solveTranspose(re, im);
-    re[n] = 0;
-    im[n] = 0;
-    // r = b − Aᵀy: row i of Aᵀ is column i of A.
-    const { Ap, Ai: rows } = this.system.pattern;
-    const Ar = this.Ar;
-    const Az = this.Ai;
-    let bNorm = 0;
-    let yNorm = 0;
-    for (let i = 0; i < n; i++) {
-      bNorm = Math.max(bNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
-      yNorm = Math.max(yNorm, Math.abs(re[i]!) + Math.abs(im[i]!));
-    }
-    let rNorm = 0;
-    for (let j = 0; j < n; j++) {
-      let sr = rr[j]!;
-      let si = ri[j]!;
-      for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
-        const i = rows[p]!;
-        const ar = Ar[p]!;
-        const ai = Az[p]!;
-        sr -= ar * re[i]! - ai * im[i]!;
-        si -= ar * im[i]! + ai * re[i]!;
-      }
-      rNorm = Math.max(rNorm, Math.abs(sr) + Math.abs(si));
-    }
-    const scale = bNorm + this.#aNorm * yNorm;
-    if (!(rNorm <= AC_RESIDUAL_LIMIT * scale) && !(scale === 0 && rNorm === 0)) {
-      throw singularAt(
-        this.system,
-        0,
-        `in the transposed small-signal circuit at ${this.#frequency} Hz (relative residual ${(rNorm / scale).toExponential(1)})`,
-      );
-    }
+    re[this.system.n] = 0;
+    im[this.system.n] = 0;
+    this.#checkResidual(re, im, this.#residualRe, this.#residualIm, true);
   }
 
   /**
-   * r = b − A·x on the pattern, against ‖b‖ + ‖A‖·‖x‖ (max norms); refuse a solve that misses. Each
+   * r = b − A·x (or b − Aᵀ·x) on the pattern, against ‖b‖ + ‖A‖·‖x‖ (max norms); refuse a solve that misses. Each
    * complex modulus is bounded by |re| + |im| (within √2 of it), which is ample against the limit and
    * far cheaper than Math.hypot on every nonzero.
    */
-  #checkResidual(xr: Float64Array, xi: Float64Array, rr: Float64Array, ri: Float64Array): void {
+  #checkResidual(
+    xr: Float64Array,
+    xi: Float64Array,
+    rr: Float64Array,
+    ri: Float64Array,
+    transposed = false,
+  ): void {
     const { n, pattern } = this.system;
     const { Ap, Ai: rows } = pattern;
     const Ar = this.Ar;
@@ -280,8 +254,25 @@ export class AcWorkspace {
     let bNorm = 0;
     let xNorm = 0;
     for (let i = 0; i < n; i++) bNorm = Math.max(bNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
+    if (transposed) {
+      // (Aᵀx)_j = Σ over column j of A(i, j)·x_i.
+      for (let j = 0; j < n; j++) {
+        xNorm = Math.max(xNorm, Math.abs(xr[j]!) + Math.abs(xi[j]!));
+        let sr = 0;
+        let si = 0;
+        for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+          const i = rows[p]!;
+          const ar = Ar[p]!;
+          const ai = Az[p]!;
+          sr += ar * xr[i]! - ai * xi[i]!;
+          si += ar * xi[i]! + ai * xr[i]!;
+        }
+        rr[j]! -= sr;
+        ri[j]! -= si;
+      }
+    }
     let begin = Ap[0]!;
-    for (let j = 0; j < n; j++) {
+    for (let j = 0; j < n && !transposed; j++) {
       const vr = xr[j]!;
       const vi = xi[j]!;
       xNorm = Math.max(xNorm, Math.abs(vr) + Math.abs(vi));

@@ -28,6 +28,12 @@ export interface SourceSpec {
       };
 }
 
+/** Options of {@link Circuit.resistor}. */
+export interface ResistorOptions {
+  /** When true the resistor carries no thermal noise in a noise analysis (default false). */
+  readonly noiseless?: boolean;
+}
+
 /** Terminals of an op-amp. */
 export interface OpAmpTerminals {
   /** The non-inverting input node. */
@@ -101,15 +107,20 @@ export class Circuit {
     return [...seen];
   }
 
-  /** Add a resistor of `resistance` Ω (> 0) between nodes `a` and `b`. */
-  resistor(name: string, a: string, b: string, resistance: Value): this {
+  /**
+   * Add a resistor of `resistance` Ω (> 0) between nodes `a` and `b`. With `{ noiseless: true }` it
+   * carries no thermal noise in a noise analysis (an idealized part, or one modelled elsewhere).
+   */
+  resistor(name: string, a: string, b: string, resistance: Value, options?: ResistorOptions): this {
     const path = this.#start(name);
+    const noiseless = noiselessOption(options, [...path, 'options']);
     return this.#add({
       kind: 'resistor',
       name,
       a: node(a, [...path, 'a']),
       b: node(b, [...path, 'b']),
       resistance: positive(resistance, 'Ω', [...path, 'resistance']),
+      ...(noiseless ? { noiseless: true as const } : {}),
     });
   }
 
@@ -327,6 +338,23 @@ export class Circuit {
     this.#revision++;
     return this;
   }
+}
+
+/** The `noiseless` flag of a resistor's options, checked. */
+function noiselessOption(options: unknown, path: readonly (string | number)[]): boolean {
+  if (options === undefined) return false;
+  if (options === null || typeof options !== 'object' || Array.isArray(options)) {
+    throw invalidCircuit(path, 'resistor options must be an object { noiseless? }');
+  }
+  for (const key of Object.keys(options)) {
+    if (key !== 'noiseless')
+      throw invalidCircuit([...path, key], 'is not a resistor option; the option is noiseless');
+  }
+  const flag = (options as { noiseless?: unknown }).noiseless;
+  if (flag !== undefined && typeof flag !== 'boolean') {
+    throw invalidCircuit([...path, 'noiseless'], 'must be true or false');
+  }
+  return flag === true;
 }
 
 function describe(x: unknown): string {

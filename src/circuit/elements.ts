@@ -34,6 +34,8 @@ export interface ResistorRecord {
   readonly b: string;
   /** Resistance in Ω (> 0). */
   readonly resistance: number;
+  /** Present and true when the resistor was built without thermal noise (see docs/noise.md). */
+  readonly noiseless?: true;
 }
 /** A capacitor between nodes `a` and `b`. */
 export interface CapacitorRecord {

@@ -43,11 +43,11 @@ export function circuitToJson(elements: readonly ElementRecord[]): CircuitDocume
   return { format: DOCUMENT_FORMAT, version: DOCUMENT_VERSION, elements: out };
 }
 
-type FieldType = 'string' | 'number' | 'ac' | 'object' | 'polarity';
+type FieldType = 'string' | 'number' | 'boolean' | 'ac' | 'object' | 'polarity';
 
 /** The fields of each kind of record, with their JSON types; optional fields end in '?'. */
 const FIELDS: Readonly<Record<ElementKind, Readonly<Record<string, FieldType>>>> = {
-  resistor: { a: 'string', b: 'string', resistance: 'number' },
+  resistor: { a: 'string', b: 'string', resistance: 'number', 'noiseless?': 'boolean' },
   capacitor: { a: 'string', b: 'string', capacitance: 'number' },
   inductor: { a: 'string', b: 'string', inductance: 'number' },
   'voltage-source': { plus: 'string', minus: 'string', 'dc?': 'number', 'ac?': 'ac' },
@@ -103,11 +103,13 @@ function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (str
         ? typeof v === 'string'
         : type === 'number'
           ? typeof v === 'number'
-          : type === 'polarity'
-            ? typeof v === 'string'
-            : type === 'ac'
-              ? typeof v === 'number' || isPlainObject(v)
-              : isPlainObject(v);
+          : type === 'boolean'
+            ? typeof v === 'boolean'
+            : type === 'polarity'
+              ? typeof v === 'string'
+              : type === 'ac'
+                ? typeof v === 'number' || isPlainObject(v)
+                : isPlainObject(v);
     if (!ok)
       throw invalidCircuit(
         [...path, key],
@@ -191,7 +193,8 @@ function replay(c: Circuit, kind: ElementKind, r: Record<string, unknown>): void
   const name = s('name');
   switch (kind) {
     case 'resistor':
-      c.resistor(name, s('a'), s('b'), n('resistance'));
+      if (r.noiseless === undefined) c.resistor(name, s('a'), s('b'), n('resistance'));
+      else c.resistor(name, s('a'), s('b'), n('resistance'), { noiseless: r.noiseless as boolean });
       return;
     case 'capacitor':
       c.capacitor(name, s('a'), s('b'), n('capacitance'));

@@ -38,6 +38,10 @@ export interface BjtModel {
   saturationCurrentTemperatureExponent?: Value;
   /** The temperature, in K, at which `saturationCurrent` is given (default 300.15). */
   referenceTemperature?: Value;
+  /** Flicker noise coefficient K_f, in A^(2 − flickerExponent): the 1/f noise PSD is K_f·|i|^a_f/f (default 0: none). */
+  flickerCoefficient?: Value;
+  /** Flicker noise exponent a_f of the current in the 1/f noise PSD (default 1). */
+  flickerExponent?: Value;
 }
 
 /** Parameter table of the bipolar transistor (polarity excluded). */
@@ -58,4 +62,6 @@ export const BJT_PARAMETERS: ParameterTable<Exclude<keyof BjtModel, 'polarity'>>
   bandgap: { unit: 'eV', defaultValue: 1.12, range: 'positive' },
   saturationCurrentTemperatureExponent: { defaultValue: 3, range: 'any' },
   referenceTemperature: { unit: 'K', defaultValue: 300.15, range: 'positive' },
+  flickerCoefficient: { defaultValue: 0, range: 'non-negative' },
+  flickerExponent: { defaultValue: 1, range: 'positive' },
 };

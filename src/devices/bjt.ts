@@ -19,6 +19,7 @@ import type {
   Device,
   DeviceReport,
   JunctionProbe,
+  NoiseGenerator,
   NonlinearCurrent,
 } from './device.js';
 import {
@@ -32,6 +33,7 @@ import {
   limitJunctionStep,
   saturationCurrentAt,
 } from './junction.js';
+import { flickerNoise, shotNoise, thermalNoise } from './noise-densities.js';
 import { withDefaults } from './parameters.js';
 
 /** A junction counts as forward-biased above this many n·Vt (about 0.41 V for n = 1 at 300 K). */
@@ -329,6 +331,43 @@ export class Bjt implements Device {
         second: [g2 / p.reverseBeta],
         third: [g3 / p.reverseBeta],
       },
+    ];
+  }
+  /**
+   * Shot noise 2q·|ic| (collector to emitter) and 2q·|ib| (base to emitter), flicker noise
+   * K_f·|ib|^a_f/f of the base current, and the thermal noise 4kT/R of each nonzero terminal
+   * resistance, between the terminal and the internal node behind it.
+   */
+  noiseGenerators(x: Float64Array, { temperature }: Conditions): readonly NoiseGenerator[] {
+    const p = this.p;
+    const [vbe, vbc] = this.mirrored(x);
+    this.evaluate(vbe, vbc, true);
+    const { c, b, e } = this;
+    const out: NoiseGenerator[] = [
+      { mechanism: 'shot', terminal: 'collector', from: c, to: e, white: shotNoise(this.ic), flicker: 0 },
+      { mechanism: 'shot', terminal: 'base', from: b, to: e, white: shotNoise(this.ib), flicker: 0 },
+    ];
+    const flicker = flickerNoise(p.flickerCoefficient, p.flickerExponent, this.ib);
+    if (flicker > 0) out.push({ mechanism: 'flicker', terminal: 'base', from: b, to: e, white: 0, flicker });
+    // Terminal resistances, when the model has them: (terminal, resistance, terminal node, internal node).
+    const terminals = this.terminalResistances();
+    for (const [terminal, resistance, outer, inner] of terminals) {
+      if (!(resistance > 0)) continue;
+      const white = thermalNoise(temperature, resistance);
+      out.push({ mechanism: 'thermal', terminal, from: outer, to: inner, white, flicker: 0 });
+    }
+    return out;
+  }
+  /**
+   * Each terminal's ohmic resistance (0 when the model has none) with the terminal's node and the
+   * internal node behind it; without a resistance the two are the same node.
+   */
+  private terminalResistances(): readonly [string, number, number, number][] {
+    const r = this.p as Partial<Record<string, number>>;
+    return [
+      ['base', r.baseResistance ?? 0, this.b, this.b],
+      ['collector', r.collectorResistance ?? 0, this.c, this.c],
+      ['emitter', r.emitterResistance ?? 0, this.e, this.e],
     ];
   }
 }

@@ -20,6 +20,10 @@ export interface MosfetModel {
   gateSourceCapacitance?: Value;
   /** Gate-drain capacitance in F (default 0). */
   gateDrainCapacitance?: Value;
+  /** Flicker noise coefficient K_f, in A^(2 − flickerExponent): the 1/f noise PSD is K_f·|i|^a_f/f (default 0: none). */
+  flickerCoefficient?: Value;
+  /** Flicker noise exponent a_f of the current in the 1/f noise PSD (default 1). */
+  flickerExponent?: Value;
 }
 
 /** Parameter table of the MOSFET (polarity excluded; the threshold default depends on polarity). */
@@ -31,6 +35,8 @@ export const MOSFET_PARAMETERS: ParameterTable<Exclude<keyof MosfetModel, 'polar
   surfacePotential: { unit: 'V', defaultValue: 0.7, range: 'positive' },
   gateSourceCapacitance: { unit: 'F', defaultValue: 0, range: 'non-negative' },
   gateDrainCapacitance: { unit: 'F', defaultValue: 0, range: 'non-negative' },
+  flickerCoefficient: { defaultValue: 0, range: 'non-negative' },
+  flickerExponent: { defaultValue: 1, range: 'positive' },
 };
 
 /** The default threshold voltage of each polarity, in V. */

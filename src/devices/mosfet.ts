@@ -18,9 +18,11 @@ import type {
   Device,
   DeviceReport,
   JunctionProbe,
+  NoiseGenerator,
   NonlinearCurrent,
 } from './device.js';
 import { defaultThreshold, MOSFET_PARAMETERS } from './mosfet-model.js';
+import { channelThermalNoise, flickerNoise } from './noise-densities.js';
 import { withDefaults } from './parameters.js';
 
 /** The operating region of a MOSFET. */
@@ -329,5 +331,21 @@ export class Mosfet implements Device {
         third,
       },
     ];
+  }
+  /**
+   * The channel's thermal noise 4kT·(2/3)·β·V_ov·(1 + η + η²)/(1 + η) (η = 1 − v_ds/V_ov in triode, 0 in
+   * saturation; 0 in cutoff) and flicker noise K_f·|id|^a_f/f, both between drain and source.
+   */
+  noiseGenerators(x: Float64Array, { temperature }: Conditions): readonly NoiseGenerator[] {
+    const p = this.p;
+    const [vgs, vds, vbs] = this.mirrored(x);
+    this.evaluate(vgs, vds, vbs);
+    // In the frame of the effective source (the drain when reversed), where v_ds ≥ 0.
+    const overdrive = (this.reversed ? vgs - vds : vgs) - this.vth;
+    const white = channelThermalNoise(temperature, p.gainFactor, overdrive, Math.abs(vds));
+    const out: NoiseGenerator[] = [{ mechanism: 'thermal', from: this.d, to: this.s, white, flicker: 0 }];
+    const flicker = flickerNoise(p.flickerCoefficient, p.flickerExponent, this.id);
+    if (flicker > 0) out.push({ mechanism: 'flicker', from: this.d, to: this.s, white: 0, flicker });
+    return out;
   }
 }

@@ -13,6 +13,14 @@ export interface OpAmpOptions {
   gainBandwidth?: Value;
   /** Output resistance in Ω, in series with the output (default 0). */
   outputResistance?: Value;
+  /** Input voltage noise density e_n at high frequency, in V/√Hz (default 0); see docs/noise.md. */
+  inputNoiseVoltage?: Value;
+  /** Input current noise density i_n at high frequency, at each input, in A/√Hz (default 0). */
+  inputNoiseCurrent?: Value;
+  /** The 1/f corner of the voltage noise, in Hz: its PSD is e_n²·(1 + corner/f) (default 0). */
+  voltageNoiseCorner?: Value;
+  /** The 1/f corner of the current noise, in Hz: its PSD is i_n²·(1 + corner/f) (default 0). */
+  currentNoiseCorner?: Value;
 }
 
 /** Parameter table of the op-amp options. */
@@ -20,4 +28,8 @@ export const OP_AMP_PARAMETERS: ParameterTable<keyof OpAmpOptions> = {
   openLoopGain: { defaultValue: 1e5, range: 'positive' },
   gainBandwidth: { unit: 'Hz', defaultValue: Number.POSITIVE_INFINITY, range: 'positive-or-infinite' },
   outputResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
+  inputNoiseVoltage: { defaultValue: 0, range: 'non-negative' },
+  inputNoiseCurrent: { defaultValue: 0, range: 'non-negative' },
+  voltageNoiseCorner: { unit: 'Hz', defaultValue: 0, range: 'non-negative' },
+  currentNoiseCorner: { unit: 'Hz', defaultValue: 0, range: 'non-negative' },
 };
