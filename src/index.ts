@@ -57,6 +57,8 @@ export type {
   DiodeReport,
   MosfetRegion,
   MosfetReport,
+  OpAmpRegion,
+  OpAmpReport,
 } from './analysis/reports.js';
 export {
   type BjtTerminals,

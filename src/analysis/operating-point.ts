@@ -24,7 +24,7 @@ import {
   worstResidualExcess,
 } from './newton.js';
 import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
-import type { BjtReport, DeviceReport, DiodeReport, MosfetReport } from './reports.js';
+import type { BjtReport, DeviceReport, DiodeReport, MosfetReport, OpAmpReport } from './reports.js';
 
 /** The DC solution of a circuit: node voltages, element currents and every device's operating values. */
 export class OperatingPoint {
@@ -92,12 +92,12 @@ export class OperatingPoint {
     return d.current(this.x);
   }
 
-  /** The operating values and small-signal parameters of a diode, bipolar transistor or MOSFET. */
+  /** The operating values and small-signal parameters of a diode, bipolar transistor or MOSFET, or an op-amp's input, output and region. */
   device(name: string): DeviceReport {
     const d = this.system.deviceByName.get(name);
     if (d === undefined) throw unknownElement(name);
     if (d.report === undefined)
-      throw unknownElement(name, 'only diodes and transistors have a device report');
+      throw unknownElement(name, 'only diodes, transistors and op-amps have a device report');
     d.prepare?.(this.conditions);
     return Object.freeze({ kind: d.record.kind, ...d.report(this.x) }) as DeviceReport;
   }
@@ -113,6 +113,10 @@ export class OperatingPoint {
   /** The report of a MOSFET (throws `unknown-element` if `name` is not one). */
   mosfet(name: string): MosfetReport {
     return this.#typed(name, 'mosfet') as MosfetReport;
+  }
+  /** The report of an op-amp (throws `unknown-element` if `name` is not one). */
+  opAmp(name: string): OpAmpReport {
+    return this.#typed(name, 'op-amp') as OpAmpReport;
   }
 
   /**

@@ -98,5 +98,23 @@ export interface MosfetReport {
   readonly overdrive: number;
 }
 
+/** Where an op-amp's output sits: in its linear range, or held near a limit. */
+export type OpAmpRegion = 'linear' | 'limited-high' | 'limited-low';
+
+/** An op-amp at its operating point. Voltages in V. */
+export interface OpAmpReport {
+  /** Always `'op-amp'`; narrows a {@link DeviceReport}. */
+  readonly kind: 'op-amp';
+  /** v(plus) − v(minus) at the terminals (the offset voltage not included). */
+  readonly differentialInput: number;
+  /** The output terminal's voltage to ground, after the output resistance. */
+  readonly outputVoltage: number;
+  /**
+   * `'linear'` (always, for the ideal model), or `'limited-high'` / `'limited-low'` when the output
+   * limiter's slope at the solution is below one half.
+   */
+  readonly region: OpAmpRegion;
+}
+
 /** Any device report; narrow it by `kind`. */
-export type DeviceReport = DiodeReport | BjtReport | MosfetReport;
+export type DeviceReport = DiodeReport | BjtReport | MosfetReport | OpAmpReport;
