@@ -55,6 +55,7 @@ export type {
   BjtReport,
   DeviceReport,
   DiodeReport,
+  InversionLevel,
   MosfetRegion,
   MosfetReport,
   OpAmpRegion,
