@@ -103,6 +103,20 @@ export {
   type StrategyAttempt,
 } from './errors/quiescent-error.js';
 export {
+  type BjtEarlyVoltageFitOptions,
+  type BjtGummelFitOptions,
+  type DiodeFitOptions,
+  type FitResult,
+  fitBjtEarlyVoltage,
+  fitBjtGummel,
+  fitDiode,
+  fitMosfet,
+  type MeasuredColumns,
+  type Measurements,
+  type MosfetFitOptions,
+  readMeasurements,
+} from './fitting/index.js';
+export {
   type AcAnalysisJson,
   type AcReportOptions,
   acAnalysisToJson,

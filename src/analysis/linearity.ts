@@ -20,9 +20,9 @@ import {
   junctionAmplitudeForBound,
   junctionNonlinearity,
 } from '../math/junction-nonlinearity.js';
+import { taylorAmplitudeForBound, taylorNonlinearity } from '../math/taylor-nonlinearity.js';
 import { type LinearityReportJson, linearityToJson } from '../report/result-json.js';
 import type { AcAnalysis } from './ac-analysis.js';
-import { taylorAmplitudeForBound, taylorNonlinearity } from '../math/taylor-nonlinearity.js';
 import { forwardBias } from './junction-bias.js';
 import { prepareDevices } from './newton.js';
 

@@ -252,10 +252,10 @@ export class Circuit {
       options:
         options === undefined
           ? undefined
-          : checkOpAmpOptions(
-              parseParameters(OP_AMP_PARAMETERS, options, [...path, 'options'], 'op-amp'),
-              [...path, 'options'],
-            ),
+          : checkOpAmpOptions(parseParameters(OP_AMP_PARAMETERS, options, [...path, 'options'], 'op-amp'), [
+              ...path,
+              'options',
+            ]),
     });
   }
 

@@ -66,8 +66,7 @@ export class Bjt implements Device {
   private sRb: Int32Array = new Int32Array(0);
   private sRe: Int32Array = new Int32Array(0);
   private kneeCurrent = Number.POSITIVE_INFINITY;
-  /** q_h of the last evaluation, and ∂(Is·e_f/q_h)/∂vbe, the slope of the forward charge over τF. */
-  private qh = 1;
+  /** ∂(Is·e_f/q_h)/∂vbe at the last evaluation: the slope of the forward charge over τF. */
   private forwardChargeSlope = 0;
   // Slots of rows (c, b, e) × columns (c, b, e), row-major, then the two junction capacitors.
   private s: Int32Array = new Int32Array(0);
@@ -199,7 +198,6 @@ export class Bjt implements Device {
       qh = 0.5 * (1 + root);
       dqh = root > 0 ? gf / (knee * root) : 0;
     }
-    this.qh = qh;
     this.forwardChargeSlope = gf / qh - (is * ef * dqh) / (qh * qh);
     this.ic = (transfer * q) / qh - reverseBase - g * vbc;
     this.ib = this.isOverForwardBeta * (ef - 1) + reverseBase + g * (vbe + vbc);
