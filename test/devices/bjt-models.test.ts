@@ -13,13 +13,21 @@ const VT = (1.380649e-23 * T) / 1.602176634e-19;
 function transport(vbe: number, vbc: number, is: number, betaF: number, betaR: number) {
   const ef = Math.exp(vbe / VT);
   const er = Math.exp(vbc / VT);
-  return { ic: is * (ef - er) - (is / betaR) * (er - 1), ib: (is / betaF) * (ef - 1) + (is / betaR) * (er - 1) };
+  return {
+    ic: is * (ef - er) - (is / betaR) * (er - 1),
+    ib: (is / betaF) * (ef - 1) + (is / betaR) * (er - 1),
+  };
 }
 
 describe('bipolar terminal resistances', () => {
   const [rb, rc, re] = [250, 15, 3.3];
   const [VB, VC] = [0.82, 4];
-  const model = { polarity: 'npn' as const, baseResistance: rb, collectorResistance: rc, emitterResistance: re };
+  const model = {
+    polarity: 'npn' as const,
+    baseResistance: rb,
+    collectorResistance: rc,
+    emitterResistance: re,
+  };
   const circuit = new Circuit()
     .voltageSource('drive', 'b', GROUND, { dc: VB })
     .voltageSource('supply', 'c', GROUND, { dc: VC })
@@ -51,7 +59,9 @@ describe('bipolar terminal resistances', () => {
         a[0]![2]! * (a[1]![0]! * a[2]![1]! - a[1]![1]! * a[2]![0]!);
       const A = [0, 1, 2].map((i) => [0, 1, 2].map((j) => m(i, j)));
       const d = det(A);
-      const step = [0, 1, 2].map((j) => det(A.map((row, i) => row.map((v, jj) => (jj === j ? -r[i]! : v)))) / d);
+      const step = [0, 1, 2].map(
+        (j) => det(A.map((row, i) => row.map((v, jj) => (jj === j ? -r[i]! : v)))) / d,
+      );
       b += Math.max(-0.05, Math.min(0.05, step[0]!));
       c += step[1]!;
       e += Math.max(-0.05, Math.min(0.05, step[2]!));
@@ -107,7 +117,11 @@ describe('the knee current of high injection', () => {
           .voltageSource('drive', 'b', GROUND, { dc: c.baseVoltage })
           .voltageSource('supply', 'c', GROUND, { dc: knee.supply })
           .resistor('Re', 'e', GROUND, knee.emitterResistance)
-          .bjt('Q1', { collector: 'c', base: 'b', emitter: 'e' }, { polarity: 'npn', kneeCurrent: knee.kneeCurrent }),
+          .bjt(
+            'Q1',
+            { collector: 'c', base: 'b', emitter: 'e' },
+            { polarity: 'npn', kneeCurrent: knee.kneeCurrent },
+          ),
         BARE,
       );
       const q = op.bjt('Q1');
@@ -128,12 +142,16 @@ describe('the temperature exponent of β', () => {
         new Circuit()
           .voltageSource('drive', 'b', GROUND, { dc: 0.6 })
           .voltageSource('supply', 'c', GROUND, { dc: 0.6 })
-          .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, {
-            polarity: 'npn',
-            betaTemperatureExponent: 1.5,
-            reverseBeta: 2,
-            referenceTemperature: 300,
-          }),
+          .bjt(
+            'Q1',
+            { collector: 'c', base: 'b', emitter: GROUND },
+            {
+              polarity: 'npn',
+              betaTemperatureExponent: 1.5,
+              reverseBeta: 2,
+              referenceTemperature: 300,
+            },
+          ),
         { temperature, junctionConductance: 1e-30 },
       ).bjt('Q1');
     // With vbc = 0 the reverse terms vanish: ic/ib = βF(T)·(e_f − 1)/(e_f − 1) exactly.
@@ -159,13 +177,17 @@ describe('the diffusion capacitance cpi', () => {
             new Circuit()
               .voltageSource('drive', 'b', GROUND, { dc: s * vbe })
               .voltageSource('supply', 'c', GROUND, { dc: s * (vbe - vbc) })
-              .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, {
-                polarity,
-                forwardTransitTime: tau,
-                kneeCurrent,
-                earlyVoltage,
-                baseEmitterCapacitance: '1p',
-              }),
+              .bjt(
+                'Q1',
+                { collector: 'c', base: 'b', emitter: GROUND },
+                {
+                  polarity,
+                  forwardTransitTime: tau,
+                  kneeCurrent,
+                  earlyVoltage,
+                  baseEmitterCapacitance: '1p',
+                },
+              ),
           ).bjt('Q1');
           return q.cpi >= 0;
         },
@@ -188,12 +210,16 @@ describe('the diffusion capacitance cpi', () => {
       new Circuit()
         .voltageSource('drive', 'b', GROUND, { dc: 0.75 })
         .voltageSource('supply', 'c', GROUND, { dc: 0.15 })
-        .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, {
-          polarity: 'npn',
-          forwardTransitTime: tau,
-          kneeCurrent: ik,
-          earlyVoltage: 20,
-        }),
+        .bjt(
+          'Q1',
+          { collector: 'c', base: 'b', emitter: GROUND },
+          {
+            polarity: 'npn',
+            forwardTransitTime: tau,
+            kneeCurrent: ik,
+            earlyVoltage: 20,
+          },
+        ),
       { temperature: T },
     ).bjt('Q1');
     expect(q.region).toBe('saturation');
@@ -205,13 +231,16 @@ describe('the knee current in the nonlinear currents', () => {
   it('gives the exact second and third derivatives of the collector current in vbe', () => {
     // Central differences of ic(vbe) at vbc = −2 V, VA = 40 V, knee 1 mA near the knee (common
     // practice, no source): five-point stencils, step 0.5 mV (second) and 2 mV (third).
-    const collector = (vbe: number) =>
-      operatingPoint(stage(vbe), BARE).bjt('Q1').ic;
+    const collector = (vbe: number) => operatingPoint(stage(vbe), BARE).bjt('Q1').ic;
     const stage = (vbe: number) =>
       new Circuit()
         .voltageSource('drive', 'b', GROUND, { dc: vbe })
         .voltageSource('supply', 'c', GROUND, { dc: vbe + 2 })
-        .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, { polarity: 'npn', kneeCurrent: 1e-3, earlyVoltage: 40 });
+        .bjt(
+          'Q1',
+          { collector: 'c', base: 'b', emitter: GROUND },
+          { polarity: 'npn', kneeCurrent: 1e-3, earlyVoltage: 40 },
+        );
     const v = 0.75;
     const op = operatingPoint(stage(v), BARE);
     const currents = op.system.deviceByName.get('Q1')!.nonlinearCurrents!(op.x);
@@ -222,7 +251,8 @@ describe('the knee current in the nonlinear currents', () => {
     const f = (k: number, h: number) => collector(v + k * h);
     const d2 = (-f(2, h2) + 16 * f(1, h2) - 30 * f(0, h2) + 16 * f(-1, h2) - f(-2, h2)) / (12 * h2 * h2);
     const h3 = 2e-3;
-    const d3 = (-f(3, h3) + 8 * f(2, h3) - 13 * f(1, h3) + 13 * f(-1, h3) - 8 * f(-2, h3) + f(-3, h3)) / (8 * h3 ** 3);
+    const d3 =
+      (-f(3, h3) + 8 * f(2, h3) - 13 * f(1, h3) + 13 * f(-1, h3) - 8 * f(-2, h3) + f(-3, h3)) / (8 * h3 ** 3);
     expectRelativelyClose(second, d2, 1e-5, '∂²ic/∂vbe²');
     expectRelativelyClose(third, d3, 1e-3, '∂³ic/∂vbe³');
   });

@@ -102,7 +102,12 @@ describe('the charge-based MOSFET channel', () => {
     const scale = c.id / c.gm;
     expectRelativelyClose(entry.scale, scale, 1e-9, 'scale id/gm');
     const x = entry.amplitude / scale;
-    expectRelativelyClose(entry.secondHarmonic, ((c.d2Dvgs2 * scale) / c.gm) * (x / 4), 1e-6, 'second harmonic');
+    expectRelativelyClose(
+      entry.secondHarmonic,
+      ((c.d2Dvgs2 * scale) / c.gm) * (x / 4),
+      1e-6,
+      'second harmonic',
+    );
   });
 });
 
@@ -117,7 +122,10 @@ describe('MOSFET temperature laws and channel conductance', () => {
       mobilityTemperatureExponent: 1.5,
       referenceTemperature: 300,
     };
-    const m = operatingPoint(biased(1.5, 3, 0, model), { temperature: 350, junctionConductance: 1e-30 }).mosfet('M1');
+    const m = operatingPoint(biased(1.5, 3, 0, model), {
+      temperature: 350,
+      junctionConductance: 1e-30,
+    }).mosfet('M1');
     const vth = 0.6 - 2e-3 * 50;
     const beta = 1e-3 * (350 / 300) ** -1.5;
     expectRelativelyClose(m.thresholdVoltage, vth, 1e-12, 'Vth at 350 K');
@@ -132,7 +140,9 @@ describe('MOSFET temperature laws and channel conductance', () => {
 
   it('carry the small channel conductance of a cut-off channel in id', () => {
     // docs/devices.md: a cut-off channel conducts junctionConductance·vds (about 1 pA per volt).
-    const m = operatingPoint(biased(0, 5, 0, { polarity: 'nmos' }), { junctionConductance: 1e-12 }).mosfet('M1');
+    const m = operatingPoint(biased(0, 5, 0, { polarity: 'nmos' }), { junctionConductance: 1e-12 }).mosfet(
+      'M1',
+    );
     expect(m.region).toBe('cutoff');
     expectRelativelyClose(m.id, 5e-12, 1e-12, 'cut-off drain current');
   });

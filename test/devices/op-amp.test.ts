@@ -75,7 +75,11 @@ describe('an op-amp with input offset voltage and bias currents', () => {
       .voltageSource('sensor', 'plus', GROUND, { dc: 0.01 })
       .resistor('Ri', 'minus', GROUND, ri)
       .resistor('Rf', 'minus', 'out', rf)
-      .opAmp('U1', { plus: 'plus', minus: 'minus', output: 'out' }, { openLoopGain: a, inputOffsetVoltage: VOS });
+      .opAmp(
+        'U1',
+        { plus: 'plus', minus: 'minus', output: 'out' },
+        { openLoopGain: a, inputOffsetVoltage: VOS },
+      );
     const expected = ((0.01 + VOS) * a) / (1 + a * b);
     expectRelativelyClose(operatingPoint(c).voltage('out'), expected, 1e-10, 'finite-gain output');
   });
@@ -111,7 +115,8 @@ describe('the ideal/finite rule of the op-amp', () => {
 
   it('rejects output limits that leave no room between them', () => {
     expectQuiescentError(
-      () => new Circuit().opAmp('U1', { plus: 'a', minus: 'b', output: 'c' }, { outputHigh: 1, outputLow: 1 }),
+      () =>
+        new Circuit().opAmp('U1', { plus: 'a', minus: 'b', output: 'c' }, { outputHigh: 1, outputLow: 1 }),
       'invalid-value',
       'outputHigh',
     );
