@@ -132,7 +132,8 @@ export interface BjtEarlyVoltageFitOptions {
   readonly minimumCollectorEmitterVoltage?: number;
 }
 
-type OutputColumn = 'collectorEmitterVoltage' | 'collectorCurrent' | 'baseCurrent' | 'baseEmitterVoltage';
+type OutputColumn = 'collectorEmitterVoltage' | 'collectorCurrent';
+type DriveColumn = 'baseCurrent' | 'baseEmitterVoltage';
 
 /**
  * Fit the Early voltage to output curves, every other parameter held at `model` (a Gummel fit's):
@@ -148,12 +149,12 @@ type OutputColumn = 'collectorEmitterVoltage' | 'collectorCurrent' | 'baseCurren
  * @throws QuiescentError `invalid-value` for missing columns (neither base drive), unequal lengths or too few usable points
  */
 export function fitBjtEarlyVoltage(
-  data: Measurements<'collectorEmitterVoltage' | 'collectorCurrent'> | Measurements<OutputColumn>,
+  data: Measurements<OutputColumn, DriveColumn>,
   model: BjtModel,
   options: BjtEarlyVoltageFitOptions = {},
 ): FitResult<BjtModel> {
-  const { columns, count, unusable } = readMeasurements<OutputColumn>(
-    data as Measurements<OutputColumn>,
+  const { columns, count, unusable } = readMeasurements(
+    data,
     ['collectorEmitterVoltage', 'collectorCurrent'],
     ['baseCurrent', 'baseEmitterVoltage'],
   );

@@ -36,7 +36,7 @@ export interface MosfetFitOptions {
   readonly fixed?: Readonly<Partial<Record<Exclude<keyof MosfetModel, 'polarity'>, number>>>;
 }
 
-type MosfetColumn = 'gateSourceVoltage' | 'drainSourceVoltage' | 'drainCurrent' | 'bodySourceVoltage';
+type MosfetColumn = 'gateSourceVoltage' | 'drainSourceVoltage' | 'drainCurrent';
 
 /**
  * Fit a MOSFET to points of columns `gateSourceVoltage`, `drainSourceVoltage` (V), `drainCurrent`
@@ -54,7 +54,7 @@ export function fitMosfet(
   data: Measurements<MosfetColumn>,
   options: MosfetFitOptions = {},
 ): FitResult<MosfetModel> {
-  const { columns, count, unusable } = readMeasurements<MosfetColumn>(
+  const { columns, count, unusable } = readMeasurements(
     data,
     ['gateSourceVoltage', 'drainSourceVoltage', 'drainCurrent'],
     ['bodySourceVoltage'],

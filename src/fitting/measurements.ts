@@ -5,12 +5,18 @@
 import Papa from 'papaparse';
 import { invalidValue } from '../errors/messages.js';
 
-/** Measured data: an object of equally long arrays by column name, or CSV text with a header row. */
-export type Measurements<K extends string> = Readonly<Record<K, ArrayLike<number>>> | string;
+/**
+ * Measured data: an object of equally long arrays by column name (`K` required, `O` optional), or CSV
+ * text with a header row.
+ */
+export type Measurements<K extends string, O extends string = never> =
+  | (Readonly<Record<K, ArrayLike<number>>> & Readonly<Partial<Record<O, ArrayLike<number>>>>)
+  | string;
 
 /** Columns read from measurements, and the indices of the points that were not all finite numbers. */
-export interface MeasuredColumns<K extends string> {
-  readonly columns: Readonly<Record<K, Float64Array>>;
+export interface MeasuredColumns<K extends string, O extends string = never> {
+  /** The required columns, and those of the optional ones that were given. */
+  readonly columns: Readonly<Record<K, Float64Array>> & Readonly<Partial<Record<O, Float64Array>>>;
   /** Number of points (rows). */
   readonly count: number;
   /** Indices of points with a missing or non-finite value in one of the columns read. */
@@ -33,12 +39,12 @@ function headingName(heading: string): string {
  * @throws QuiescentError `invalid-value` when a required column is missing, arrays differ in length,
  * or the data is neither an object of arrays nor text
  */
-export function readMeasurements<K extends string>(
-  data: Measurements<K> | Readonly<Record<string, ArrayLike<number>>>,
+export function readMeasurements<K extends string, O extends string = never>(
+  data: Measurements<K, O>,
   required: readonly K[],
-  optional: readonly K[] = [],
+  optional: readonly O[] = [],
   path: readonly (string | number)[] = ['measurements'],
-): MeasuredColumns<K> {
+): MeasuredColumns<K, O> {
   const raw: Record<string, ArrayLike<number>> = {};
   if (typeof data === 'string') {
     const parsed = Papa.parse<Record<string, string>>(data.trim(), {
@@ -49,16 +55,16 @@ export function readMeasurements<K extends string>(
     const fields = parsed.meta.fields ?? [];
     for (const field of fields) raw[field] = parsed.data.map((row) => cellNumber(row[field]));
   } else if (data !== null && typeof data === 'object') {
-    for (const [key, value] of Object.entries(data)) raw[key] = value;
+    for (const [key, value] of Object.entries(data)) raw[key] = value as ArrayLike<number>;
   } else {
     throw invalidValue(path, data, 'an object of arrays by column name, or CSV text with a header row');
   }
-  const columns = {} as Record<K, Float64Array>;
+  const columns = {} as Record<K | O, Float64Array>;
   let count = -1;
-  for (const name of [...required, ...optional]) {
+  for (const name of [...required, ...optional] as (K | O)[]) {
     const column = raw[name];
     if (column === undefined) {
-      if (optional.includes(name)) continue;
+      if ((optional as readonly string[]).includes(name)) continue;
       throw invalidValue([...path, name], undefined, `a column named '${name}'`);
     }
     if (typeof column !== 'object' || typeof column.length !== 'number') {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { acAnalysis, Circuit, GROUND, linearity, operatingPoint } from '../../src/index.js';
+import { acAnalysis, Circuit, GROUND, linearity, type MosfetModel, operatingPoint } from '../../src/index.js';
 import reference from '../reference/mosfet-charge.json';
 import { expectRelativelyClose } from '../support/close.js';
 
@@ -14,7 +14,7 @@ const MODEL = {
 };
 
 /** One transistor with its gate, drain and body held by sources (the source grounded). */
-function biased(vgs: number, vds: number, vbs: number, model: object = MODEL, polarity = 1) {
+function biased(vgs: number, vds: number, vbs: number, model: MosfetModel = MODEL, polarity = 1) {
   return new Circuit()
     .voltageSource('gateDrive', 'g', GROUND, { dc: polarity * vgs })
     .voltageSource('drainDrive', 'd', GROUND, { dc: polarity * vds })
