@@ -153,7 +153,7 @@ export function fitBjtEarlyVoltage(
   model: BjtModel,
   options: BjtEarlyVoltageFitOptions = {},
 ): FitResult<BjtModel> {
-  const { columns, count, unusable } = readMeasurements(
+  const { columns, count, unusable } = readMeasurements<OutputColumn, DriveColumn>(
     data,
     ['collectorEmitterVoltage', 'collectorCurrent'],
     ['baseCurrent', 'baseEmitterVoltage'],

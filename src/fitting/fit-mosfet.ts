@@ -54,7 +54,7 @@ export function fitMosfet(
   data: Measurements<MosfetColumn>,
   options: MosfetFitOptions = {},
 ): FitResult<MosfetModel> {
-  const { columns, count, unusable } = readMeasurements(
+  const { columns, count, unusable } = readMeasurements<MosfetColumn, 'bodySourceVoltage'>(
     data,
     ['gateSourceVoltage', 'drainSourceVoltage', 'drainCurrent'],
     ['bodySourceVoltage'],
