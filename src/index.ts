@@ -106,6 +106,7 @@ export {
   type BjtEarlyVoltageFitOptions,
   type BjtGummelFitOptions,
   type DiodeFitOptions,
+  type FitResidual,
   type FitResult,
   fitBjtEarlyVoltage,
   fitBjtGummel,

@@ -120,7 +120,8 @@ export class OperatingPoint {
   }
 
   /**
-   * Cautions about the solution, empty for a circuit solved within its models. A junction forward-biased
+   * Cautions about the solution, empty for a circuit solved within its models. An op-amp held at an
+   * output limit is named (its `region` is `'limited-high'` or `'limited-low'`). A junction forward-biased
    * beyond v/(n·Vt) = 80 (about 2 V for n = 1) lies where the exponential is continued linearly to keep
    * the equations finite: its current follows that continuation, not the Shockley law, which usually
    * means a source forced straight across a junction with nothing to limit the current.
@@ -129,6 +130,16 @@ export class OperatingPoint {
     const out: string[] = [];
     prepareDevices(this.system, this.conditions);
     for (const device of this.system.devices) {
+      if (device.record.kind === 'op-amp') {
+        // The limiter's slope below one half: the output no longer follows the inputs.
+        const region = device.report?.(this.x).region;
+        if (region === 'limited-high' || region === 'limited-low') {
+          const limit = region === 'limited-high' ? 'upper' : 'lower';
+          out.push(
+            `op-amp '${device.name}' is held at its ${limit} output limit (${region}): its output no longer follows its inputs`,
+          );
+        }
+      }
       for (const probe of device.junctions?.(this.x) ?? []) {
         if (probe.junction === 'channel') continue;
         // Channels were skipped above, so of the mirrored devices only a pnp reaches here.

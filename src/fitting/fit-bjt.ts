@@ -34,8 +34,6 @@ export interface BjtGummelFitOptions {
   readonly fixed?: Readonly<Partial<Record<Exclude<keyof BjtModel, 'polarity'>, number>>>;
 }
 
-type GummelColumn = 'baseEmitterVoltage' | 'collectorCurrent' | 'baseCurrent';
-
 /**
  * Fit I_S, n_F, β_F and the knee current to a forward Gummel sweep: columns `baseEmitterVoltage`
  * (V), `collectorCurrent` and `baseCurrent` (A), measured with the base-collector voltage at 0.
@@ -48,7 +46,7 @@ type GummelColumn = 'baseEmitterVoltage' | 'collectorCurrent' | 'baseCurrent';
  * @throws QuiescentError `invalid-value` for missing columns, unequal lengths or too few usable points
  */
 export function fitBjtGummel(
-  data: Measurements<GummelColumn>,
+  data: Measurements<'baseEmitterVoltage' | 'collectorCurrent' | 'baseCurrent'>,
   options: BjtGummelFitOptions = {},
 ): FitResult<BjtModel> {
   const { columns, count, unusable } = readMeasurements(data, [
@@ -132,9 +130,6 @@ export interface BjtEarlyVoltageFitOptions {
   readonly minimumCollectorEmitterVoltage?: number;
 }
 
-type OutputColumn = 'collectorEmitterVoltage' | 'collectorCurrent';
-type DriveColumn = 'baseCurrent' | 'baseEmitterVoltage';
-
 /**
  * Fit the Early voltage to output curves, every other parameter held at `model` (a Gummel fit's):
  * columns `collectorEmitterVoltage` (V) and `collectorCurrent` (A), and for each point the base drive
@@ -149,15 +144,14 @@ type DriveColumn = 'baseCurrent' | 'baseEmitterVoltage';
  * @throws QuiescentError `invalid-value` for missing columns (neither base drive), unequal lengths or too few usable points
  */
 export function fitBjtEarlyVoltage(
-  data: Measurements<OutputColumn, DriveColumn>,
+  data: Measurements<'collectorEmitterVoltage' | 'collectorCurrent', 'baseCurrent' | 'baseEmitterVoltage'>,
   model: BjtModel,
   options: BjtEarlyVoltageFitOptions = {},
 ): FitResult<BjtModel> {
-  const { columns, count, unusable } = readMeasurements<OutputColumn, DriveColumn>(
-    data,
-    ['collectorEmitterVoltage', 'collectorCurrent'],
-    ['baseCurrent', 'baseEmitterVoltage'],
-  );
+  const { columns, count, unusable } = readMeasurements<
+    'collectorEmitterVoltage' | 'collectorCurrent',
+    'baseCurrent' | 'baseEmitterVoltage'
+  >(data, ['collectorEmitterVoltage', 'collectorCurrent'], ['baseCurrent', 'baseEmitterVoltage']);
   const drive = columns.baseCurrent ?? columns.baseEmitterVoltage;
   if (drive === undefined) {
     throw invalidValue(

@@ -36,8 +36,6 @@ export interface MosfetFitOptions {
   readonly fixed?: Readonly<Partial<Record<Exclude<keyof MosfetModel, 'polarity'>, number>>>;
 }
 
-type MosfetColumn = 'gateSourceVoltage' | 'drainSourceVoltage' | 'drainCurrent';
-
 /**
  * Fit a MOSFET to points of columns `gateSourceVoltage`, `drainSourceVoltage` (V), `drainCurrent`
  * (A) and optionally `bodySourceVoltage` (V, default 0). λ is fitted only when the drain-source
@@ -51,14 +49,13 @@ type MosfetColumn = 'gateSourceVoltage' | 'drainSourceVoltage' | 'drainCurrent';
  * @throws QuiescentError `invalid-value` for missing columns, unequal lengths or too few usable points
  */
 export function fitMosfet(
-  data: Measurements<MosfetColumn>,
+  data: Measurements<'gateSourceVoltage' | 'drainSourceVoltage' | 'drainCurrent', 'bodySourceVoltage'>,
   options: MosfetFitOptions = {},
 ): FitResult<MosfetModel> {
-  const { columns, count, unusable } = readMeasurements<MosfetColumn, 'bodySourceVoltage'>(
-    data,
-    ['gateSourceVoltage', 'drainSourceVoltage', 'drainCurrent'],
-    ['bodySourceVoltage'],
-  );
+  const { columns, count, unusable } = readMeasurements<
+    'gateSourceVoltage' | 'drainSourceVoltage' | 'drainCurrent',
+    'bodySourceVoltage'
+  >(data, ['gateSourceVoltage', 'drainSourceVoltage', 'drainCurrent'], ['bodySourceVoltage']);
   const law = options.law ?? 'square-law';
   const ignored = new Set(unusable);
   if (law === 'charge-based')

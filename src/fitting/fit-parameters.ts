@@ -36,6 +36,16 @@ export interface ParameterFit {
   readonly converged: boolean;
 }
 
+/** The residual at a fit. */
+export interface FitResidual {
+  /** √(Σr²/m) over the m residuals. */
+  readonly rms: number;
+  /** Σr². */
+  readonly sumOfSquares: number;
+  /** What one residual measures, e.g. `'ln(I_model/I_measured)'`. */
+  readonly measure: string;
+}
+
 /** Every fit's report: the model for the builder, its standard errors, the residual, what was left out. */
 export interface FitResult<M> {
   /** The fitted model, ready for the builder (held parameters included as given). */
@@ -43,7 +53,7 @@ export interface FitResult<M> {
   /** The standard error of each fitted parameter, in its unit. */
   readonly standardErrors: Readonly<Record<string, number>>;
   /** The residual at the fit: root mean square, sum of squares, and what one residual measures. */
-  readonly residual: { readonly rms: number; readonly sumOfSquares: number; readonly measure: string };
+  readonly residual: FitResidual;
   /** Indices of the points the fit ignored (see each fit for its rule). */
   readonly ignored: readonly number[];
   /** Iterations of the least-squares routine. */

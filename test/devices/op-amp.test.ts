@@ -136,6 +136,10 @@ describe('an op-amp at its output limits', () => {
     const low = operatingPoint(inverting(1)).opAmp('U1');
     expect(low.region).toBe('limited-low');
     expect(Math.abs(low.outputVoltage + 3.5)).toBeLessThan(0.01);
+    expect(
+      operatingPoint(inverting(1)).warnings.some((w) => w.includes("op-amp 'U1'") && w.includes('lower')),
+    ).toBe(true);
+    expect(operatingPoint(inverting(0.1)).warnings).toEqual([]);
     const high = operatingPoint(inverting(-1)).opAmp('U1');
     expect(high.region).toBe('limited-high');
     expect(Math.abs(high.outputVoltage - 4.5)).toBeLessThan(0.01);
