@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { acAnalysis, Circuit, GROUND, linearity, type MosfetModel, operatingPoint } from '../../src/index.js';
 import reference from '../reference/mosfet-charge.json';
@@ -145,5 +146,31 @@ describe('MOSFET temperature laws and channel conductance', () => {
     );
     expect(m.region).toBe('cutoff');
     expectRelativelyClose(m.id, 5e-12, 1e-12, 'cut-off drain current');
+  });
+});
+
+describe('the charge-based channel at any bias (properties)', () => {
+  it('conducts forward with non-negative gm and gds, and reverses its current when drain and source exchange', () => {
+    // The model is symmetric in drain and source (Enz, Krummenacher and Vittoz 1995): id(vgs, vds, vbs)
+    // = −id(vgs − vds, −vds, vbs − vds).
+    fc.assert(
+      fc.property(
+        fc.double({ min: -0.5, max: 2.5, noNaN: true }),
+        fc.double({ min: 0, max: 3, noNaN: true }),
+        fc.double({ min: -1, max: 0, noNaN: true }),
+        (vgs, vds, vbs) => {
+          const forward = operatingPoint(biased(vgs, vds, vbs), BARE).mosfet('M1');
+          const swapped = operatingPoint(biased(vgs - vds, -vds, vbs - vds), BARE).mosfet('M1');
+          const scale = Math.abs(forward.id) + 1e-30;
+          return (
+            forward.id >= 0 &&
+            forward.gm >= 0 &&
+            forward.gds >= 0 &&
+            Math.abs(forward.id + swapped.id) <= 1e-12 * scale
+          );
+        },
+      ),
+      { seed: 1995, numRuns: 120 },
+    );
   });
 });
