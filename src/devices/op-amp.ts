@@ -122,14 +122,9 @@ export class OpAmp implements Device {
     const old = this.uOld;
     const high = this.outputHigh - this.knee;
     const low = this.outputLow + this.knee;
-    if ((old > high && u < low) || (old < low && u > high)) {
-      return Number.isFinite(this.outputHigh) && Number.isFinite(this.outputLow)
-        ? 0.5 * (this.outputHigh + this.outputLow)
-        : old > high
-          ? high
-          : low;
-    }
-    return u;
+    // Only possible with both limits finite (an infinite one is never reached).
+    const crossed = (old > high && u < low) || (old < low && u > high);
+    return crossed ? 0.5 * (this.outputHigh + this.outputLow) : u;
   }
   load(ctx: DcLoadContext): void {
     if (!this.nonlinear) {
