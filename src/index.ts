@@ -57,8 +57,11 @@ export type {
   BjtReport,
   DeviceReport,
   DiodeReport,
+  InversionLevel,
   MosfetRegion,
   MosfetReport,
+  OpAmpRegion,
+  OpAmpReport,
 } from './analysis/reports.js';
 export {
   AcSensitivity,
@@ -113,6 +116,21 @@ export {
   type ResidualEntry,
   type StrategyAttempt,
 } from './errors/quiescent-error.js';
+export {
+  type BjtEarlyVoltageFitOptions,
+  type BjtGummelFitOptions,
+  type DiodeFitOptions,
+  type FitResidual,
+  type FitResult,
+  fitBjtEarlyVoltage,
+  fitBjtGummel,
+  fitDiode,
+  fitMosfet,
+  type MeasuredColumns,
+  type Measurements,
+  type MosfetFitOptions,
+  readMeasurements,
+} from './fitting/index.js';
 export {
   type AcAnalysisJson,
   type AcReportOptions,

@@ -8,7 +8,12 @@ import type { ElementRecord } from '../circuit/elements.js';
 import { BJT_PARAMETERS } from '../devices/bjt-model.js';
 import { DIODE_PARAMETERS } from '../devices/diode-model.js';
 import { MOSFET_PARAMETERS } from '../devices/mosfet-model.js';
-import { OP_AMP_PARAMETERS } from '../devices/op-amp-model.js';
+import {
+  checkOpAmpOptions,
+  FINITE_MODEL_OPTIONS,
+  isIdealOpAmp,
+  OP_AMP_PARAMETERS,
+} from '../devices/op-amp-model.js';
 import { type ParameterTable, parseParameters } from '../devices/parameters.js';
 import { invalidValue } from '../errors/messages.js';
 import type { QuiescentError } from '../errors/quiescent-error.js';
@@ -70,7 +75,7 @@ export function parameterVariant(record: ElementRecord, parameter: string): (val
     }
     case 'op-amp': {
       const model = modelOf(OP_AMP_PARAMETERS, 'op-amp', record.options);
-      return (value) => ({ ...record, options: model(value) });
+      return (value) => ({ ...record, options: checkOpAmpOptions(model(value), [record.name, 'options']) });
     }
     case 'voltage-source':
     case 'current-source': {
@@ -135,8 +140,9 @@ export function parameterValue(record: ElementRecord, parameter: string): number
 /**
  * The numeric parameters of `record` a sensitivity lists: its scalar value, a source's `dc` (and `ac`
  * when `withAc`), every model parameter of a diode, transistor or finite-gain op-amp whether given or
- * defaulted, except those whose value is infinite (an absent effect). An ideal op-amp has none: its
- * finite-gain parameters would change its model, not move it.
+ * defaulted, except those whose value is infinite or not given (an absent effect, the square law's
+ * missing slope factor). An ideal op-amp lists its input errors and noise, not its finite-gain
+ * parameters: they would change its model, not move it.
  */
 export function parametersOf(record: ElementRecord, withAc: boolean): string[] {
   const scalars = SCALAR_PARAMETERS[record.kind];
@@ -156,8 +162,11 @@ export function parametersOf(record: ElementRecord, withAc: boolean): string[] {
       names = Object.keys(MOSFET_PARAMETERS);
       break;
     case 'op-amp':
-      if (record.options === undefined) return [];
-      names = Object.keys(OP_AMP_PARAMETERS);
+      // An ideal op-amp's finite-gain parameters would change its model, not move it.
+      names = Object.keys(OP_AMP_PARAMETERS).filter(
+        (name) =>
+          !isIdealOpAmp(record.options) || !(FINITE_MODEL_OPTIONS as readonly string[]).includes(name),
+      );
       break;
     default:
       return [];

@@ -20,6 +20,7 @@ import {
   junctionAmplitudeForBound,
   junctionNonlinearity,
 } from '../math/junction-nonlinearity.js';
+import { taylorAmplitudeForBound, taylorNonlinearity } from '../math/taylor-nonlinearity.js';
 import { type LinearityReportJson, linearityToJson } from '../report/result-json.js';
 import type { AcAnalysis } from './ac-analysis.js';
 import { forwardBias } from './junction-bias.js';
@@ -153,7 +154,11 @@ export function linearity(ac: AcAnalysis, options: LinearityOptions = {}): Linea
       const x = amplitude / probe.scale;
       const channel = probe.junction === 'channel';
       const bias = forwardBias(device.record, probe, op.x);
-      const figures = channel ? channelNonlinearity(x) : junctionNonlinearity(x);
+      const figures = probe.taylor
+        ? taylorNonlinearity(x, probe.taylor)
+        : channel
+          ? channelNonlinearity(x)
+          : junctionNonlinearity(x);
       junctions.push({
         device: device.name,
         kind: device.record.kind,
@@ -166,7 +171,14 @@ export function linearity(ac: AcAnalysis, options: LinearityOptions = {}): Linea
         normalized: x,
         ...figures,
         withinBudget: figures.errorBound <= budget,
-        maxInputScale: x > 0 ? (channel ? channelLimit : junctionLimit) / x : Number.POSITIVE_INFINITY,
+        maxInputScale:
+          x > 0
+            ? (probe.taylor
+                ? taylorAmplitudeForBound(budget, probe.taylor)
+                : channel
+                  ? channelLimit
+                  : junctionLimit) / x
+            : Number.POSITIVE_INFINITY,
         amplitudes,
       });
     }

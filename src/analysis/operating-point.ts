@@ -23,7 +23,7 @@ import {
   worstResidualExcess,
 } from './newton.js';
 import type { ResolvedOptions } from './options.js';
-import type { BjtReport, DeviceReport, DiodeReport, MosfetReport } from './reports.js';
+import type { BjtReport, DeviceReport, DiodeReport, MosfetReport, OpAmpReport } from './reports.js';
 
 /** The DC solution of a circuit: node voltages, element currents and every device's operating values. */
 export class OperatingPoint {
@@ -91,12 +91,12 @@ export class OperatingPoint {
     return d.current(this.x);
   }
 
-  /** The operating values and small-signal parameters of a diode, bipolar transistor or MOSFET. */
+  /** The operating values and small-signal parameters of a diode, bipolar transistor or MOSFET, or an op-amp's input, output and region. */
   device(name: string): DeviceReport {
     const d = this.system.deviceByName.get(name);
     if (d === undefined) throw unknownElement(name);
     if (d.report === undefined)
-      throw unknownElement(name, 'only diodes and transistors have a device report');
+      throw unknownElement(name, 'only diodes, transistors and op-amps have a device report');
     d.prepare?.(this.conditions);
     return Object.freeze({ kind: d.record.kind, ...d.report(this.x) }) as DeviceReport;
   }
@@ -113,9 +113,14 @@ export class OperatingPoint {
   mosfet(name: string): MosfetReport {
     return this.#typed(name, 'mosfet') as MosfetReport;
   }
+  /** The report of an op-amp (throws `unknown-element` if `name` is not one). */
+  opAmp(name: string): OpAmpReport {
+    return this.#typed(name, 'op-amp') as OpAmpReport;
+  }
 
   /**
-   * Cautions about the solution, empty for a circuit solved within its models. A junction forward-biased
+   * Cautions about the solution, empty for a circuit solved within its models. An op-amp held at an
+   * output limit is named (its `region` is `'limited-high'` or `'limited-low'`). A junction forward-biased
    * beyond v/(n·Vt) = 80 (about 2 V for n = 1) lies where the exponential is continued linearly to keep
    * the equations finite: its current follows that continuation, not the Shockley law, which usually
    * means a source forced straight across a junction with nothing to limit the current.
@@ -124,6 +129,16 @@ export class OperatingPoint {
     const out: string[] = [];
     prepareDevices(this.system, this.conditions);
     for (const device of this.system.devices) {
+      if (device.record.kind === 'op-amp') {
+        // The limiter's slope below one half: the output no longer follows the inputs.
+        const region = device.report?.(this.x).region;
+        if (region === 'limited-high' || region === 'limited-low') {
+          const limit = region === 'limited-high' ? 'upper' : 'lower';
+          out.push(
+            `op-amp '${device.name}' is held at its ${limit} output limit (${region}): its output no longer follows its inputs`,
+          );
+        }
+      }
       for (const probe of device.junctions?.(this.x) ?? []) {
         if (probe.junction === 'channel') continue;
         // Channels were skipped above, so of the mirrored devices only a pnp reaches here.

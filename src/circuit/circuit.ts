@@ -5,7 +5,7 @@
 import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt-model.js';
 import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode-model.js';
 import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet-model.js';
-import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp-model.js';
+import { checkOpAmpOptions, OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp-model.js';
 import { parseParameters } from '../devices/parameters.js';
 import { duplicateName, invalidCircuit, invalidValue } from '../errors/messages.js';
 import { parseValue, type Unit } from '../values/index.js';
@@ -247,7 +247,10 @@ export class Circuit {
     });
   }
 
-  /** Add an op-amp: ideal without options, single-pole with `{ openLoopGain, gainBandwidth, outputResistance }`. */
+  /**
+   * Add an op-amp: ideal unless `openLoopGain`, `gainBandwidth`, `outputResistance`, `outputHigh` or
+   * `outputLow` is given (then single-pole with output limits); input offset and bias currents apply to either.
+   */
   opAmp(name: string, terminals: OpAmpTerminals, options?: OpAmpOptions): this {
     const path = this.#start(name);
     const t = terminalObject(terminals, ['plus', 'minus', 'output'], path);
@@ -260,7 +263,10 @@ export class Circuit {
       options:
         options === undefined
           ? undefined
-          : parseParameters(OP_AMP_PARAMETERS, options, [...path, 'options'], 'op-amp'),
+          : checkOpAmpOptions(parseParameters(OP_AMP_PARAMETERS, options, [...path, 'options'], 'op-amp'), [
+              ...path,
+              'options',
+            ]),
     });
   }
 

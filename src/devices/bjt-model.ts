@@ -42,6 +42,19 @@ export interface BjtModel {
   flickerCoefficient?: Value;
   /** Flicker noise exponent a_f of the current in the 1/f noise PSD (default 1). */
   flickerExponent?: Value;
+  /** Ohmic resistance in series with the base, in Ω, through an internal node (default 0: none). */
+  baseResistance?: Value;
+  /** Ohmic resistance in series with the collector, in Ω, through an internal node (default 0: none). */
+  collectorResistance?: Value;
+  /** Ohmic resistance in series with the emitter, in Ω, through an internal node (default 0: none). */
+  emitterResistance?: Value;
+  /**
+   * The forward knee current of high injection, in A (default Infinity: none): the transport current
+   * is divided by q_h = ½·(1 + √(1 + 4·Is·(e_f − 1)/kneeCurrent)), so β falls at high current.
+   */
+  kneeCurrent?: Value;
+  /** The temperature exponent of βF and βR: β(T) = β·(T/Tref)^exponent (default 0). */
+  betaTemperatureExponent?: Value;
 }
 
 /** Parameter table of the bipolar transistor (polarity excluded). */
@@ -64,4 +77,9 @@ export const BJT_PARAMETERS: ParameterTable<Exclude<keyof BjtModel, 'polarity'>>
   referenceTemperature: { unit: 'K', defaultValue: 300.15, range: 'positive' },
   flickerCoefficient: { defaultValue: 0, range: 'non-negative' },
   flickerExponent: { defaultValue: 1, range: 'positive' },
+  baseResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
+  collectorResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
+  emitterResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
+  kneeCurrent: { unit: 'A', defaultValue: Number.POSITIVE_INFINITY, range: 'positive-or-infinite' },
+  betaTemperatureExponent: { defaultValue: 0, range: 'any' },
 };

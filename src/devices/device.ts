@@ -86,6 +86,12 @@ export interface JunctionProbe {
   readonly minus: number;
   /** The voltage that normalizes the amplitude: n·Vt for a junction, the overdrive for a channel. */
   readonly scale: number;
+  /**
+   * For a channel whose law is neither exponential nor square (the charge-based MOSFET): the current's
+   * Taylor coefficients in the probe voltage at the bias, i = g1·v + g2·v²/2 + g3·v³/6, normalized as
+   * `second` = g2·scale/g1 and `third` = g3·scale²/g1. The square law is second = 1, third = 0.
+   */
+  readonly taylor?: { readonly second: number; readonly third: number };
 }
 
 /**

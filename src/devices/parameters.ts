@@ -12,7 +12,9 @@ export type ParameterRange =
   | 'positive-or-infinite' // > 0, Infinity allowed (the effect is then absent)
   | 'at-least-one' // ≥ 1... emission coefficients use 'positive'; kept for gains
   | 'grading' // in (0, 1)
-  | 'any'; // any finite number
+  | 'any' // any finite number
+  | 'any-or-infinite' // any number, ±Infinity allowed (a limit that is then absent)
+  | 'above-one'; // > 1, finite (a slope factor)
 
 /** What one model parameter is: its unit, default and admissible range. */
 export interface ParameterSpec {
@@ -31,6 +33,8 @@ const RANGE_WORDS: Readonly<Record<ParameterRange, string>> = {
   'at-least-one': 'a finite number of 1 or more',
   grading: 'a number between 0 and 1 (exclusive)',
   any: 'a finite number',
+  'any-or-infinite': 'a number (±Infinity removes the limit)',
+  'above-one': 'a finite number greater than 1',
 };
 
 function inRange(value: number, range: ParameterRange): boolean {
@@ -47,6 +51,10 @@ function inRange(value: number, range: ParameterRange): boolean {
       return value > 0 && value < 1;
     case 'any':
       return Number.isFinite(value);
+    case 'any-or-infinite':
+      return !Number.isNaN(value);
+    case 'above-one':
+      return Number.isFinite(value) && value > 1;
   }
 }
 
@@ -82,8 +90,8 @@ export function parseParameters<K extends string>(
     let value: number;
     if (
       typeof raw === 'number' &&
-      spec.range === 'positive-or-infinite' &&
-      raw === Number.POSITIVE_INFINITY
+      ((spec.range === 'positive-or-infinite' && raw === Number.POSITIVE_INFINITY) ||
+        (spec.range === 'any-or-infinite' && Math.abs(raw) === Number.POSITIVE_INFINITY))
     ) {
       value = raw;
     } else if (typeof raw === 'number' || typeof raw === 'string') {
