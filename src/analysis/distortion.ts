@@ -212,6 +212,11 @@ export class HarmonicEstimator {
     return ws;
   }
 
+  /** Read the output's first-order phasor from (x1r, x1i) at `frequency` into {@link HarmonicEstimator.fundamental}. */
+  readFundamental(frequency: number, x1r: Float64Array, x1i: Float64Array): void {
+    this.#read(x1r, x1i, 2 * Math.PI * frequency, this.fundamental);
+  }
+
   /** Solve the excitation in #re, #im at `frequency` and read the output into `out` at [offset, offset+1]. */
   #solveAndRead(frequency: number, out: Float64Array, offset: number): void {
     this.#factoredAt(frequency).solve(this.#re, this.#im);
