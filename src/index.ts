@@ -31,12 +31,22 @@ export {
   distortion,
 } from './analysis/distortion.js';
 export { linearSweep, logSweep } from './analysis/frequency-grid.js';
+export { type HeldReactive, holdReactive } from './analysis/held-reactive.js';
+export {
+  type Intermodulation,
+  type IntermodulationContribution,
+  type IntermodulationOptions,
+  type IntermodulationProduct,
+  intermodulation,
+} from './analysis/intermodulation.js';
 export {
   DEFAULT_LINEARITY_BUDGET,
+  type DistortionShare,
   type JunctionLinearity,
   type LinearityOptions,
   type LinearityReport,
   linearity,
+  type OutputLinearity,
 } from './analysis/linearity.js';
 export { OperatingPoint, operatingPoint } from './analysis/operating-point.js';
 export { DEFAULT_TEMPERATURE, type OperatingPointOptions } from './analysis/options.js';
@@ -46,10 +56,19 @@ export {
   DEFAULT_PHASES,
   type DistortionCheck,
   type DistortionCheckOptions,
+  HARMONICS_KEPT,
   type QuasiStaticHarmonics,
   type QuasiStaticOptions,
   quasiStaticHarmonics,
+  type ReactiveTreatment,
 } from './analysis/quasi-static.js';
+export {
+  DEFAULT_TONE_PHASES,
+  type QuasiStaticIntermodulation,
+  type QuasiStaticIntermodulationOptions,
+  type QuasiStaticProduct,
+  quasiStaticIntermodulation,
+} from './analysis/quasi-static-two-tone.js';
 export type {
   BjtRegion,
   BjtReport,

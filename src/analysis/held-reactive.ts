@@ -144,7 +144,14 @@ export function holdReactive(records: readonly ElementRecord[], op: OperatingPoi
       }
       held.push(e.name);
       const dc = op.voltage(e.a, e.b);
-      return { kind: 'voltage-source', name: e.name, plus: e.a, minus: e.b, dc, ac: { magnitude: 0, phase: 0 } };
+      return {
+        kind: 'voltage-source',
+        name: e.name,
+        plus: e.a,
+        minus: e.b,
+        dc,
+        ac: { magnitude: 0, phase: 0 },
+      };
     }
     if (e.kind === 'inductor') {
       if (!holdInductor.has(e.name)) {

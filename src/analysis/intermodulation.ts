@@ -28,7 +28,13 @@ import type { Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { ratio } from './distortion.js';
 import { describeProbe, probeReader } from './distortion-probe.js';
-import { ControlPhasors, cubic, gatherNonlinearCurrents, injectCurrents, quadratic } from './nonlinear-currents.js';
+import {
+  ControlPhasors,
+  cubic,
+  gatherNonlinearCurrents,
+  injectCurrents,
+  quadratic,
+} from './nonlinear-currents.js';
 import type { OperatingPoint } from './operating-point.js';
 
 /** Options of {@link intermodulation}. */

@@ -216,7 +216,8 @@ export function linearity(ac: AcAnalysis, options: LinearityOptions = {}): Linea
     maxInputScale: measured === undefined ? screenScale : measured.maxInputScale,
     maxInputScaleForwardBiased: screenScale,
     worst: worst === null ? null : (entries[junctions.indexOf(worst)] ?? worst),
-    withinBudget: measured === undefined ? forward.every((j) => j.withinBudget) : measured.output.withinBudget,
+    withinBudget:
+      measured === undefined ? forward.every((j) => j.withinBudget) : measured.output.withinBudget,
     toJSON() {
       return linearityToJson(this);
     },
@@ -370,12 +371,22 @@ function fundamentalSize(ac: AcAnalysis, k: number, estimator: HarmonicEstimator
 }
 
 /** The output's ratios from the estimator's last evaluation. */
-function figures(e: HarmonicEstimator): Omit<OutputLinearity, 'output' | 'outputName' | 'frequency' | 'fundamental' | 'withinBudget' | 'errorBounds'> {
+function figures(
+  e: HarmonicEstimator,
+): Omit<
+  OutputLinearity,
+  'output' | 'outputName' | 'frequency' | 'fundamental' | 'withinBudget' | 'errorBounds'
+> {
   const h1 = Math.hypot(e.fundamental[0]!, e.fundamental[1]!);
   const secondHarmonic = ratio(Math.hypot(e.second[0]!, e.second[1]!), h1);
   const thirdHarmonic = ratio(Math.hypot(e.third[0]!, e.third[1]!), h1);
   const compressionMagnitude = ratio(Math.hypot(e.compression[0]!, e.compression[1]!), h1);
-  const compression = relativeReal(e.compression[0]!, e.compression[1]!, e.fundamental[0]!, e.fundamental[1]!);
+  const compression = relativeReal(
+    e.compression[0]!,
+    e.compression[1]!,
+    e.fundamental[0]!,
+    e.fundamental[1]!,
+  );
   const meanShift = ratio(Math.abs(e.mean), h1);
   return {
     secondHarmonic,

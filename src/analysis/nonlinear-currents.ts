@@ -87,7 +87,12 @@ export class ControlPhasors {
 }
 
 /** Q(X, Y) = Σ_ab f_ab·X_a·Y_b, written to out[0] (real), out[1] (imaginary). */
-export function quadratic(current: NonlinearCurrent, x: ControlPhasors, y: ControlPhasors, out: Float64Array): void {
+export function quadratic(
+  current: NonlinearCurrent,
+  x: ControlPhasors,
+  y: ControlPhasors,
+  out: Float64Array,
+): void {
   const m = current.controls.length;
   const f2 = current.second;
   let re = 0;

@@ -167,7 +167,9 @@ export function prepareDriver(circuit: Circuit, options: QuasiStaticOptions): Qu
   const base = conditionsAt(resolved.temperature, resolved);
   let records = circuit.elements;
   let held: readonly string[] = [];
-  let kept: readonly string[] = records.filter((r) => r.kind === 'capacitor' || r.kind === 'inductor').map((r) => r.name);
+  let kept: readonly string[] = records
+    .filter((r) => r.kind === 'capacitor' || r.kind === 'inductor')
+    .map((r) => r.name);
   if (reactive === 'hold') {
     const open = solverFor(records, resolved);
     startFromGuess(open);
