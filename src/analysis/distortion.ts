@@ -158,6 +158,7 @@ export class HarmonicEstimator {
   readonly #currentIm: Float64Array;
   readonly #meanCurrent: Float64Array;
   readonly #noCurrent: Float64Array;
+  #meanTransfer: Float64Array | null = null;
   readonly #v: ControlPhasors;
   readonly #vBar: ControlPhasors;
   readonly #w: ControlPhasors;
@@ -230,6 +231,41 @@ export class HarmonicEstimator {
    * H3, C1 and the mean shift, and with `shares` each group's part of H2 and H3.
    */
   evaluate(frequency: number, x1r: Float64Array, x1i: Float64Array, shares: boolean): void {
+    this.evaluateSecondOrder(frequency, x1r, x1i, shares);
+    this.evaluateThirdOrder(frequency, x1r, x1i, shares);
+  }
+
+  /**
+   * Solve, once, the output's DC response to a unit of each nonlinear current, so that
+   * {@link HarmonicEstimator.evaluateSecondOrder} can form the output's mean shift without a solve
+   * (worth it when there are more frequencies than currents).
+   */
+  prepareMeanTransfer(): void {
+    const { currents } = this.set;
+    const transfer = new Float64Array(currents.length);
+    const unit = new Float64Array(currents.length);
+    for (let i = 0; i < currents.length; i++) {
+      unit.fill(0);
+      unit[i] = 1;
+      injectCurrents(this.set, unit, this.#noCurrent, -1, this.#re, this.#im);
+      this.#factoredAt(0).solve(this.#re, this.#im);
+      this.#readHarmonic(this.#re, this.#im, 0, this.#value);
+      transfer[i] = this.#value[0]!;
+    }
+    this.#meanTransfer = transfer;
+  }
+
+  /**
+   * The first half of {@link HarmonicEstimator.evaluate}: H1, the mean shift and H2 (one factorization,
+   * at 2f). `meanResponse` keeps the whole DC response, which the third order needs.
+   */
+  evaluateSecondOrder(
+    frequency: number,
+    x1r: Float64Array,
+    x1i: Float64Array,
+    shares: boolean,
+    meanResponse = true,
+  ): void {
     const { currents } = this.set;
     const v = this.#v;
     const form = this.#form;
@@ -246,12 +282,30 @@ export class HarmonicEstimator {
       quadratic(current, v, this.#vBar, form);
       this.#meanCurrent[i] = 0.25 * form[0]!;
     }
-    injectCurrents(this.set, this.#meanCurrent, this.#noCurrent, -1, this.#mRe, this.#mIm);
-    this.#factoredAt(0).solve(this.#mRe, this.#mIm);
-    this.#readHarmonic(this.#mRe, this.#mIm, 0, this.#value);
-    this.mean = this.#value[0]!;
+    const transfer = this.#meanTransfer;
+    if (transfer !== null && !meanResponse) {
+      // Only the output's mean is needed: the precomputed DC transfer of every current gives it.
+      let mean = 0;
+      for (let i = 0; i < currents.length; i++) mean += transfer[i]! * this.#meanCurrent[i]!;
+      this.mean = mean;
+    } else {
+      injectCurrents(this.set, this.#meanCurrent, this.#noCurrent, -1, this.#mRe, this.#mIm);
+      this.#factoredAt(0).solve(this.#mRe, this.#mIm);
+      this.#readHarmonic(this.#mRe, this.#mIm, 0, this.#value);
+      this.mean = this.#value[0]!;
+    }
     this.#solveOrder(2 * frequency, shares, this.secondShares, this.second, this.#wRe, this.#wIm);
+  }
 
+  /**
+   * The second half of {@link HarmonicEstimator.evaluate}: H3 and C1 (factorizations at 3f and f). It
+   * reads the second-order responses left by {@link HarmonicEstimator.evaluateSecondOrder}, which must
+   * have run last, at the same frequency.
+   */
+  evaluateThirdOrder(frequency: number, x1r: Float64Array, x1i: Float64Array, shares: boolean): void {
+    const { currents } = this.set;
+    const v = this.#v;
+    const form = this.#form;
     // Third order at 3f: I⁽³⁾ = (1/24)·K(V, V, V) + ½·Q(V, W).
     for (let i = 0; i < currents.length; i++) {
       const current = currents[i]!;

@@ -17,10 +17,16 @@
  * nonlinear currents (distortion.ts): the output's 2nd and 3rd harmonics, the third-order change of its
  * fundamental and the shift of its mean, summed into a bound on the relative error of the linear answer.
  *
- * Which frequencies need the harmonic solves. The output's `frequency` is where that bound is largest,
- * so the bound is evaluated exactly at every analysed frequency (three factorizations each: 2f, 3f
- * and f, plus one at 0 Hz for the whole report); only the worst frequency repeats the solves per
- * device for the shares.
+ * Which frequencies need the harmonic solves. The output's `frequency` is where its error bound
+ * a_k + b_k is largest, a_k = (|M| + |H2|)/|H1| of second order, b_k = (|C1| + |H3|)/|H1| of third.
+ * Every analysed frequency gets a_k exactly: one factorization at 2f_k (the mean shift shares one at
+ * 0 Hz). The third-order part costs two more (3f_k and f_k), so it is taken where it can matter:
+ * first at the largest a_k, then at every frequency with a_k·(1 + β) ≥ the largest bound found, β being
+ * the largest ratio b/a met so far; and at every frequency when β exceeds ½ (third order comparable to
+ * second, as in a balanced stage whose even order cancels). The frequency found is the exact worst
+ * provided no frequency left out has a larger b/a than those evaluated; in a pass band, where a_k and
+ * b_k/a_k vary slowly, that costs one or a few third-order evaluations instead of one per frequency.
+ * Only the worst frequency repeats the solves per device for the shares.
  */
 import type { ElementKind } from '../circuit/elements.js';
 import type { JunctionProbe } from '../devices/device.js';
@@ -84,7 +90,12 @@ export interface OutputLinearity {
   readonly errorBound: number;
   /** Whether `errorBound` ≤ the budget. */
   readonly withinBudget: boolean;
-  /** The error bound at every analysed frequency (NaN where the output carries no signal). */
+  /** The second-order part of the bound, meanShift + secondHarmonic, at every analysed frequency (NaN without signal). */
+  readonly secondOrderBounds: Float64Array;
+  /**
+   * The whole error bound where its third-order part was evaluated (the worst frequency and the
+   * candidates for it), NaN elsewhere.
+   */
   readonly errorBounds: Float64Array;
 }
 
@@ -274,6 +285,9 @@ function junctionEntries(ac: AcAnalysis, budget: number): JunctionLinearity[] {
   return junctions;
 }
 
+/** The ratio of third- to second-order figures above which every frequency gets its third-order part. */
+const THIRD_ORDER_RATIO_LIMIT = 0.5;
+
 /** Round-off margin below which an output phasor counts as no signal, relative to the largest unknown. */
 const NO_SIGNAL_MARGIN = 64 * Number.EPSILON;
 
@@ -291,21 +305,46 @@ function outputVerdict(
   const frequencies = ac.frequencies;
   const estimator = new HarmonicEstimator(op, output, false);
   const voltage = typeof output === 'string' || (typeof output === 'object' && 'node' in output);
-  const errorBounds = new Float64Array(frequencies.length).fill(Number.NaN);
+  const count = frequencies.length;
+  const secondOrderBounds = new Float64Array(count).fill(Number.NaN);
+  const errorBounds = new Float64Array(count).fill(Number.NaN);
+  const slice = (k: number, parts: Float64Array) => parts.subarray(k * stride, (k + 1) * stride);
+  if (estimator.set.currents.length < count) estimator.prepareMeanTransfer();
+  for (let k = 0; k < count; k++) {
+    const xr = slice(k, ac.re);
+    const xi = slice(k, ac.im);
+    if (fundamentalSize(ac, k, xr, xi, estimator, voltage) === 0) continue;
+    estimator.evaluateSecondOrder(frequencies[k]!, xr, xi, false, false);
+    const f = figures(estimator);
+    secondOrderBounds[k] = f.meanShift + f.secondHarmonic;
+  }
   let worst = -1;
-  for (let k = 0; k < frequencies.length; k++) {
-    const xr = ac.re.subarray(k * stride, (k + 1) * stride);
-    const xi = ac.im.subarray(k * stride, (k + 1) * stride);
-    const h1 = fundamentalSize(ac, k, estimator, voltage);
-    if (h1 === 0) continue;
-    estimator.evaluate(frequencies[k]!, xr, xi, false);
-    const bound = figures(estimator).errorBound;
-    errorBounds[k] = bound;
+  let beta = 0;
+  const evaluate = (k: number): void => {
+    estimator.evaluateSecondOrder(frequencies[k]!, slice(k, ac.re), slice(k, ac.im), false);
+    estimator.evaluateThirdOrder(frequencies[k]!, slice(k, ac.re), slice(k, ac.im), false);
+    const f = figures(estimator);
+    errorBounds[k] = f.errorBound;
+    const a = secondOrderBounds[k]!;
+    const b = f.errorBound - a;
+    beta = Math.max(beta, a > 0 ? b / a : b > 0 ? Number.POSITIVE_INFINITY : 0);
     const better =
       worst < 0 ||
-      bound > errorBounds[worst]! ||
-      (bound === errorBounds[worst] && frequencies[k]! < frequencies[worst]!);
+      f.errorBound > errorBounds[worst]! ||
+      (f.errorBound === errorBounds[worst] && frequencies[k]! < frequencies[worst]!);
     if (better) worst = k;
+  };
+  // The third-order part where it can decide the worst frequency (see the top of this file).
+  while (true) {
+    let next = -1;
+    for (let k = 0; k < count; k++) {
+      const a = secondOrderBounds[k]!;
+      if (Number.isNaN(a) || !Number.isNaN(errorBounds[k]!)) continue;
+      const candidate = worst < 0 || beta > THIRD_ORDER_RATIO_LIMIT || a * (1 + beta) >= errorBounds[worst]!;
+      if (candidate && (next < 0 || a > secondOrderBounds[next]!)) next = k;
+    }
+    if (next < 0) break;
+    evaluate(next);
   }
   if (worst < 0) {
     throw noSignal(describeProbe(output), Array.from(frequencies), 'its small-signal phasor is zero');
@@ -349,6 +388,7 @@ function outputVerdict(
       fundamental: h1,
       ...f,
       withinBudget: f.errorBound <= budget,
+      secondOrderBounds,
       errorBounds,
     },
     junctions: withShares,
@@ -357,10 +397,14 @@ function outputVerdict(
 }
 
 /** |H1| at frequency index k, or 0 where it is below round-off against the largest unknown there. */
-function fundamentalSize(ac: AcAnalysis, k: number, estimator: HarmonicEstimator, voltage: boolean): number {
-  const stride = ac.operatingPoint.system.n + 1;
-  const xr = ac.re.subarray(k * stride, (k + 1) * stride);
-  const xi = ac.im.subarray(k * stride, (k + 1) * stride);
+function fundamentalSize(
+  ac: AcAnalysis,
+  k: number,
+  xr: Float64Array,
+  xi: Float64Array,
+  estimator: HarmonicEstimator,
+  voltage: boolean,
+): number {
   estimator.readFundamental(ac.frequencies[k]!, xr, xi);
   const size = Math.hypot(estimator.fundamental[0]!, estimator.fundamental[1]!);
   if (!voltage) return size;
@@ -375,7 +419,7 @@ function figures(
   e: HarmonicEstimator,
 ): Omit<
   OutputLinearity,
-  'output' | 'outputName' | 'frequency' | 'fundamental' | 'withinBudget' | 'errorBounds'
+  'output' | 'outputName' | 'frequency' | 'fundamental' | 'withinBudget' | 'errorBounds' | 'secondOrderBounds'
 > {
   const h1 = Math.hypot(e.fundamental[0]!, e.fundamental[1]!);
   const secondHarmonic = ratio(Math.hypot(e.second[0]!, e.second[1]!), h1);
