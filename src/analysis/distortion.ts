@@ -60,6 +60,13 @@ import {
   quadratic,
 } from './nonlinear-currents.js';
 import type { OperatingPoint } from './operating-point.js';
+import { OutputAdjoint } from './output-adjoint.js';
+
+/**
+ * Above this many devices the shares come from one transposed solve (output-adjoint.ts) rather than
+ * one forward solve per device: the same numbers, at a cost that no longer grows with the count.
+ */
+export const SHARES_BY_ADJOINT = 8;
 
 /** Options of {@link distortion}. */
 export interface DistortionOptions {
@@ -159,6 +166,7 @@ export class HarmonicEstimator {
   readonly #meanCurrent: Float64Array;
   readonly #noCurrent: Float64Array;
   #meanTransfer: Float64Array | null = null;
+  #adjoint: OutputAdjoint | undefined;
   readonly #v: ControlPhasors;
   readonly #vBar: ControlPhasors;
   readonly #w: ControlPhasors;
@@ -359,6 +367,29 @@ export class HarmonicEstimator {
     solutionIm: Float64Array | null,
   ): void {
     const groups = shares ? this.set.devices.length : 0;
+    if (shares && groups > SHARES_BY_ADJOINT) {
+      // One forward solve for the total, one transposed solve for every share.
+      injectCurrents(this.set, this.#currentRe, this.#currentIm, -1, this.#re, this.#im);
+      this.#solveAndRead(frequency, total, 0);
+      solutionRe?.set(this.#re);
+      solutionIm?.set(this.#im);
+      this.#adjoint ??= new OutputAdjoint(this.#ac, this.#readHarmonic);
+      this.#adjoint.solveAt(frequency);
+      shareOut.fill(0);
+      const { currents, owner } = this.set;
+      for (let i = 0; i < currents.length; i++) {
+        const { from, to } = currents[i]!;
+        this.#adjoint.addResponse(
+          from,
+          to,
+          this.#currentRe[i]!,
+          this.#currentIm[i]!,
+          shareOut,
+          2 * owner[i]!,
+        );
+      }
+      return;
+    }
     if (!shares) {
       injectCurrents(this.set, this.#currentRe, this.#currentIm, -1, this.#re, this.#im);
       this.#solveAndRead(frequency, total, 0);

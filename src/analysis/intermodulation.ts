@@ -20,13 +20,15 @@
  * A product at a negative frequency is solved there as it stands (the circuit at −ω is the conjugate
  * of the circuit at ω); its magnitude is that of the product at the positive frequency.
  *
- * Factorizations: f1, f2, 2f1, 2f2, f2 − f1, f1 + f2, 2f1 − f2 and 2f2 − f1, one each.
+ * Factorizations: f1, f2, 2f1, 2f2, f2 − f1, f1 + f2, 2f1 − f2 and 2f2 − f1, one each; the devices'
+ * contributions to the larger order-3 product take one solve each, or with many devices one
+ * transposed solve for all (output-adjoint.ts).
  */
 import Complex from 'complex.js';
 import { invalidValue, noSignal } from '../errors/messages.js';
 import type { Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
-import { ratio } from './distortion.js';
+import { ratio, SHARES_BY_ADJOINT } from './distortion.js';
 import { describeProbe, probeReader } from './distortion-probe.js';
 import {
   ControlPhasors,
@@ -36,6 +38,7 @@ import {
   quadratic,
 } from './nonlinear-currents.js';
 import type { OperatingPoint } from './operating-point.js';
+import { OutputAdjoint } from './output-adjoint.js';
 
 /** Options of {@link intermodulation}. */
 export interface IntermodulationOptions {
@@ -221,16 +224,36 @@ export function intermodulation(op: OperatingPoint, options: IntermodulationOpti
       currentIm[i] = im;
     }
   };
+  // Each device's part of the larger order-3 product: with few devices one solve each, right after
+  // the product's own solve; with many, one transposed solve at the larger product afterwards.
+  const fewDevices = set.devices.length <= SHARES_BY_ADJOINT;
   const lowerFrequency = 2 * f1 - f2;
   thirdOrderCurrents(one.x, two.x, true, double1.x);
   workspace.factorAt(lowerFrequency);
   const lower = solveAt(lowerFrequency, -1);
-  const lowerShares = set.devices.map((_, g) => solveAt(lowerFrequency, g));
+  const lowerShares = fewDevices ? set.devices.map((_, g) => solveAt(lowerFrequency, g)) : [];
+  const lowerCurrents = [currentRe.slice(), currentIm.slice()] as const;
   const upperFrequency = 2 * f2 - f1;
   thirdOrderCurrents(two.x, one.x, false, double2.x);
   workspace.factorAt(upperFrequency);
   const upper = solveAt(upperFrequency, -1);
-  const upperShares = set.devices.map((_, g) => solveAt(upperFrequency, g));
+  const upperShares = fewDevices ? set.devices.map((_, g) => solveAt(upperFrequency, g)) : [];
+  const lowerLarger = lower.abs() >= upper.abs();
+  let shares = lowerLarger ? lowerShares : upperShares;
+  if (!fewDevices) {
+    if (lowerLarger) {
+      currentRe.set(lowerCurrents[0]);
+      currentIm.set(lowerCurrents[1]);
+    }
+    const adjoint = new OutputAdjoint(workspace, readHarmonic);
+    adjoint.solveAt(lowerLarger ? lowerFrequency : upperFrequency);
+    const parts = new Float64Array(2 * set.devices.length);
+    for (let i = 0; i < currents.length; i++) {
+      const { from, to } = currents[i]!;
+      adjoint.addResponse(from, to, currentRe[i]!, currentIm[i]!, parts, 2 * set.owner[i]!);
+    }
+    shares = set.devices.map((_, g) => new Complex(parts[2 * g]!, parts[2 * g + 1]!));
+  }
 
   const product = (
     frequency: number,
@@ -250,8 +273,6 @@ export function intermodulation(op: OperatingPoint, options: IntermodulationOpti
     product(lowerFrequency, '2f1 - f2', 3, lower),
     product(upperFrequency, '2f2 - f1', 3, upper),
   ];
-  const lowerLarger = lower.abs() >= upper.abs();
-  const shares = lowerLarger ? lowerShares : upperShares;
   const secondOrderRatio = products[0]!.ratio;
   const thirdOrderRatio = Math.max(products[2]!.ratio, products[3]!.ratio);
   const inputIntercept3 = thirdOrderRatio === 0 ? Number.POSITIVE_INFINITY : 1 / Math.sqrt(thirdOrderRatio);

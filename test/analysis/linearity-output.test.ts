@@ -6,7 +6,9 @@
 import { describe, expect, it } from 'vitest';
 import {
   acAnalysis,
-  type Circuit,
+  Circuit,
+  distortion,
+  GROUND,
   linearity,
   operatingPoint,
   QuiescentError,
@@ -190,5 +192,38 @@ describe('no-signal', () => {
     const attempt = () =>
       quasiStaticHarmonics(commonEmitterStage(0.01, 220), { output: 'out', reactive: 'open' });
     expect(attempt).toThrow(expect.objectContaining({ code: 'no-signal' }));
+  });
+});
+
+describe('the shares of many devices', () => {
+  it('come from one transposed solve and add up to the forward solve’s total', () => {
+    // Superposition on the linear circuit (common practice, no source): the shares are the output's
+    // response to each device's currents, so their complex sum is the response to all of them.
+    const circuit = new Circuit()
+      .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
+      .voltageSource('signal', 'in', GROUND, { ac: 1e-3 });
+    for (let k = 0; k < 6; k++) {
+      const from = k === 0 ? 'in' : `c${k - 1}`;
+      circuit
+        .capacitor(`Ccouple${k}`, from, `b${k}`, '100µ')
+        .resistor(`Rtop${k}`, 'vcc', `b${k}`, '68k')
+        .resistor(`Rbottom${k}`, `b${k}`, GROUND, '12k')
+        .resistor(`Rcollector${k}`, 'vcc', `c${k}`, '2.7k')
+        .resistor(`Remitter${k}`, `e${k}`, GROUND, '2.7k')
+        .bjt(`Q${k}`, { collector: `c${k}`, base: `b${k}`, emitter: `e${k}` }, { polarity: 'npn' });
+    }
+    const ac = acAnalysis(operatingPoint(circuit), { frequencies: [1e3] });
+    const [point] = distortion(ac, { output: 'c5' }).points;
+    expect(point!.contributions.length).toBeGreaterThan(8);
+    let re = 0;
+    let im = 0;
+    for (const c of point!.contributions) {
+      re += c.second.re;
+      im += c.second.im;
+    }
+    expect(Math.hypot(re - point!.second.re, im - point!.second.im)).toBeLessThan(1e-9 * point!.second.abs());
+    let third = 0;
+    for (const c of point!.contributions) third += c.third.re;
+    expect(Math.abs(third - point!.third.re)).toBeLessThan(1e-9 * point!.third.abs());
   });
 });
