@@ -139,6 +139,7 @@ export {
   type LinearityReportJson,
   linearityToJson,
   type OperatingPointJson,
+  type OutputLinearityJson,
   operatingPointTables,
   operatingPointToJson,
   type PhasorsJson,

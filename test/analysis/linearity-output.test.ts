@@ -227,3 +227,24 @@ describe('the shares of many devices', () => {
     expect(Math.abs(third - point!.third.re)).toBeLessThan(1e-9 * point!.third.abs());
   });
 });
+
+describe('the report as JSON', () => {
+  it('carries the output verdict and the shares', () => {
+    // Source: the report's own fields (docs/reports.md); JSON.stringify must round-trip them.
+    const report = linearity(
+      acAnalysis(operatingPoint(commonEmitterStage(0.01, 220)), { frequencies: [10e3] }),
+      {
+        output: 'out',
+      },
+    );
+    const json = JSON.parse(JSON.stringify(report));
+    expect(json.output).toMatchObject({
+      output: 'v(out)',
+      frequency: 10e3,
+      withinBudget: true,
+      secondHarmonic: report.output!.secondHarmonic,
+    });
+    const be = json.junctions.find((j: { junction: string }) => j.junction === 'base-emitter');
+    expect(be.share.second).toBe(report.output!.secondHarmonic);
+  });
+});
