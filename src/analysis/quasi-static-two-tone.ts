@@ -13,6 +13,7 @@ import { invalidValue, noSignal } from '../errors/messages.js';
 import { checkDriveScale } from './distortion.js';
 import type { IntermodulationProduct } from './intermodulation.js';
 import { checkPhases, prepareDriver, type QuasiStaticOptions } from './quasi-static.js';
+import { settleHeld } from './settle-reactive.js';
 
 /** Default phases per tone (a grid of 16 × 16 phase pairs). */
 export const DEFAULT_TONE_PHASES = 16;
@@ -81,18 +82,22 @@ export function quasiStaticIntermodulation(
   const { drives } = driver;
   const offsets = new Float64Array(drives.length);
   const samples = new Float64Array(phases * phases);
-  for (let k = 0; k < phases; k++) {
-    const theta1 = (2 * Math.PI * k) / phases;
-    for (let step = 0; step < phases; step++) {
-      const l = k % 2 === 0 ? step : phases - 1 - step;
-      const theta2 = (2 * Math.PI * l) / phases;
-      for (let d = 0; d < drives.length; d++) {
-        const { amplitude, phase } = drives[d]!;
-        offsets[d] = scale * amplitude * (Math.cos(theta1 + phase) + Math.cos(theta2 + phase));
+  const grid = (): void => {
+    for (let k = 0; k < phases; k++) {
+      const theta1 = (2 * Math.PI * k) / phases;
+      for (let step = 0; step < phases; step++) {
+        const l = k % 2 === 0 ? step : phases - 1 - step;
+        const theta2 = (2 * Math.PI * l) / phases;
+        for (let d = 0; d < drives.length; d++) {
+          const { amplitude, phase } = drives[d]!;
+          offsets[d] = scale * amplitude * (Math.cos(theta1 + phase) + Math.cos(theta2 + phase));
+        }
+        samples[k * phases + l] = driver.solve(offsets);
       }
-      samples[k * phases + l] = driver.solve(offsets);
     }
-  }
+  };
+  if (driver.reactive === 'settle') settleHeld(driver, grid, phases * phases);
+  grid();
   let largest = Math.abs(driver.quiescent);
   for (const y of samples) largest = Math.max(largest, Math.abs(y));
   const coefficient = (p: number, q: number): number => {

@@ -33,6 +33,7 @@ import {
   startFromGuess,
 } from './operating-point.js';
 import { type OperatingPointOptions, resolveOptions } from './options.js';
+import { settleHeld } from './settle-reactive.js';
 
 /** Default number of phases per period. */
 export const DEFAULT_PHASES = 64;
@@ -42,19 +43,20 @@ export const HARMONICS_KEPT = 16;
 
 /**
  * Newton tolerances of the check unless given: tight enough that rounding, not the iteration, limits
- * a 3rd harmonic some 1e-6 below the fundamental.
+ * a 3rd harmonic some 1e-6 below the fundamental, and loose enough (1 pV, 0.1 pA absolute) that a node
+ * or branch crossing zero, whose value rounding blurs by some 1e-14 of the supply, still converges.
  */
 const CHECK_TOLERANCES = {
   relativeTolerance: 1e-12,
-  voltageTolerance: 1e-14,
-  currentTolerance: 1e-17,
+  voltageTolerance: 1e-12,
+  currentTolerance: 1e-13,
 } as const;
 
 /** Relative size below which a fundamental is taken for the solver's rounding, not a signal. */
 const NO_SIGNAL_LEVEL = 1e-9;
 
 /** What the check does with capacitors and inductors. */
-export type ReactiveTreatment = 'hold' | 'open';
+export type ReactiveTreatment = 'hold' | 'settle' | 'open';
 
 /** Options of {@link quasiStaticHarmonics}. */
 export interface QuasiStaticOptions extends OperatingPointOptions {
@@ -66,7 +68,9 @@ export interface QuasiStaticOptions extends OperatingPointOptions {
   readonly scale?: number;
   /**
    * `'hold'` (default): capacitors hold their operating-point voltage and inductors their current, as
-   * in mid-band; `'open'`: the DC circuit, capacitors open and inductors shorted.
+   * in mid-band; `'settle'`: held too, at the voltage (current) where their mean current (voltage)
+   * over the period is zero, the periodic steady state (settle-reactive.ts); `'open'`: the DC circuit,
+   * capacitors open and inductors shorted.
    */
   readonly reactive?: ReactiveTreatment;
 }
@@ -152,15 +156,33 @@ export interface QuasiStaticDriver {
   readonly linear: Complex;
   /** The absolute tolerance of the output's quantity (V or A). */
   readonly tolerance: number;
+  /** The held capacitors and inductors: what they hold at the operating point, and how to read them. */
+  readonly heldElements: readonly HeldElement[];
+  /** Σ over the solves since the last reset of each held element's current (capacitor) or voltage (inductor). */
+  readonly heldSums: Float64Array;
   /** Solve with each drive at dc + value[d] (a warm start from the last solve) and read the output. */
   solve(offsets: Float64Array): number;
+  /** Hold each held element at its operating-point value + offsets[h] from the next solve on. */
+  setHeld(offsets: Float64Array): void;
+}
+
+/** A capacitor or inductor held by a source of its own name. */
+export interface HeldElement {
+  /** The element (and source) name. */
+  readonly name: string;
+  /** The voltage (capacitor) or current (inductor) held at the operating point. */
+  readonly dc: number;
+  /** Whether it is a capacitor (held voltage, its current read) or an inductor (held current, its voltage read). */
+  readonly capacitor: boolean;
+  /** The quantity that must average to zero: the capacitor's current, or the inductor's voltage. */
+  read(x: Float64Array): number;
 }
 
 /** Check the common options and prepare the compiled system. */
 export function prepareDriver(circuit: Circuit, options: QuasiStaticOptions): QuasiStaticDriver {
   const { output, phases: _phases, scale: _scale, reactive = 'hold', ...rest } = options;
-  if (reactive !== 'hold' && reactive !== 'open') {
-    throw invalidValue(['reactive'], reactive, "'hold' or 'open'");
+  if (reactive !== 'hold' && reactive !== 'settle' && reactive !== 'open') {
+    throw invalidValue(['reactive'], reactive, "'hold', 'settle' or 'open'");
   }
   const given = Object.fromEntries(Object.entries(rest).filter(([, v]) => v !== undefined));
   const resolved = resolveOptions({ ...CHECK_TOLERANCES, ...given });
@@ -170,7 +192,7 @@ export function prepareDriver(circuit: Circuit, options: QuasiStaticOptions): Qu
   let kept: readonly string[] = records
     .filter((r) => r.kind === 'capacitor' || r.kind === 'inductor')
     .map((r) => r.name);
-  if (reactive === 'hold') {
+  if (reactive !== 'open') {
     const open = solverFor(records, resolved);
     startFromGuess(open);
     const heldCircuit = holdReactive(records, solveFromCurrent(open, base));
@@ -192,6 +214,19 @@ export function prepareDriver(circuit: Circuit, options: QuasiStaticOptions): Qu
   const quiescent = read(op.x);
   const linear = acAnalysis(op, { frequencies: [0] }).response(output)[0]!;
   const voltage = typeof output === 'string' || 'node' in output;
+  const heldElements = held.map((name): HeldElement => {
+    const record = solver.system.deviceByName.get(name)!.record;
+    if (record.kind === 'voltage-source') {
+      const device = solver.system.deviceByName.get(name)!;
+      const current = device.current!.bind(device);
+      return { name, dc: record.dc, capacitor: true, read: current };
+    }
+    const from = record.kind === 'current-source' ? nodeAt(solver.system, record.from) : 0;
+    const to = record.kind === 'current-source' ? nodeAt(solver.system, record.to) : 0;
+    const dc = record.kind === 'current-source' ? record.dc : 0;
+    return { name, dc, capacitor: false, read: (x) => x[from]! - x[to]! };
+  });
+  const heldSums = new Float64Array(heldElements.length);
   return {
     solver,
     drives,
@@ -202,9 +237,18 @@ export function prepareDriver(circuit: Circuit, options: QuasiStaticOptions): Qu
     quiescent,
     linear,
     tolerance: voltage ? resolved.voltageTolerance : resolved.currentTolerance,
+    heldElements,
+    heldSums,
     solve(offsets) {
       for (let d = 0; d < drives.length; d++) sourceValues.set(drives[d]!.name, drives[d]!.dc + offsets[d]!);
-      return read(solveFromCurrent(solver, conditions).x);
+      const x = solveFromCurrent(solver, conditions).x;
+      for (let h = 0; h < heldElements.length; h++) heldSums[h]! += heldElements[h]!.read(x);
+      return read(x);
+    },
+    setHeld(offsets) {
+      for (let h = 0; h < heldElements.length; h++) {
+        sourceValues.set(heldElements[h]!.name, heldElements[h]!.dc + offsets[h]!);
+      }
     },
   };
 }
@@ -245,13 +289,17 @@ export function quasiStaticHarmonics(circuit: Circuit, options: QuasiStaticOptio
   const { drives } = driver;
   const offsets = new Float64Array(drives.length);
   const samples = new Float64Array(phases);
-  for (let k = 0; k < phases; k++) {
-    const theta = (2 * Math.PI * k) / phases;
-    for (let d = 0; d < drives.length; d++) {
-      offsets[d] = scale * drives[d]!.amplitude * Math.cos(theta + drives[d]!.phase);
+  const period = (): void => {
+    for (let k = 0; k < phases; k++) {
+      const theta = (2 * Math.PI * k) / phases;
+      for (let d = 0; d < drives.length; d++) {
+        offsets[d] = scale * drives[d]!.amplitude * Math.cos(theta + drives[d]!.phase);
+      }
+      samples[k] = driver.solve(offsets);
     }
-    samples[k] = driver.solve(offsets);
-  }
+  };
+  if (driver.reactive === 'settle') settleHeld(driver, period, phases);
+  period();
   let mean = 0;
   let largest = Math.abs(driver.quiescent);
   for (const y of samples) {
