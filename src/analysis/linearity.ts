@@ -334,8 +334,17 @@ function outputVerdict(
       (f.errorBound === errorBounds[worst] && frequencies[k]! < frequencies[worst]!);
     if (better) worst = k;
   };
-  // The third-order part where it can decide the worst frequency (see the top of this file).
-  while (true) {
+  // The third-order part where it can decide the worst frequency (see the top of this file). A circuit
+  // without nonlinear currents has none: its bound is 0 everywhere, the lowest frequency with signal.
+  if (estimator.set.currents.length === 0) {
+    const first = secondOrderBounds.findIndex((a) => !Number.isNaN(a));
+    let lowest = first;
+    for (let k = first + 1; first >= 0 && k < count; k++) {
+      if (!Number.isNaN(secondOrderBounds[k]!) && frequencies[k]! < frequencies[lowest]!) lowest = k;
+    }
+    if (lowest >= 0) evaluate(lowest);
+  }
+  while (estimator.set.currents.length > 0) {
     let next = -1;
     for (let k = 0; k < count; k++) {
       const a = secondOrderBounds[k]!;

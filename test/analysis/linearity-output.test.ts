@@ -258,3 +258,20 @@ describe('the report as JSON', () => {
     expect(be.share.second).toBe(report.output!.secondHarmonic);
   });
 });
+
+describe('a circuit without junctions', () => {
+  it('has an error bound of 0 at the lowest frequency with signal, and an unlimited scale', () => {
+    // Source: a linear circuit's small-signal answer is exact (common practice, no source).
+    const divider = new Circuit()
+      .voltageSource('drive', 'in', GROUND, { ac: 1 })
+      .resistor('Rtop', 'in', 'out', '1k')
+      .resistor('Rbottom', 'out', GROUND, '1k');
+    const report = linearity(acAnalysis(operatingPoint(divider), { frequencies: [1e3, 10, 100] }), {
+      output: 'out',
+    });
+    expect(report.output!.frequency).toBe(10);
+    expect(report.output!.errorBound).toBe(0);
+    expect(report.maxInputScale).toBe(Number.POSITIVE_INFINITY);
+    expect(report.withinBudget).toBe(true);
+  });
+});
