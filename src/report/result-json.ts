@@ -109,7 +109,12 @@ export interface JunctionLinearityJson {
   /** The amplitude at every analysed frequency, in V. */
   readonly amplitudes: readonly number[];
   /** The device's share of the output's harmonics, when the report was taken at an output. */
-  readonly share?: { readonly second: number | null; readonly third: number | null };
+  readonly share?: {
+    /** The device's part of the output's 2nd harmonic over the fundamental. */
+    readonly second: number | null;
+    /** The device's part of the output's 3rd harmonic over the fundamental. */
+    readonly third: number | null;
+  };
 }
 
 /** The verdict at an output as JSON (see `OutputLinearity`); `null` for infinite or missing values. */

@@ -108,3 +108,32 @@ describe('quasiStaticHarmonics', () => {
     });
   }
 });
+
+describe('the held reactive elements', () => {
+  it('hold coupling capacitors and chokes, and keep those that would close a loop of sources or a cut set', () => {
+    // Source: a loop of voltage sources or a cut set of current sources has no unique solution
+    // (modified nodal analysis, common practice, no source), the two exceptions of docs/linearity.md.
+    const circuit = new Circuit()
+      .voltageSource('supply', 'vcc', GROUND, { dc: 5 })
+      .capacitor('Cdecouple', 'vcc', GROUND, '10µ')
+      .voltageSource('signal', 'in', GROUND, { ac: 0.01 })
+      .capacitor('Ccouple', 'in', 'a', '10µ')
+      .resistor('Rbias', 'vcc', 'a', '10k')
+      .diode('D1', 'a', GROUND)
+      .inductor('Lchoke', 'vcc', 'b', '1m')
+      .resistor('Rload', 'b', GROUND, '1k')
+      .currentSource('Ifeed', GROUND, 'c', { dc: 1e-3 })
+      .inductor('Lseries', 'c', 'd', '1m')
+      .resistor('Rsense', 'd', GROUND, '100');
+    const check = quasiStaticHarmonics(circuit, { output: 'a' });
+    expect([...check.held].sort()).toEqual(['Ccouple', 'Lchoke']);
+    expect([...check.kept].sort()).toEqual(['Cdecouple', 'Lseries']);
+    expect(check.secondHarmonic).toBeGreaterThan(0);
+  });
+
+  it('refuses an unknown treatment', () => {
+    expect(() =>
+      quasiStaticHarmonics(diodeAttenuator(0.01), { output: 'a', reactive: 'short' as never }),
+    ).toThrow(expect.objectContaining({ code: 'invalid-value' }));
+  });
+});
