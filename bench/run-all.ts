@@ -14,6 +14,7 @@ const BENCHMARKS: readonly (readonly string[])[] = [
   ['pipeline.ts', '--sizes', '1000,10000'],
   ['small-circuit.ts'],
   ['noise.ts'],
+  ['linearity.ts'],
 ];
 
 const here = dirname(fileURLToPath(import.meta.url));

@@ -31,12 +31,22 @@ export {
   distortion,
 } from './analysis/distortion.js';
 export { linearSweep, logSweep } from './analysis/frequency-grid.js';
+export { type HeldReactive, holdReactive } from './analysis/held-reactive.js';
+export {
+  type Intermodulation,
+  type IntermodulationContribution,
+  type IntermodulationOptions,
+  type IntermodulationProduct,
+  intermodulation,
+} from './analysis/intermodulation.js';
 export {
   DEFAULT_LINEARITY_BUDGET,
+  type DistortionShare,
   type JunctionLinearity,
   type LinearityOptions,
   type LinearityReport,
   linearity,
+  type OutputLinearity,
 } from './analysis/linearity.js';
 export { Noise, type NoiseContribution, type NoiseOptions, noise } from './analysis/noise.js';
 export { OperatingPoint } from './analysis/operating-point.js';
@@ -48,10 +58,19 @@ export {
   DEFAULT_PHASES,
   type DistortionCheck,
   type DistortionCheckOptions,
+  HARMONICS_KEPT,
   type QuasiStaticHarmonics,
   type QuasiStaticOptions,
   quasiStaticHarmonics,
+  type ReactiveTreatment,
 } from './analysis/quasi-static.js';
+export {
+  DEFAULT_TONE_PHASES,
+  type QuasiStaticIntermodulation,
+  type QuasiStaticIntermodulationOptions,
+  type QuasiStaticProduct,
+  quasiStaticIntermodulation,
+} from './analysis/quasi-static-two-tone.js';
 export type {
   BjtRegion,
   BjtReport,
@@ -152,6 +171,7 @@ export {
   type LinearityReportJson,
   linearityToJson,
   type OperatingPointJson,
+  type OutputLinearityJson,
   operatingPointTables,
   operatingPointToJson,
   type PhasorsJson,

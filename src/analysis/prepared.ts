@@ -198,6 +198,11 @@ export function preparedFor(circuit: Circuit): PreparedCircuit {
   return prepared;
 }
 
+/** @internal A fresh solver for element records (a circuit's, or a variant of them), compiled now. */
+export function solverFor(records: readonly ElementRecord[], options: ResolvedOptions): Solver {
+  return new PreparedCircuit(records).solver(options);
+}
+
 /** @internal The solver of a circuit's cached prepared system with these options (quasi-static checks, benches). */
 export function prepareSolver(circuit: Circuit, options?: OperatingPointOptions): Solver {
   return preparedFor(circuit).solver(resolveOptions(options));

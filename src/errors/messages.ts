@@ -123,3 +123,17 @@ export function noConvergence(details: {
     `the operating point could not be found after ${tried}; largest residuals at ${worst || 'no node'}${devices}`,
   );
 }
+
+/** A ratio to a fundamental was asked where the output carries no signal. */
+export function noSignal(output: string, frequencies: readonly number[], why: string): QuiescentError {
+  const where =
+    frequencies.length === 0
+      ? ''
+      : frequencies.length === 1
+        ? ` at ${frequencies[0]} Hz`
+        : ` at any of the ${frequencies.length} frequencies from ${Math.min(...frequencies)} Hz to ${Math.max(...frequencies)} Hz`;
+  return new QuiescentError(
+    { code: 'no-signal', output, frequencies },
+    `the output ${output} carries no signal${where} (${why}), so no ratio to its fundamental exists`,
+  );
+}

@@ -13,7 +13,8 @@ export type ErrorCode =
   | 'floating-node'
   | 'singular'
   | 'no-convergence'
-  | 'invalid-circuit';
+  | 'invalid-circuit'
+  | 'no-signal';
 
 /** One fallback strategy of the operating-point search and how it ended. */
 export interface StrategyAttempt {
@@ -104,6 +105,14 @@ export type ErrorDetails =
       readonly code: 'invalid-circuit';
       /** Where the problem is, such as `['elements', 3, 'kind']`. */
       readonly path: readonly (string | number)[];
+    }
+  | {
+      /** A ratio to a fundamental was asked where the output carries no signal. */
+      readonly code: 'no-signal';
+      /** The output, as a report names it. */
+      readonly output: string;
+      /** The frequencies looked at, in Hz (empty for the large-signal check, which has none). */
+      readonly frequencies: readonly number[];
     };
 
 /** The details type that belongs to one code. */

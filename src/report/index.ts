@@ -11,6 +11,7 @@ export {
   type JunctionLinearityJson,
   type LinearityReportJson,
   linearityToJson,
+  type OutputLinearityJson,
   type PhasorsJson,
 } from './result-json.js';
 export {
