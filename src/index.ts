@@ -70,6 +70,7 @@ export {
   type BjtRecord,
   type CapacitorRecord,
   type CccsRecord,
+  type LoopProbeRecord,
   type CcvsRecord,
   type CurrentSourceRecord,
   type DiodeRecord,
