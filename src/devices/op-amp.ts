@@ -65,6 +65,17 @@ export class OpAmp implements Device {
   loadAc(ctx: AcLoadContext): void {
     this.stamp(ctx.Ar, ctx.Ai, ctx.omega);
   }
+  /**
+   * The branch row times (1 + s/ω_p): (v(out) + R_out·i)·(1 + s/ω_p) = A0·(v(plus) − v(minus)), so
+   * that the op-amp's pole is a natural frequency of the circuit.
+   */
+  loadPencil(G: Float64Array, C: Float64Array): void {
+    this.stamp(G, undefined, 0);
+    if (this.ideal || !Number.isFinite(this.poleOmega)) return;
+    const s = this.s;
+    C[s[3]!]! += 1 / this.poleOmega;
+    C[s[4]!]! += this.outputResistance / this.poleOmega;
+  }
   current(x: Float64Array): number {
     return x[this.k]!;
   }
