@@ -38,6 +38,15 @@ export {
   type LinearityReport,
   linearity,
 } from './analysis/linearity.js';
+export { LoopGain, type LoopGainJson, type LoopGainOptions, loopGain } from './analysis/loop-gain.js';
+export {
+  DENSE_LIMIT,
+  type PolesOptions,
+  poles,
+  type Root,
+  type ZerosOptions,
+  zeros,
+} from './analysis/natural-frequencies.js';
 export { OperatingPoint, operatingPoint } from './analysis/operating-point.js';
 export { DEFAULT_TEMPERATURE, type OperatingPointOptions } from './analysis/options.js';
 export { type Port, portImpedance } from './analysis/port-impedance.js';
@@ -59,6 +68,17 @@ export type {
   MosfetReport,
 } from './analysis/reports.js';
 export {
+  isRightHalfPlane,
+  PHASE_MARGIN_TARGET,
+  type RootJson,
+  rootToJson,
+  StabilityReport,
+  type StabilityReportJson,
+  type StabilityReportOptions,
+  type StabilityVerdict,
+  stabilityReport,
+} from './analysis/stability.js';
+export {
   type BjtTerminals,
   Circuit,
   type MosfetTerminals,
@@ -70,7 +90,6 @@ export {
   type BjtRecord,
   type CapacitorRecord,
   type CccsRecord,
-  type LoopProbeRecord,
   type CcvsRecord,
   type CurrentSourceRecord,
   type DiodeRecord,
@@ -79,6 +98,7 @@ export {
   type GivenParameters,
   GROUND,
   type InductorRecord,
+  type LoopProbeRecord,
   type MosfetRecord,
   type OpAmpRecord,
   type ResistorRecord,
@@ -141,6 +161,8 @@ export {
   linearityTables,
   linearityVerdict,
 } from './report/linearity-table.js';
+export { loopGainPlotSvg } from './report/loop-gain-plot.js';
+export { formatStabilityReport, rootsTable, stabilityTables } from './report/stability-table.js';
 export {
   type FormatOptions,
   formatValue,

@@ -184,9 +184,12 @@ export function loopGain(op: OperatingPoint, options: LoopGainOptions): LoopGain
   }
   const { probe } = options;
   const device = typeof probe === 'string' ? op.system.deviceByName.get(probe) : undefined;
-  if (device === undefined) throw unknownElement(String(probe), 'the circuit has no loop probe of that name', ['probe']);
+  if (device === undefined)
+    throw unknownElement(String(probe), 'the circuit has no loop probe of that name', ['probe']);
   if (device.record.kind !== 'loop-probe') {
-    throw unknownElement(probe, `it is a ${device.record.kind}, not a loop probe (add one with loopProbe)`, ['probe']);
+    throw unknownElement(probe, `it is a ${device.record.kind}, not a loop probe (add one with loopProbe)`, [
+      'probe',
+    ]);
   }
   const frequencies = checkFrequencies(options.frequencies);
   checkAscending(frequencies);

@@ -11,7 +11,7 @@
  * therefore done at two shifts: a true root is the same at both, a spurious one is not.
  */
 import { EigenvalueDecomposition, LuDecomposition, Matrix } from 'ml-matrix';
-import { QuiescentError } from '../errors/quiescent-error.js';
+import type { QuiescentError } from '../errors/quiescent-error.js';
 import type { Pencil } from './pencil.js';
 
 /** A root s = re + j·im, in rad/s. */

@@ -40,7 +40,14 @@ interface Work {
 }
 
 /** out = M·x for the pencil's G or C (values `values`) on complex x. */
-function multiply(pencil: Pencil, values: Float64Array, xr: Float64Array, xi: Float64Array, or: Float64Array, oi: Float64Array): void {
+function multiply(
+  pencil: Pencil,
+  values: Float64Array,
+  xr: Float64Array,
+  xi: Float64Array,
+  or: Float64Array,
+  oi: Float64Array,
+): void {
   or.fill(0);
   oi.fill(0);
   const { Ap, Ai } = pencil;
@@ -66,7 +73,11 @@ function maxAbs(values: Float64Array): number {
  * The least-squares Rayleigh quotient s = −(Cx)ᴴ(Gx)/‖Cx‖² (the s that makes ‖Gx + sCx‖ least), and
  * the relative residual of (s, x). Fills w.gr/gi, w.cr/ci.
  */
-function rayleigh(pencil: Pencil, w: Work, norms: { g: number; c: number }): { s: RootValue; residual: number } {
+function rayleigh(
+  pencil: Pencil,
+  w: Work,
+  norms: { g: number; c: number },
+): { s: RootValue; residual: number } {
   multiply(pencil, pencil.G, w.xr, w.xi, w.gr, w.gi);
   multiply(pencil, pencil.C, w.xr, w.xi, w.cr, w.ci);
   let numRe = 0;
@@ -245,7 +256,8 @@ export function sparseRootsNear(
     if (root === null) continue;
     const tolerance = 1e-7 * Math.max(Math.hypot(root.re, root.im), 1e-9 * scale);
     const known = found.some(
-      (r) => Math.abs(r.re - root.re) <= tolerance && Math.abs(Math.abs(r.im) - Math.abs(root.im)) <= tolerance,
+      (r) =>
+        Math.abs(r.re - root.re) <= tolerance && Math.abs(Math.abs(r.im) - Math.abs(root.im)) <= tolerance,
     );
     if (known) continue;
     found.push(root);

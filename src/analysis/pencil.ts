@@ -106,7 +106,11 @@ export function borderedPencil(op: OperatingPoint, output: Probe, input: string)
   const { n } = system;
   const record = typeof input === 'string' ? system.deviceByName.get(input)?.record : undefined;
   if (record === undefined || (record.kind !== 'voltage-source' && record.kind !== 'current-source')) {
-    throw invalidValue(['input'], input, 'the name of an independent voltage or current source of the circuit');
+    throw invalidValue(
+      ['input'],
+      input,
+      'the name of an independent voltage or current source of the circuit',
+    );
   }
   // The input column: a voltage source's excitation enters its branch row; a current source's
   // current leaves `from` and enters `to`.
