@@ -126,7 +126,10 @@ describe('loopGain on a loop of three equal poles', () => {
     .resistor('R3', 'g', 'out', r)
     .capacitor('C3', 'out', GROUND, c)
     .loopProbe('loopBreak', 'out', 'fb');
-  const loop = loopGain(operatingPoint(circuit), { probe: 'loopBreak', frequencies: logSweep(1e3, 1e8, 400) });
+  const loop = loopGain(operatingPoint(circuit), {
+    probe: 'loopBreak',
+    frequencies: logSweep(1e3, 1e8, 400),
+  });
 
   it('reaches −180° at ω = √3/τ, where |T| = K/8: a gain margin of 20·log10(8/K)', () => {
     // Source: each pole gives −60° at ωτ = √3 and |1 + j√3| = 2 (the phase-shift oscillator's
@@ -183,8 +186,16 @@ describe('loopGain on a loop that passes signal both ways', () => {
 describe('loopGain refuses', () => {
   const op = operatingPoint(follower(1e5, 1e6, 100, 1e-9));
   it('a probe that is not a loop probe, naming it', () => {
-    expectQuiescentError(() => loopGain(op, { probe: 'load', frequencies: [1, 10] }), 'unknown-element', 'load');
-    expectQuiescentError(() => loopGain(op, { probe: 'nowhere', frequencies: [1, 10] }), 'unknown-element', 'nowhere');
+    expectQuiescentError(
+      () => loopGain(op, { probe: 'load', frequencies: [1, 10] }),
+      'unknown-element',
+      'load',
+    );
+    expectQuiescentError(
+      () => loopGain(op, { probe: 'nowhere', frequencies: [1, 10] }),
+      'unknown-element',
+      'nowhere',
+    );
   });
   it('frequencies that do not ascend', () => {
     expectQuiescentError(
