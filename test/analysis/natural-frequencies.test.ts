@@ -129,7 +129,9 @@ describe('poles of a third-order Butterworth ladder', () => {
     expect(p).toHaveLength(3);
     // Sorted by frequency (all equal: the Butterworth circle), then by decreasing real part.
     const want = [...butterworth.poles].sort((a, b) => b.re - a.re || b.im - a.im);
-    want.forEach((s, k) => expectRootAt(p[k]!, s.re, s.im, 1e-11, `pole ${k}`));
+    want.forEach((s, k) => {
+      expectRootAt(p[k]!, s.re, s.im, 1e-11, `pole ${k}`);
+    });
   });
 });
 
