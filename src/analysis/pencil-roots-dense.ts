@@ -114,7 +114,7 @@ export function denseRoots(pencil: Pencil, singular: () => QuiescentError): Root
   }
   // Shifts in the right half-plane, where a stable circuit has no root; irrational multiples of the
   // scale, so that no tidy circuit puts a root exactly on one.
-  const shifts = [0.7317, 1.618, 3.1416, 0.2718, 7.389].map((m) => m * scale);
+  const shifts = [0.7317, 1.618, 3.1623, 0.2718, 7.389].map((m) => m * scale);
   const found: RootValue[][] = [];
   for (const sigma of shifts) {
     const roots = rootsAtShift(pencil, columns, sigma);

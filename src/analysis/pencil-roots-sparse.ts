@@ -149,7 +149,7 @@ export function sparseRootsNear(
   let shift = omega0;
   let regular = factor(0, shift);
   for (let attempt = 1; !regular && attempt <= 4; attempt++) {
-    shift = omega0 + attempt * 1e-3 * scale * 0.7071;
+    shift = omega0 + attempt * 1e-3 * scale * Math.SQRT1_2;
     regular = factor(0, shift);
   }
   if (!regular) throw singular();

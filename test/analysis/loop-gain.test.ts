@@ -10,6 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { Circuit, GROUND, logSweep, loopGain, operatingPoint } from '../../src/index.js';
 import { expectRelativelyClose } from '../support/close.js';
 import { expectQuiescentError } from '../support/quiescent-error.js';
+import { threePoleLoop } from '../support/three-pole-loop.js';
 
 const DEG = 180 / Math.PI;
 
@@ -110,22 +111,12 @@ describe('loopGain on a follower driving an RC load', () => {
 });
 
 describe('loopGain on a loop of three equal poles', () => {
-  // Three buffered RC sections and an inverting gain K: T = K/(1 + sτ)³.
+  // Three buffered RC sections and an inverting gain K (test/support/three-pole-loop.ts): T = K/(1 + sτ)³.
   const gain = 4;
   const r = 1e3;
   const c = 1e-9;
   const tau = r * c;
-  const circuit = new Circuit()
-    .vcvs('invert', ['a', GROUND], [GROUND, 'fb'], gain)
-    .resistor('R1', 'a', 'b', r)
-    .capacitor('C1', 'b', GROUND, c)
-    .vcvs('buffer1', ['d', GROUND], ['b', GROUND], 1)
-    .resistor('R2', 'd', 'e', r)
-    .capacitor('C2', 'e', GROUND, c)
-    .vcvs('buffer2', ['g', GROUND], ['e', GROUND], 1)
-    .resistor('R3', 'g', 'out', r)
-    .capacitor('C3', 'out', GROUND, c)
-    .loopProbe('loopBreak', 'out', 'fb');
+  const circuit = threePoleLoop(gain, r, c);
   const loop = loopGain(operatingPoint(circuit), {
     probe: 'loopBreak',
     frequencies: logSweep(1e3, 1e8, 400),
