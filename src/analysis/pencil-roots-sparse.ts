@@ -27,7 +27,7 @@ import type { Pencil } from './pencil.js';
 import { type RootValue, rootScale } from './pencil-roots-dense.js';
 
 /** Row-by-row relative residual of (G + sC)x the refinement aims for (see {@link rayleigh}). */
-const TARGET = 1e-14;
+const TARGET = 1e-12;
 /** The relative residual at which a refined root is accepted as a root. */
 const ACCEPT = 1e-9;
 /** An imaginary part below this fraction of |s| is rounding noise: the root is real. */
@@ -292,7 +292,7 @@ export function sparseRootsNear(
         distance({ re: -pr[k]! / size2, im: shift - pi[k]! / size2 }),
       );
       const nearest = found.map(distance).sort((a, b) => a - b);
-      if (estimate > 1.5 * nearest[limit - 1]!) break;
+      if (estimate > (1 + 1e-6) * nearest[limit - 1]!) break;
     }
     // The Ritz vector z = V·y (a complex pair keeps its real and imaginary parts in columns k, k+1).
     zr.fill(0);
@@ -318,6 +318,16 @@ export function sparseRootsNear(
     for (let i = 0; i < n; i++) {
       work.xr[i] = zr[i]! - sign * zi[n + i]!;
       work.xi[i] = zi[i]! + sign * zr[n + i]!;
+    }
+    // A real θ appears twice in the embedding (for y and for its conjugate): refine each root once.
+    const first = rayleigh(pencil, work).s;
+    if (
+      found.some(
+        (r) =>
+          Math.hypot(r.re - first.re, Math.abs(r.im) - Math.abs(first.im)) <= 1e-6 * Math.hypot(r.re, r.im),
+      )
+    ) {
+      continue;
     }
     const root = refine(pencil, work, factor, solver);
     if (root === null) continue;
