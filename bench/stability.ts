@@ -128,5 +128,7 @@ if (process.argv.includes('--json')) {
     }),
   );
   const ratio = rows[1]!.ratio!;
-  console.log(`\nloop gain / AC analysis: ${ratio.toFixed(2)}× (target ≤ 2.5×): ${ratio <= 2.5 ? 'met' : 'MISSED'}`);
+  console.log(
+    `\nloop gain / AC analysis: ${ratio.toFixed(2)}× (target ≤ 2.5×): ${ratio <= 2.5 ? 'met' : 'MISSED'}`,
+  );
 }

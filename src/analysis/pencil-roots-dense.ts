@@ -1,6 +1,6 @@
 /**
  * Every finite root of det(G + s·C) = 0 for a pencil small enough to hold densely. With a real shift σ
- * where A = G + σC is regular, (G + sC)x = 0 is A⁻¹C·x = μx with s = σ − 1/μ; the infinite roots
+ * where A = G + σC is regular (factored on the sparse LU), (G + sC)x = 0 is A⁻¹C·x = μx with s = σ − 1/μ; the infinite roots
  * (μ = 0) are the many unknowns C does not touch. Only the columns D where C has entries matter:
  * the nonzero eigenvalues of A⁻¹C are those of the |D|×|D| block (A⁻¹C)[D, D], so the eigenvalue
  * routine (ml-matrix's EigenvalueDecomposition: Hessenberg reduction and shifted QR, after JAMA) runs
@@ -12,6 +12,7 @@
  */
 import { EigenvalueDecomposition, LuDecomposition, Matrix } from 'ml-matrix';
 import type { QuiescentError } from '../errors/quiescent-error.js';
+import { createRealSolver } from '../linalg/index.js';
 import type { Pencil } from './pencil.js';
 
 /** A root s = re + j·im, in rad/s. */
@@ -54,36 +55,43 @@ function dynamicColumns(pencil: Pencil): number[] {
   return out;
 }
 
-/** The roots seen through shift σ, or null when G + σC is singular there. */
+/**
+ * The roots seen through shift σ, or null when G + σC is singular there. The columns of
+ * (G + σC)⁻¹C that matter are solved on the sparse LU, each solve's residual checked.
+ */
 function rootsAtShift(pencil: Pencil, columns: readonly number[], sigma: number): RootValue[] | null {
   const { n, Ap, Ai, G, C } = pencil;
-  const A = new Matrix(n, n);
-  const B = new Matrix(n, columns.length);
-  const position = new Int32Array(n).fill(-1);
-  columns.forEach((j, t) => {
-    position[j] = t;
-  });
-  let aNorm = 0;
-  for (let j = 0; j < n; j++) {
-    for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
-      const value = G[p]! + sigma * C[p]!;
-      A.set(Ai[p]!, j, value);
-      aNorm = Math.max(aNorm, Math.abs(value));
-      if (position[j]! >= 0) B.set(Ai[p]!, position[j]!, C[p]!);
-    }
-  }
-  const lu = new LuDecomposition(A);
-  if (lu.isSingular()) return null;
-  const X = lu.solve(B);
-  // Refuse a solve whose residual A·X − B is not at the rounding level.
-  const R = A.mmul(X).sub(B);
-  const residual = Math.max(R.max(), -R.min());
-  const scale = Math.max(B.max(), -B.min()) + aNorm * Math.max(X.max(), -X.min());
-  if (!(residual <= RESIDUAL_LIMIT * scale)) return null;
+  const A = new Float64Array(G.length);
+  for (let p = 0; p < A.length; p++) A[p] = G[p]! + sigma * C[p]!;
+  const solver = createRealSolver({ n, Ap, Ai });
+  if (solver.factor(A) !== 0) return null;
   const K = new Matrix(columns.length, columns.length);
-  columns.forEach((row, r) => {
-    for (let t = 0; t < columns.length; t++) K.set(r, t, X.get(row, t));
-  });
+  const x = new Float64Array(n);
+  const r = new Float64Array(n);
+  for (let t = 0; t < columns.length; t++) {
+    const j = columns[t]!;
+    x.fill(0);
+    for (let p = Ap[j]!; p < Ap[j + 1]!; p++) x[Ai[p]!] = C[p]!;
+    r.set(x);
+    solver.solve(x);
+    // Refuse a solve whose residual b − A·x is not at the rounding level.
+    let aNorm = 0;
+    let xNorm = 0;
+    let bNorm = 0;
+    for (let i = 0; i < n; i++) bNorm = Math.max(bNorm, Math.abs(r[i]!));
+    for (let col = 0; col < n; col++) {
+      const v = x[col]!;
+      xNorm = Math.max(xNorm, Math.abs(v));
+      for (let p = Ap[col]!; p < Ap[col + 1]!; p++) {
+        aNorm = Math.max(aNorm, Math.abs(A[p]!));
+        r[Ai[p]!]! -= A[p]! * v;
+      }
+    }
+    let rNorm = 0;
+    for (let i = 0; i < n; i++) rNorm = Math.max(rNorm, Math.abs(r[i]!));
+    if (!(rNorm <= RESIDUAL_LIMIT * (bNorm + aNorm * xNorm))) return null;
+    for (let row = 0; row < columns.length; row++) K.set(row, t, x[columns[row]!]!);
+  }
   const eigen = new EigenvalueDecomposition(K, { assumeSymmetric: false });
   const mr = eigen.realEigenvalues;
   const mi = eigen.imaginaryEigenvalues;
