@@ -30,7 +30,12 @@ export interface LoopGainJson {
   /** In Hz, ascending. */
   readonly frequencies: readonly number[];
   /** Real and imaginary parts of T at each frequency. */
-  readonly gain: { readonly re: readonly number[]; readonly im: readonly number[] };
+  readonly gain: {
+    /** Real parts, one per frequency. */
+    readonly re: readonly number[];
+    /** Imaginary parts, one per frequency. */
+    readonly im: readonly number[];
+  };
   /** 20·log10|T| at each frequency, in dB. */
   readonly magnitudeDb: readonly (number | null)[];
   /** arg T unwrapped along the sweep, in degrees. */
