@@ -217,7 +217,8 @@ export function loopGain(op: OperatingPoint, options: LoopGainOptions): LoopGain
     currentRe.fill(0);
     currentIm.fill(0);
     currentRe[fromNode] = 1;
-    currentRe[size - 1] = 0;
+    currentRe[size - 1] = 0; // a grounded `from` injects into the ground index: nothing
+
     workspace.solve(currentRe, currentIm);
     // 1/(1 + T) = v(to) + i_p.
     const sumRe = voltageRe[toNode]! + currentRe[branch]!;
