@@ -27,6 +27,8 @@ const INFINITE_ROOT = 1e-13;
 const AGREEMENT = 1e-5;
 /** Roots within this fraction of the root scale from the origin are at the origin. */
 const ORIGIN = 1e-11;
+/** An imaginary part below this fraction of |s| is rounding: the root is real. */
+const REAL_AXIS = 1e-7;
 /** Relative residual above which a dense solve is refused. */
 const RESIDUAL_LIMIT = 1e-9;
 
@@ -130,10 +132,14 @@ export function denseRoots(pencil: Pencil, singular: () => QuiescentError): Root
     if (found.length === 2) break;
   }
   if (found.length < 2) throw singular();
-  // A root within rounding of the origin is the origin (a high-pass's zero, an integrator's pole).
-  return agreeing(found[0]!, found[1]!, ORIGIN * scale).map((r) =>
-    Math.hypot(r.re, r.im) <= ORIGIN * scale ? { re: 0, im: 0 } : r,
-  );
+  // A root within rounding of the origin is the origin (a high-pass's zero, an integrator's pole); a
+  // pair whose imaginary parts are rounding is a double real root (a critically damped section), which
+  // rounding splits by about the square root of the unit roundoff.
+  return agreeing(found[0]!, found[1]!, ORIGIN * scale).map((r) => {
+    const size = Math.hypot(r.re, r.im);
+    if (size <= ORIGIN * scale) return { re: 0, im: 0 };
+    return Math.abs(r.im) <= REAL_AXIS * size ? { re: r.re, im: 0 } : r;
+  });
 }
 
 /** The roots of `first` that `second` also has (each matched once). */

@@ -249,3 +249,17 @@ describe('poles and zeros refuse', () => {
     expect(p).toHaveLength(2);
   });
 });
+
+describe('poles of a critically damped RLC', () => {
+  it('are a double real pole at −R/(2L), not a pair split by rounding', () => {
+    // Source: Q = √(L/C)/R = 1/2 makes s² + (R/L)s + 1/(LC) a perfect square (common practice).
+    const [l, c] = [1e-3, 1e-6];
+    const r = 2 * Math.sqrt(l / c);
+    const p = poles(operatingPoint(seriesRlc(r, l, c)));
+    expect(p).toHaveLength(2);
+    for (const pole of p) {
+      expect(pole.imaginary).toBe(0);
+      expectRelativelyClose(pole.real * TWO_PI, -r / (2 * l), 1e-7, 'double pole');
+    }
+  });
+});
