@@ -3,7 +3,8 @@
  * densely: shift and invert on the sparse complex LU. With s₀ = j·ω₀, the operator
  * y ↦ (G + s₀C)⁻¹C·y has the pencil's eigenvectors, with eigenvalue θ = 1/(s₀ − s), largest for the
  * roots nearest s₀. Arnoldi's method with full reorthogonalization (Y. Saad, "Numerical Methods for
- * Large Eigenvalue Problems", 2nd ed., 2011, §3.3 and §4.1) runs on its real form (a complex vector
+ * Large Eigenvalue Problems", 2nd ed., SIAM, 2011, the chapters on Krylov methods and on shift and
+ * invert) runs on its real form (a complex vector
  * as [Re y; Im y]), whose Hessenberg matrix a real eigenvalue routine can take (ml-matrix's
  * EigenvalueDecomposition); the embedding has θ and θ̄, and the Rayleigh quotient tells which is the
  * pencil's. Each Ritz vector is then refined by Rayleigh-quotient iteration on the pencil itself, and
