@@ -32,7 +32,7 @@ const network = fc.integer({ min: 2, max: 12 }).chain((count) =>
 describe('poles of random RC networks (property)', () => {
   it('are real, negative, one per grounded capacitor, sorted by frequency', () => {
     // Source: the natural frequencies of an RC network are real and non-positive (G and C symmetric,
-    // C positive definite here): E. A. Guillemin, "Synthesis of Passive Networks", 1957, ch. 2
+    // C positive definite here): E. A. Guillemin, "Synthesis of Passive Networks", 1957
     // (from memory).
     fc.assert(
       fc.property(network, ({ count, tree, extra, resistances, capacitances }) => {

@@ -48,7 +48,7 @@ function seriesRlc(r: number, l: number, c: number): Circuit {
 describe('poles of a series RLC', () => {
   it('are a pair at ω0 = 1/√(LC) with Q = √(L/C)/R', () => {
     // Source: the series resonant circuit, s² + (R/L)s + 1/(LC) = 0 (e.g. P. Horowitz and W. Hill,
-    // "The Art of Electronics", 3rd ed., 2015, §1.7.14).
+    // "The Art of Electronics", 3rd ed., 2015, ch. 1; from memory).
     const [r, l, c] = [10, 1e-3, 1e-6];
     const p = poles(operatingPoint(seriesRlc(r, l, c)));
     expect(p).toHaveLength(2);
@@ -161,7 +161,7 @@ describe('zeros', () => {
   it('of a twin-T notch are ±j/(RC), and a third zero that a pole cancels', () => {
     // Source: the unloaded twin-T, H(s) = (s² + ω0²)/(s² + 4ω0·s + ω0²) with ω0 = 1/(RC) after a
     // common factor (s + ω0) cancels (e.g. A. B. Williams and F. J. Taylor, "Electronic Filter
-    // Design Handbook", 4th ed., 2006, §6 on notch networks).
+    // Design Handbook", 4th ed., 2006, on notch networks; from memory).
     const [r, c] = [10e3, 10e-9];
     const circuit = new Circuit()
       .voltageSource('signal', 'in', GROUND, { ac: 1 })
