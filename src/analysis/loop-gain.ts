@@ -15,6 +15,9 @@ import { checkFrequencies } from './frequency-grid.js';
 import { checkAscending } from './frequency-response.js';
 import type { OperatingPoint } from './operating-point.js';
 
+/** 1/(1 + T) below this fraction of its two terms is zero to rounding: T is infinite. */
+const INFINITE_GAIN = 1e-12;
+
 /** Options of {@link loopGain}. */
 export interface LoopGainOptions {
   /** The name of the loop probe (added with `Circuit.loopProbe`) where the loop is measured. */
@@ -172,8 +175,8 @@ function interpolateFrequency(frequencies: Float64Array, { k, t }: Bracket): num
  * @param options - `probe` (the loop probe's name) and `frequencies` (Hz, strictly ascending)
  * @returns the {@link LoopGain}, with the crossover frequency and the phase and gain margins
  * @throws QuiescentError `unknown-element` when `probe` is not a loop probe of the circuit;
- *   `invalid-value` for a bad frequency list or a loop whose gain is infinite (1 + T = 0, the loop
- *   oscillates exactly at that frequency); `singular` when the small-signal circuit has no unique
+ *   `invalid-value` for a bad frequency list or a loop whose gain is infinite (an ideal op-amp in the
+ *   loop, or a loop that oscillates at exactly an analysed frequency); `singular` when the small-signal circuit has no unique
  *   solution at some frequency
  *
  * @example
@@ -224,11 +227,14 @@ export function loopGain(op: OperatingPoint, options: LoopGainOptions): LoopGain
     const sumRe = voltageRe[toNode]! + currentRe[branch]!;
     const sumIm = voltageIm[toNode]! + currentIm[branch]!;
     const norm = sumRe * sumRe + sumIm * sumIm;
-    if (!(norm > 0)) {
+    // v(to) + i_p at the rounding level of its two terms: T is infinite.
+    const terms =
+      Math.hypot(voltageRe[toNode]!, voltageIm[toNode]!) + Math.hypot(currentRe[branch]!, currentIm[branch]!);
+    if (!(Math.sqrt(norm) > INFINITE_GAIN * terms)) {
       throw invalidValue(
         ['frequencies', k],
         frequencies[k],
-        `a frequency where the loop at '${probe}' has a finite gain (1 + T = 0 there: the loop oscillates)`,
+        `a frequency where the loop at '${probe}' has a finite gain: 1/(1 + T) is 0 there (an ideal amplifier in the loop, or a loop that oscillates at exactly that frequency)`,
       );
     }
     gain[k] = new Complex(sumRe / norm - 1, -sumIm / norm);

@@ -196,3 +196,19 @@ describe('loopGain refuses', () => {
     );
   });
 });
+
+describe('loopGain around an ideal op-amp', () => {
+  it('refuses: its loop gain is infinite, and says why', () => {
+    // An ideal op-amp holds its inputs equal whatever its output: 1/(1 + T) = 0.
+    const circuit = new Circuit()
+      .voltageSource('signal', 'in', GROUND, { ac: 1 })
+      .opAmp('U1', { plus: 'in', minus: 'fb', output: 'out' })
+      .loopProbe('loopBreak', 'out', 'fb')
+      .resistor('load', 'out', GROUND, 1e3);
+    expectQuiescentError(
+      () => loopGain(operatingPoint(circuit), { probe: 'loopBreak', frequencies: [1, 10] }),
+      'invalid-value',
+      'an ideal amplifier in the loop',
+    );
+  });
+});
