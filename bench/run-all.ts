@@ -15,6 +15,7 @@ const BENCHMARKS: readonly (readonly string[])[] = [
   ['small-circuit.ts'],
   ['noise.ts'],
   ['linearity.ts'],
+  ['stability.ts'],
 ];
 
 const here = dirname(fileURLToPath(import.meta.url));

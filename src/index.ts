@@ -48,6 +48,15 @@ export {
   linearity,
   type OutputLinearity,
 } from './analysis/linearity.js';
+export { LoopGain, type LoopGainJson, type LoopGainOptions, loopGain } from './analysis/loop-gain.js';
+export {
+  DENSE_LIMIT,
+  type PolesOptions,
+  poles,
+  type Root,
+  type ZerosOptions,
+  zeros,
+} from './analysis/natural-frequencies.js';
 export { Noise, type NoiseContribution, type NoiseOptions, noise } from './analysis/noise.js';
 export { OperatingPoint } from './analysis/operating-point.js';
 export { DEFAULT_TEMPERATURE, type OperatingPointOptions } from './analysis/options.js';
@@ -93,6 +102,17 @@ export {
   sensitivity,
 } from './analysis/sensitivity.js';
 export {
+  isRightHalfPlane,
+  PHASE_MARGIN_TARGET,
+  type RootJson,
+  rootToJson,
+  StabilityReport,
+  type StabilityReportJson,
+  type StabilityReportOptions,
+  type StabilityVerdict,
+  stabilityReport,
+} from './analysis/stability.js';
+export {
   type BjtTerminals,
   Circuit,
   type MosfetTerminals,
@@ -113,6 +133,7 @@ export {
   type GivenParameters,
   GROUND,
   type InductorRecord,
+  type LoopProbeRecord,
   type MosfetRecord,
   type OpAmpRecord,
   type ResistorRecord,
@@ -192,6 +213,7 @@ export {
   linearityTables,
   linearityVerdict,
 } from './report/linearity-table.js';
+export { loopGainPlotSvg } from './report/loop-gain-plot.js';
 export {
   type NoiseContributionJson,
   type NoiseFigureJson,
@@ -201,6 +223,7 @@ export {
 } from './report/noise-json.js';
 export { type NoisePlotOptions, noisePlotSvg } from './report/noise-plot.js';
 export { formatNoise, type NoiseReportOptions, noiseTables } from './report/noise-table.js';
+export { formatStabilityReport, rootsTable, stabilityTables } from './report/stability-table.js';
 export {
   type FormatOptions,
   formatValue,

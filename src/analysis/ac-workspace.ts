@@ -29,6 +29,7 @@ const FREQUENCY_AFFINE_KINDS: ReadonlySet<ElementKind> = new Set<ElementKind>([
   'vccs',
   'ccvs',
   'cccs',
+  'loop-probe',
   'diode',
   'bjt',
   'mosfet',

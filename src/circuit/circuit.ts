@@ -218,7 +218,7 @@ export class Circuit {
 
   /**
    * Add a current-controlled voltage source: v(outPlus) − v(outMinus) = r·i(control), where the
-   * controlling element is a voltage source, inductor, vcvs or ccvs (checked when an analysis starts).
+   * controlling element is a voltage source, inductor, vcvs, ccvs or loop probe (checked when an analysis starts).
    */
   ccvs(name: string, out: readonly [string, string], control: string, transresistance: Value): this {
     const path = this.#start(name);
@@ -244,6 +244,22 @@ export class Circuit {
       outTo,
       control: elementName(control, [...path, 'control']),
       gain: finite(gain, undefined, [...path, 'gain']),
+    });
+  }
+
+  /**
+   * Add a loop probe: a 0 V element in series with a feedback loop (a short at DC and in AC, with no
+   * excitation of its own), where `loopGain` measures the loop gain. `from` faces the side that
+   * drives the loop (an amplifier's output), `to` the side it feeds; its current flows from `from`
+   * to `to`, and it can sense the current of a ccvs or cccs.
+   */
+  loopProbe(name: string, from: string, to: string): this {
+    const path = this.#start(name);
+    return this.#add({
+      kind: 'loop-probe',
+      name,
+      from: node(from, [...path, 'from']),
+      to: node(to, [...path, 'to']),
     });
   }
 

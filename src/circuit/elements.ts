@@ -137,7 +137,7 @@ export interface CcvsRecord {
   readonly outPlus: string;
   /** The negative output node. */
   readonly outMinus: string;
-  /** The element whose current controls the source (a voltage source, inductor, vcvs or ccvs). */
+  /** The element whose current controls the source (a voltage source, inductor, vcvs, ccvs or loop probe). */
   readonly control: string;
   /** Transresistance in Ω: v(out) = transresistance · i(control). */
   readonly transresistance: number;
@@ -152,10 +152,21 @@ export interface CccsRecord {
   readonly outFrom: string;
   /** The output node the current is delivered into. */
   readonly outTo: string;
-  /** The element whose current controls the source (a voltage source, inductor, vcvs or ccvs). */
+  /** The element whose current controls the source (a voltage source, inductor, vcvs, ccvs or loop probe). */
   readonly control: string;
   /** Current gain: the output current is gain · i(control). */
   readonly gain: number;
+}
+/** A loop probe: a 0 V element in series with a feedback loop, where the loop gain is measured. */
+export interface LoopProbeRecord {
+  /** Always `'loop-probe'`; narrows an {@link ElementRecord}. */
+  readonly kind: 'loop-probe';
+  /** The element name, unique within the circuit. */
+  readonly name: string;
+  /** The node on the side that drives the loop (an amplifier's output); the current flows from here. */
+  readonly from: string;
+  /** The node on the side the loop feeds; the current flows into it. */
+  readonly to: string;
 }
 /** An op-amp; `options` is undefined for an ideal one. */
 export interface OpAmpRecord {
@@ -233,6 +244,7 @@ export type ElementRecord =
   | VccsRecord
   | CcvsRecord
   | CccsRecord
+  | LoopProbeRecord
   | OpAmpRecord
   | DiodeRecord
   | BjtRecord
@@ -285,6 +297,11 @@ export function terminalsOf(e: ElementRecord): readonly (readonly [role: string,
         ['outFrom', e.outFrom],
         ['outTo', e.outTo],
       ];
+    case 'loop-probe':
+      return [
+        ['from', e.from],
+        ['to', e.to],
+      ];
     case 'op-amp':
       return [
         ['plus', e.plus],
@@ -314,5 +331,11 @@ export function terminalsOf(e: ElementRecord): readonly (readonly [role: string,
 
 /** Whether an element's current is an unknown of the equations (so it can control a ccvs or cccs). */
 export function hasCurrentUnknown(e: ElementRecord): boolean {
-  return e.kind === 'voltage-source' || e.kind === 'inductor' || e.kind === 'vcvs' || e.kind === 'ccvs';
+  return (
+    e.kind === 'voltage-source' ||
+    e.kind === 'inductor' ||
+    e.kind === 'vcvs' ||
+    e.kind === 'ccvs' ||
+    e.kind === 'loop-probe'
+  );
 }

@@ -68,6 +68,7 @@ const FIELDS: Readonly<Record<ElementKind, Readonly<Record<string, FieldType>>>>
   },
   ccvs: { outPlus: 'string', outMinus: 'string', control: 'string', transresistance: 'number' },
   cccs: { outFrom: 'string', outTo: 'string', control: 'string', gain: 'number' },
+  'loop-probe': { from: 'string', to: 'string' },
   'op-amp': { plus: 'string', minus: 'string', output: 'string', 'options?': 'object' },
   diode: { anode: 'string', cathode: 'string', 'model?': 'object' },
   bjt: { collector: 'string', base: 'string', emitter: 'string', polarity: 'polarity', 'model?': 'object' },
@@ -222,6 +223,9 @@ function replay(c: Circuit, kind: ElementKind, r: Record<string, unknown>): void
       return;
     case 'cccs':
       c.cccs(name, [s('outFrom'), s('outTo')], s('control'), n('gain'));
+      return;
+    case 'loop-probe':
+      c.loopProbe(name, s('from'), s('to'));
       return;
     case 'op-amp':
       if (r.options === undefined) c.opAmp(name, { plus: s('plus'), minus: s('minus'), output: s('output') });

@@ -43,6 +43,8 @@ function dcConnections(e: ElementRecord): readonly (readonly [string, string])[]
       return [[e.a, e.b]];
     case 'voltage-source':
       return [[e.plus, e.minus]];
+    case 'loop-probe':
+      return [[e.from, e.to]];
     case 'vcvs':
     case 'ccvs':
       return [[e.outPlus, e.outMinus]];
@@ -77,6 +79,8 @@ function voltageBranch(e: ElementRecord): readonly [string, string] | undefined 
       return [e.plus, e.minus];
     case 'inductor':
       return [e.a, e.b];
+    case 'loop-probe':
+      return [e.from, e.to];
     case 'vcvs':
     case 'ccvs':
       return [e.outPlus, e.outMinus];
@@ -102,7 +106,7 @@ export function checkTopology(elements: readonly ElementRecord[]): void {
       if (!hasCurrentUnknown(control)) {
         throw unknownElement(
           e.control,
-          `cannot control '${e.name}': only a voltage source, inductor, vcvs or ccvs has a current unknown`,
+          `cannot control '${e.name}': only a voltage source, inductor, vcvs, ccvs or loop probe has a current unknown`,
           [e.name, 'control'],
         );
       }

@@ -162,6 +162,12 @@ export interface Device {
   load(ctx: DcLoadContext): void;
   /** Add the small-signal admittances at the operating point ctx.x, and AC excitations. */
   loadAc(ctx: AcLoadContext): void;
+  /**
+   * For a device whose `loadAc` is not of the form G + jωC (G, C independent of ω): add its
+   * small-signal equations as G + s·C instead, its rows multiplied by a polynomial in s where that
+   * clears a denominator (an op-amp's pole). The natural frequencies are found from these matrices.
+   */
+  loadPencil?(G: Float64Array, C: Float64Array, x: Float64Array): void;
   /** The DC current of a two-terminal element or controlled-source output, by the sign conventions. */
   current?(x: Float64Array): number;
   /** The AC current phasor at ω from solution (xr, xi), written to out[0] (real) and out[1] (imaginary). */

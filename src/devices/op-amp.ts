@@ -153,11 +153,24 @@ export class OpAmp implements Device {
     this.loadInputErrors(ctx.b, ctx.sourceScale, y[1]!);
     ctx.b[this.k]! += y[0]! - y[1]! * u;
   }
+  /** The limiter's slope L' at x: how much of the linear gain the small signal sees (1 without limits). */
+  private slopeAt(x: Float64Array): number {
+    if (!this.nonlinear) return 1;
+    return limitOutput(this.linearOutput(x), this.outputLow, this.outputHigh, this.knee, this.limited)[1]!;
+  }
   loadAc(ctx: AcLoadContext): void {
-    const slope = this.nonlinear
-      ? limitOutput(this.linearOutput(ctx.x), this.outputLow, this.outputHigh, this.knee, this.limited)[1]!
-      : 1;
-    this.stamp(ctx.Ar, ctx.Ai, ctx.omega, slope);
+    this.stamp(ctx.Ar, ctx.Ai, ctx.omega, this.slopeAt(ctx.x));
+  }
+  /**
+   * The branch row times (1 + s/ω_p): (v(out) + R_out·i)·(1 + s/ω_p) = L'·A0·(v(plus) − v(minus)), so
+   * that the op-amp's pole is a natural frequency of the circuit (L' the limiter's slope at x).
+   */
+  loadPencil(G: Float64Array, C: Float64Array, x: Float64Array): void {
+    this.stamp(G, undefined, 0, this.slopeAt(x));
+    if (this.ideal || !Number.isFinite(this.poleOmega)) return;
+    const s = this.s;
+    C[s[3]!]! += 1 / this.poleOmega;
+    C[s[4]!]! += this.outputResistance / this.poleOmega;
   }
   current(x: Float64Array): number {
     return x[this.k]!;
@@ -192,9 +205,7 @@ export class OpAmp implements Device {
     const { voltage, current, voltageCorner, currentCorner } = this.noise;
     const out: NoiseGenerator[] = [];
     // A limited output passes the input's noise on through the limiter's slope at the bias.
-    const slope = this.nonlinear
-      ? limitOutput(this.linearOutput(x), this.outputLow, this.outputHigh, this.knee, this.limited)[1]!
-      : 1;
+    const slope = this.slopeAt(x);
     if (voltage > 0) {
       const white = voltage * voltage;
       out.push({

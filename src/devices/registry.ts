@@ -7,6 +7,7 @@ import { CurrentSource } from './current-source.js';
 import type { Device } from './device.js';
 import { Diode } from './diode.js';
 import { Inductor } from './inductor.js';
+import { LoopProbe } from './loop-probe.js';
 import { Mosfet } from './mosfet.js';
 import { OpAmp } from './op-amp.js';
 import { Resistor } from './resistor.js';
@@ -33,6 +34,8 @@ export function createDevice(record: ElementRecord): Device {
       return new Ccvs(record);
     case 'cccs':
       return new Cccs(record);
+    case 'loop-probe':
+      return new LoopProbe(record);
     case 'op-amp':
       return new OpAmp(record);
     case 'diode':

@@ -21,6 +21,7 @@ export function currentDirection(record: ElementRecord): string | undefined {
     case 'voltage-source':
       return `${record.plus} → ${record.minus}`;
     case 'current-source':
+    case 'loop-probe':
       return `${record.from} → ${record.to}`;
     case 'vcvs':
     case 'ccvs':
