@@ -23,14 +23,7 @@ import { acAnalysis } from './ac-analysis.js';
 import { checkDriveScale, type DistortionPoint, distortion } from './distortion.js';
 import { describeProbe } from './distortion-probe.js';
 import { holdReactive } from './held-reactive.js';
-import {
-  conditionsAt,
-  nodeAt,
-  type OperatingPoint,
-  type Solver,
-  solveFromCurrent,
-  startFromGuess,
-} from './operating-point.js';
+import { conditionsAt, nodeAt, type Solver, solveFromCurrent, startFromGuess } from './operating-point.js';
 import { type OperatingPointOptions, resolveOptions } from './options.js';
 import { operatingPoint, solverFor } from './prepared.js';
 import { settleHeld } from './settle-reactive.js';
