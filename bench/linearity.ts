@@ -14,8 +14,6 @@
 import { performance } from 'node:perf_hooks';
 import {
   acAnalysis,
-  Circuit,
-  GROUND,
   intermodulation,
   linearity,
   logSweep,
@@ -23,44 +21,9 @@ import {
   quasiStaticHarmonics,
   renderTable,
 } from '../src/index.js';
+import { median, stageChain } from './stage-chain.js';
 
 const quick = process.argv.includes('--quick');
-
-/**
- * `count` capacitor-coupled common-emitter stages, each of gain near −1 (collector and unbypassed
- * emitter resistors equal), 10 mV at the input.
- */
-function stages(count: number): Circuit {
-  const model = {
-    polarity: 'npn',
-    forwardBeta: 150,
-    earlyVoltage: 90,
-    baseEmitterCapacitance: 8e-12,
-    baseCollectorCapacitance: 3e-12,
-  } as const;
-  const c = new Circuit()
-    .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
-    .voltageSource('signal', 'in', GROUND, { ac: 0.01 })
-    .resistor('Rsource', 'in', 'src', 600);
-  for (let k = 0; k < count; k++) {
-    const from = k === 0 ? 'src' : `c${k - 1}`;
-    c.capacitor(`Ccouple${k}`, from, `b${k}`, 100e-6)
-      .resistor(`Rtop${k}`, 'vcc', `b${k}`, 68e3)
-      .resistor(`Rbottom${k}`, `b${k}`, GROUND, 12e3)
-      .resistor(`Rcollector${k}`, 'vcc', `c${k}`, 2.7e3)
-      .resistor(`Rdegeneration${k}`, `e${k}`, `t${k}`, 2.7e3)
-      .resistor(`Rbias${k}`, `t${k}`, GROUND, 700)
-      .capacitor(`Cbypass${k}`, `t${k}`, GROUND, 100e-6)
-      .bjt(`Q${k}`, { collector: `c${k}`, base: `b${k}`, emitter: `e${k}` }, model);
-  }
-  return c;
-}
-
-function median(samples: number[]): number {
-  const sorted = samples.slice().sort((a, b) => a - b);
-  const m = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? sorted[m]! : (sorted[m - 1]! + sorted[m]!) / 2;
-}
 
 /** Median time of `run` over `repeat` runs after one warm-up, in ms. */
 function time(run: () => unknown, repeat: number): number {
@@ -109,7 +72,7 @@ interface Row {
 const rows: Row[] = [];
 const repeat = quick ? 3 : 11;
 for (const count of quick ? [3] : [3, 30, 300]) {
-  const circuit = stages(count);
+  const circuit = stageChain(count, { amplitude: 0.01, emitter: 'split' });
   const op = operatingPoint(circuit);
   // The chain loses a little per stage; the output is read where the signal is still well above rounding.
   const output = `c${Math.min(count, 30) - 1}`;
@@ -142,7 +105,7 @@ for (const count of quick ? [3] : [3, 30, 300]) {
     goal: '≤ 6',
   });
 }
-const checkCircuit = stages(3);
+const checkCircuit = stageChain(3, { amplitude: 0.01, emitter: 'split' });
 const base = time(() => quasiStaticHarmonics(checkCircuit, { output: 'c2', phases: 64 }), quick ? 1 : 3) / 64;
 for (const phases of quick ? [256] : [256, 1024]) {
   const perPhase =

@@ -14,36 +14,10 @@ import { performance } from 'node:perf_hooks';
 import { acAnalysis } from '../src/analysis/ac-analysis.js';
 import { logSweep } from '../src/analysis/frequency-grid.js';
 import { noise } from '../src/analysis/noise.js';
-import { Circuit, GROUND, operatingPoint, renderTable } from '../src/index.js';
+import { operatingPoint, renderTable } from '../src/index.js';
+import { stageChain } from './stage-chain.js';
 
 const FREQUENCY_COUNT = 1000;
-
-/** `count` capacitor-coupled common-emitter stages (gain near −1) on one 12 V supply. */
-function stageChain(count: number): Circuit {
-  const model = {
-    polarity: 'npn',
-    forwardBeta: 150,
-    earlyVoltage: 90,
-    baseEmitterCapacitance: 8e-12,
-    baseCollectorCapacitance: 3e-12,
-    forwardTransitTime: 4e-10,
-    flickerCoefficient: 1e-15,
-  } as const;
-  const c = new Circuit()
-    .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
-    .voltageSource('signal', 'in', GROUND, { ac: 1e-3 })
-    .resistor('source', 'in', 'src', 600);
-  for (let k = 0; k < count; k++) {
-    const from = k === 0 ? 'src' : `c${k - 1}`;
-    c.capacitor(`Cc${k}`, from, `b${k}`, 100e-6)
-      .resistor(`RB1_${k}`, 'vcc', `b${k}`, 68e3)
-      .resistor(`RB2_${k}`, `b${k}`, GROUND, 12e3)
-      .resistor(`RC${k}`, 'vcc', `c${k}`, 2.7e3)
-      .resistor(`RE${k}`, `e${k}`, GROUND, 2.2e3)
-      .bjt(`Q${k}`, { collector: `c${k}`, base: `b${k}`, emitter: `e${k}` }, model);
-  }
-  return c;
-}
 
 function timeMs(run: () => void): number {
   const t0 = performance.now();
@@ -53,7 +27,7 @@ function timeMs(run: () => void): number {
 
 const argument = process.argv.indexOf('--stages');
 const stages = argument > 0 ? Number(process.argv[argument + 1]) : 1667;
-const circuit = stageChain(stages);
+const circuit = stageChain(stages, { flickerCoefficient: 1e-15 });
 const op = operatingPoint(circuit);
 const frequencies = logSweep(10, 1e6, (FREQUENCY_COUNT - 1) / 5);
 const output = `c${stages - 1}`;
