@@ -129,6 +129,7 @@ export {
   type PlotSeries,
   probeLabel,
   type ReportOptions,
+  ratioLabel,
   renderTable,
   svgPlot,
   type TableColumn,

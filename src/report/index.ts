@@ -1,4 +1,5 @@
-export { type AcReportOptions, acTable, formatAcAnalysis, probeLabel } from './ac-table.js';
+export { probeLabel, ratioLabel } from '../analysis/probe-label.js';
+export { type AcReportOptions, acTable, formatAcAnalysis } from './ac-table.js';
 export { type DcSweepReportOptions, dcSweepTable, formatDcSweep } from './dc-sweep-table.js';
 export { currentDirection } from './element-currents.js';
 export { type DeviceJson, type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';

@@ -4,6 +4,7 @@
  */
 import type { AcAnalysis, Probe } from '../analysis/ac-analysis.js';
 import type { JunctionLinearity, LinearityReport } from '../analysis/linearity.js';
+import { ratioLabel } from '../analysis/probe-label.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { formatValue } from '../values/format.js';
 import { type CheckResult, compare } from './check.js';
@@ -27,12 +28,6 @@ export interface JunctionBudgetOptions {
   readonly budget?: number;
 }
 
-function label(probe: Probe): string {
-  if (typeof probe === 'string') return `v(${probe})`;
-  if ('element' in probe) return `i(${probe.element})`;
-  return probe.reference === undefined ? `v(${probe.node})` : `v(${probe.node}, ${probe.reference})`;
-}
-
 /** The index of `frequency` among the analysed frequencies (equal to 1 part in 10⁹). */
 function frequencyIndex(ac: AcAnalysis, frequency: number): number {
   for (let k = 0; k < ac.frequencies.length; k++) {
@@ -45,8 +40,7 @@ function frequencyIndex(ac: AcAnalysis, frequency: number): number {
 }
 
 function subjectOf(what: string, at: ResponsePoint): string {
-  const ratio = at.input === undefined ? label(at.output) : `${label(at.output)}/${label(at.input)}`;
-  return `${what} ${ratio} at ${formatValue(at.frequency, 'Hz')}`;
+  return `${what} ${ratioLabel(at.output, at.input)} at ${formatValue(at.frequency, 'Hz')}`;
 }
 
 /**

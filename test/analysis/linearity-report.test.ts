@@ -45,7 +45,7 @@ describe('formatLinearity', () => {
       expect(text).toContain(`${Number((100 * j.secondHarmonic).toPrecision(4))} %`);
       expect(text).toContain(`${Number((100 * j.thirdHarmonic).toPrecision(4))} %`);
     }
-    expect(text).toContain('v(b)');
+    expect(text).toContain('Distortion of b ');
     expect(text).toContain('quasi-static check');
     expect(text).toContain(`${Number((100 * check.secondRatio).toPrecision(4))} %`);
   });

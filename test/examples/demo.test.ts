@@ -12,7 +12,7 @@ describe('the demo', () => {
   it('prints the operating point, the AC table and the linearity report', () => {
     const text = lines.join('\n');
     expect(text).toContain('Node voltages (to ground)');
-    expect(text).toContain('Small-signal gain relative to v(electrode)');
+    expect(text).toContain('Small-signal gain relative to electrode');
     expect(text).toContain('Junction linearity');
   });
 
