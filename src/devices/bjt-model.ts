@@ -36,7 +36,7 @@ export interface BjtModel {
   bandgap?: Value;
   /** The temperature exponent p of Is (default 3). */
   saturationCurrentTemperatureExponent?: Value;
-  /** The temperature, in K, at which `saturationCurrent` is given (default 300.15). */
+  /** The temperature, in K, at which `saturationCurrent` is given (default 298.15, 25 °C). */
   referenceTemperature?: Value;
 }
 
@@ -57,5 +57,5 @@ export const BJT_PARAMETERS: ParameterTable<Exclude<keyof BjtModel, 'polarity'>>
   baseCollectorGrading: { defaultValue: 0.33, range: 'grading' },
   bandgap: { unit: 'eV', defaultValue: 1.12, range: 'positive' },
   saturationCurrentTemperatureExponent: { defaultValue: 3, range: 'any' },
-  referenceTemperature: { unit: 'K', defaultValue: 300.15, range: 'positive' },
+  referenceTemperature: { unit: 'K', defaultValue: 298.15, range: 'positive' },
 };

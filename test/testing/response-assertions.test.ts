@@ -95,7 +95,7 @@ describe('assertJunctionWithinBudget', () => {
   it('fails with the junction, the budget, the bound, the frequency, the amplitude and x', () => {
     const error = failure(() => assertJunctionWithinBudget(diodeStage(4), 'D1'));
     expect(error.message).toMatch(
-      /^linearity of D1 \(pn\): expected error bound ≤ 0\.1, actual 0\.297\d* at 1 kHz \(amplitude 10\.3\d* mV, x = 0\.399\d*\)$/,
+      /^linearity of D1 \(pn\): expected error bound ≤ 0\.1, actual 0\.297\d* at 1 kHz \(amplitude 10\.2\d* mV, x = 0\.399\d*\)$/,
     );
   });
 
