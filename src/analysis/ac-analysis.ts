@@ -4,7 +4,7 @@
  * independent sources. One symbolic analysis serves the whole sweep; each frequency costs one complex
  * numeric refactorization and one solve, whose residual is checked.
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { type AcAnalysisJson, acAnalysisToJson } from '../report/result-json.js';

@@ -11,7 +11,7 @@
  * y(t) ≈ Y₀/2 + Σ_h Re(Y_h·e^{jhθ}); harmonics above N/2 alias, so N ≥ 8 is asked for, and many more
  * (64 by default) keep the aliasing of a smooth periodic output far below the 3rd harmonic.
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import type { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
