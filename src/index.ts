@@ -104,6 +104,7 @@ export {
   type AcReportOptions,
   acAnalysisToJson,
   acTable,
+  type BodeCurve,
   bodePlotSvg,
   cell,
   currentDirection,

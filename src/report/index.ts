@@ -15,6 +15,7 @@ export {
   type PhasorsJson,
 } from './result-json.js';
 export {
+  type BodeCurve,
   bodePlotSvg,
   type PlotAxis,
   type PlotOptions,
