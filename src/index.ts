@@ -143,6 +143,7 @@ export {
   linearityVerdict,
 } from './report/linearity-table.js';
 export {
+  DEFAULT_DIGITS,
   type FormatOptions,
   formatValue,
   parseValue,
