@@ -59,6 +59,13 @@ export type {
   MosfetReport,
 } from './analysis/reports.js';
 export {
+  type PassBand,
+  type PassBandOptions,
+  passBand,
+  type ResponsePeak,
+  responsePeak,
+} from './analysis/resonance.js';
+export {
   type BjtTerminals,
   Circuit,
   type MosfetTerminals,

@@ -16,6 +16,13 @@ import { currentReader, type ProbeReader, probeReader, voltageReader } from './d
 import { checkFrequencies } from './frequency-grid.js';
 import { checkAscending, crossings, decibels, unwrappedPhase } from './frequency-response.js';
 import { nodeAt, type OperatingPoint } from './operating-point.js';
+import {
+  type PassBand,
+  type PassBandOptions,
+  passBand,
+  type ResponsePeak,
+  responsePeak,
+} from './resonance.js';
 
 /** Options of {@link acAnalysis}. */
 export interface AcAnalysisOptions {
@@ -171,6 +178,18 @@ export class AcAnalysis {
       throw invalidValue(['referenceDb'], reference, 'a finite level in dB');
     }
     return crossings(this.frequencies, level, reference - drop);
+  }
+
+  /** The highest point of |output| (or |output/input|), refined between sweep points (docs/analyses-ac.md, "Peaks and pass bands"). */
+  peak(output: Probe, input?: Probe): ResponsePeak {
+    checkAscending(this.frequencies);
+    return responsePeak(this.frequencies, this.magnitudeDb(output, input));
+  }
+
+  /** The pass band around the peak: −3 dB edges, centre, bandwidth and Q; `null` unless both edges lie in the sweep. */
+  passBand(output: Probe, input?: Probe, options?: PassBandOptions): PassBand | null {
+    checkAscending(this.frequencies);
+    return passBand(this.frequencies, this.magnitudeDb(output, input), options);
   }
 
   /**
