@@ -66,7 +66,7 @@ describe('assertNodeVoltage', () => {
 });
 
 describe('assertElementCurrent', () => {
-  it('passes and fails by the sign conventions of the contract', () => {
+  it('passes and fails by the sign conventions of docs/circuit-api.md', () => {
     assertElementCurrent(divider, 'Rtop', '2 mA', { relative: 1e-9 });
     // The source delivers power, so its current is −2 mA.
     const error = failure(() => assertElementCurrent(divider, 'Vin', '2 mA', { relative: 0.05 }));
