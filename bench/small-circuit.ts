@@ -13,7 +13,7 @@ import { Circuit, dcSweep, GROUND, operatingPoint, prepareCircuit } from '../src
 const SUPPLY = 5;
 const RESISTORS = [1e3, 2.2e3, 3.3e3, 4.7e3, 10e3];
 const IS = 1e-14;
-const VT = (1.380649e-23 * 300.15) / 1.602176634e-19;
+const VT = (1.380649e-23 * 298.15) / 1.602176634e-19;
 
 function ladder(): Circuit {
   const c = new Circuit().voltageSource('supply', 'n0', GROUND, { dc: SUPPLY });

@@ -23,6 +23,8 @@ import {
   linearSweep,
   logSweep,
   operatingPoint,
+  probeLabel,
+  ratioLabel,
   svgPlot,
 } from '../src/index.js';
 
@@ -117,7 +119,7 @@ export function runDemo(folder: string, print: (text: string) => void = console.
     bodePlotSvg(
       ac.bode('detector', 'electrode'),
       'Leaf-wetness front end: electrode to detector',
-      'v(detector)/v(electrode)',
+      ratioLabel('detector', 'electrode'),
     ),
   );
   const sweepFile = join(folder, 'level-control.svg');
@@ -128,12 +130,12 @@ export function runDemo(folder: string, print: (text: string) => void = console.
       x: { label: 'control current', unit: 'A' },
       panels: [
         {
-          y: { label: 'v(detector)', unit: 'V' },
-          series: [{ label: 'v(detector)', x: currents, y: sweep.voltage('detector') }],
+          y: { label: 'detector bias', unit: 'V' },
+          series: [{ label: probeLabel('detector'), x: currents, y: sweep.voltage('detector') }],
         },
         {
           y: { label: 'gain at 1 kHz', unit: 'dB' },
-          series: [{ label: 'v(detector)/v(electrode)', x: currents, y: gainDb }],
+          series: [{ label: ratioLabel('detector', 'electrode'), x: currents, y: gainDb }],
         },
       ],
     }),

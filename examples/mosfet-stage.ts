@@ -58,7 +58,7 @@ export interface MosfetStageFigures {
     readonly id: number;
     readonly gm: number;
   };
-  /** v(drain)/v(probe) at the carrier frequency, V/V. */
+  /** drain ÷ probe at the carrier frequency, V/V. */
   readonly gain: number;
   /** x = v̂gs/V_ov of the channel at the applied carrier. */
   readonly normalized: number;

@@ -61,7 +61,7 @@ export function knockSensorStage(probe: 'input' | 'output'): Circuit {
 
 /** What the stage does at 10 kHz. */
 export interface StageFigures {
-  /** v(out)/v(sensor), in V/V (negative: inverting). */
+  /** out ÷ sensor, in V/V (negative: inverting). */
   readonly gain: number;
   /** The impedance the sensor sees, in Ω. */
   readonly inputImpedance: number;

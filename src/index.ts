@@ -92,12 +92,22 @@ export type {
   OpAmpReport,
 } from './analysis/reports.js';
 export {
+  type PassBand,
+  type PassBandOptions,
+  passBand,
+  type ResponsePeak,
+  responsePeak,
+} from './analysis/resonance.js';
+export {
   AcSensitivity,
   type AcSensitivityEntry,
+  type AcSensitivityJson,
   type AcSensitivityOptions,
   type DcSensitivityOptions,
+  type DeviceFieldOutput,
   Sensitivity,
   type SensitivityEntry,
+  type SensitivityJson,
   type SensitivityOutput,
   sensitivity,
 } from './analysis/sensitivity.js';
@@ -174,8 +184,11 @@ export {
 export {
   type AcAnalysisJson,
   type AcReportOptions,
+  acAnalysisHtml,
   acAnalysisToJson,
   acTable,
+  type BodeCurve,
+  bodePlot,
   bodePlotSvg,
   cell,
   currentDirection,
@@ -185,14 +198,19 @@ export {
   type DeviceJson,
   dcSweepTable,
   dcSweepToJson,
+  escapeHtml,
   formatAcAnalysis,
   formatDcSweep,
   formatOperatingPoint,
+  htmlTable,
   type JunctionLinearityJson,
   type LinearityReportJson,
   linearityToJson,
+  type MimeBundle,
+  NOTEBOOK_DISPLAY,
   type OperatingPointJson,
   type OutputLinearityJson,
+  operatingPointHtml,
   operatingPointTables,
   operatingPointToJson,
   type PhasorsJson,
@@ -202,6 +220,8 @@ export {
   type PlotSeries,
   probeLabel,
   type ReportOptions,
+  RichOutput,
+  ratioLabel,
   renderTable,
   svgPlot,
   type TableColumn,
@@ -225,6 +245,7 @@ export { type NoisePlotOptions, noisePlotSvg } from './report/noise-plot.js';
 export { formatNoise, type NoiseReportOptions, noiseTables } from './report/noise-table.js';
 export { formatStabilityReport, rootsTable, stabilityTables } from './report/stability-table.js';
 export {
+  DEFAULT_DIGITS,
   type FormatOptions,
   formatValue,
   parseValue,

@@ -4,15 +4,25 @@
  * independent sources. One symbolic analysis serves the whole sweep; each frequency costs one complex
  * numeric refactorization and one solve, whose residual is checked.
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
+import type { AcReportOptions } from '../report/ac-table.js';
+import { acAnalysisHtml, bodePlot } from '../report/result-html.js';
 import { type AcAnalysisJson, acAnalysisToJson } from '../report/result-json.js';
+import { type MimeBundle, NOTEBOOK_DISPLAY, type RichOutput } from '../report/rich-output.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { currentReader, type ProbeReader, probeReader, voltageReader } from './distortion-probe.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { checkAscending, crossings, decibels, unwrappedPhase } from './frequency-response.js';
 import { nodeAt, type OperatingPoint } from './operating-point.js';
+import {
+  type PassBand,
+  type PassBandOptions,
+  passBand,
+  type ResponsePeak,
+  responsePeak,
+} from './resonance.js';
 
 /** Options of {@link acAnalysis}. */
 export interface AcAnalysisOptions {
@@ -170,6 +180,18 @@ export class AcAnalysis {
     return crossings(this.frequencies, level, reference - drop);
   }
 
+  /** The highest point of |output| (or |output/input|), refined between sweep points (docs/analyses-ac.md, "Peaks and pass bands"). */
+  peak(output: Probe, input?: Probe): ResponsePeak {
+    checkAscending(this.frequencies);
+    return responsePeak(this.frequencies, this.magnitudeDb(output, input));
+  }
+
+  /** The pass band around the peak: −3 dB edges, centre, bandwidth and Q; `null` unless both edges lie in the sweep. */
+  passBand(output: Probe, input?: Probe, options?: PassBandOptions): PassBand | null {
+    checkAscending(this.frequencies);
+    return passBand(this.frequencies, this.magnitudeDb(output, input), options);
+  }
+
   /**
    * The first frequency where |output| (or |output/input|) crosses 1 (0 dB), interpolated as
    * {@link AcAnalysis.cutoffFrequencies}; `null` when it never does inside the sweep.
@@ -237,6 +259,21 @@ export class AcAnalysis {
   /** Plain data: the frequencies and the phasors of every node voltage and element current. */
   toJSON(): AcAnalysisJson {
     return acAnalysisToJson(this);
+  }
+
+  /** The response table as HTML (options as `acTable`), shown richly by a notebook (docs/reports.md, "Notebooks"). */
+  toHtml(options?: AcReportOptions): RichOutput {
+    return acAnalysisHtml(this, options);
+  }
+
+  /** The Bode plot of output (or output/input) as SVG, shown richly by a notebook. */
+  bodePlot(output: Probe, input?: Probe, title?: string): RichOutput {
+    return bodePlot(this, output, input, title);
+  }
+
+  /** What a notebook kernel shows for this analysis: its response table. */
+  [NOTEBOOK_DISPLAY](): MimeBundle {
+    return this.toHtml()[NOTEBOOK_DISPLAY]();
   }
 
   #ratio(output: Probe, input?: Probe): Complex[] {

@@ -8,6 +8,7 @@ import { invalidValue, unknownElement } from '../errors/messages.js';
 import type { CompiledSystem } from '../mna/system.js';
 import type { Probe } from './ac-analysis.js';
 import { nodeAt } from './operating-point.js';
+import { probeLabel } from './probe-label.js';
 
 /** Writes the probe's phasor for solution (xr, xi) at angular frequency ω into out[0], out[1]. */
 export type ProbeReader = (xr: Float64Array, xi: Float64Array, omega: number, out: Float64Array) => void;
@@ -91,9 +92,5 @@ export function currentReader(
 
 /** A short text naming a probe, for reports and messages. */
 export function describeProbe(probe: Probe): string {
-  if (typeof probe === 'string') return `v(${probe})`;
-  if ('element' in probe) return `i(${probe.element})`;
-  return probe.reference === undefined || probe.reference === GROUND
-    ? `v(${probe.node})`
-    : `v(${probe.node}, ${probe.reference})`;
+  return probeLabel(probe);
 }

@@ -44,7 +44,7 @@
  * term of each harmonic, growing as s², s³ with the drive scale s), and nonlinear conductances only:
  * the bias dependence of the junction capacitances is not included.
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import type { ElementKind } from '../circuit/elements.js';
 import type { JunctionProbe } from '../devices/device.js';
 import { invalidValue } from '../errors/messages.js';

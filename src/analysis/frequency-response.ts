@@ -2,7 +2,7 @@
  * Reading a frequency response: decibels, unwrapped phase, and level crossings interpolated between
  * sweep points (linear in dB against log frequency, the straight lines of a Bode plot).
  */
-import type Complex from 'complex.js';
+import type { Complex } from 'complex.js';
 import { invalidValue } from '../errors/messages.js';
 
 /** 20·log10|h| for each point, in dB (−Infinity for an exact zero). */

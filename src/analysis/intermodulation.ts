@@ -24,7 +24,7 @@
  * contributions to the larger order-3 product take one solve each, or with many devices one
  * transposed solve for all (output-adjoint.ts).
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { invalidValue, noSignal } from '../errors/messages.js';
 import type { Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';

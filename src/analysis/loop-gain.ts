@@ -7,7 +7,7 @@
  * (ii) a unit current injected from ground into the probe's `from` node gives the probe current i_p;
  * then 1/(1 + T) = v(to) + i_p, exact for loops that pass signal both ways.
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import type { LoopProbe } from '../devices/loop-probe.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { AcWorkspace } from './ac-workspace.js';

@@ -3,7 +3,7 @@ import { invalidValue } from '../errors/messages.js';
 
 /** Options of {@link operatingPoint} (and of the sweeps built on it). */
 export interface OperatingPointOptions {
-  /** Temperature in kelvin (default 300.15). */
+  /** Temperature in kelvin (default 298.15, 25 °C). */
   temperature?: number;
   /**
    * The small conductance across every junction and MOSFET channel, in S (default 1e-12), which keeps
@@ -33,8 +33,8 @@ export interface ResolvedOptions {
   readonly initialGuess: Readonly<Record<string, number>>;
 }
 
-/** Default analysis temperature, 27 °C, in kelvin. */
-export const DEFAULT_TEMPERATURE = 300.15;
+/** Default analysis temperature, 25 °C (where data sheets specify parts), in kelvin. */
+export const DEFAULT_TEMPERATURE = 298.15;
 
 function positiveOption(options: object, key: string, fallback: number): number {
   const v = (options as Record<string, unknown>)[key];

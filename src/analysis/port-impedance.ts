@@ -3,7 +3,7 @@
  * sources shorted, current sources opened), found by driving 1 A into the port: the textbook output
  * impedance of a stage, or the input impedance of a port that no source drives.
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { GROUND } from '../circuit/elements.js';
 import { invalidValue } from '../errors/messages.js';
 import type { AcAnalysisOptions } from './ac-analysis.js';

@@ -14,7 +14,7 @@
  * (64 by default) keep the aliasing of a smooth periodic output far below the 3rd harmonic. Only the
  * first {@link HARMONICS_KEPT} harmonics are transformed, which keeps the transform linear in N.
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import type { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
 import { invalidValue, noSignal, unknownElement } from '../errors/messages.js';

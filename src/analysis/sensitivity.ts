@@ -19,11 +19,12 @@
  * the unknowns (a diode's series resistance stepping away from 0) has its DC derivative at 0⁺ taken at
  * a small value instead ({@link THRESHOLD_VALUE}); its relative figures are 0, as for any parameter at 0.
  */
-import Complex from 'complex.js';
+import { Complex } from 'complex.js';
 import { GROUND } from '../circuit/elements.js';
 import type { Conditions, Device } from '../devices/device.js';
 import { thermalVoltage } from '../devices/junction.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
+import { QuiescentError } from '../errors/quiescent-error.js';
 import { type CompiledSystem, rebind } from '../mna/system.js';
 import type { AcAnalysis, Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
@@ -41,8 +42,39 @@ import { nodeAt, type OperatingPoint } from './operating-point.js';
 import { resolveOptions } from './options.js';
 import { PreparedCircuit } from './prepared.js';
 
+/** A numeric field of a device's report, as a DC sensitivity's output. */
+export interface DeviceFieldOutput {
+  /** The diode or transistor. */
+  readonly device: string;
+  /** The report field, such as `'ic'` or `'gm'`. */
+  readonly field: string;
+}
+
 /** What a DC sensitivity reads: a probe, or a numeric field of a device's report (`{ device: 'Q1', field: 'ic' }`). */
-export type SensitivityOutput = Probe | { readonly device: string; readonly field: string };
+export type SensitivityOutput = Probe | DeviceFieldOutput;
+
+/** A DC sensitivity as plain data. */
+export interface SensitivityJson {
+  /** The output at the operating point. */
+  readonly value: number;
+  /** Every entry, largest |relative| first. */
+  readonly entries: SensitivityEntry[];
+}
+
+/** An AC sensitivity as plain data. */
+export interface AcSensitivityJson {
+  /** The analysed frequency, in Hz. */
+  readonly frequency: number;
+  /** The output's phasor there. */
+  readonly value: {
+    /** Real part. */
+    readonly re: number;
+    /** Imaginary part. */
+    readonly im: number;
+  };
+  /** Every entry, largest |magnitudeDb| first. */
+  readonly entries: AcSensitivityEntry[];
+}
 
 /** Options of a DC {@link sensitivity}. */
 export interface DcSensitivityOptions {
@@ -105,7 +137,7 @@ export class Sensitivity {
   }
 
   /** Plain data: the output's value and every entry. */
-  toJSON(): { value: number; entries: SensitivityEntry[] } {
+  toJSON(): SensitivityJson {
     return { value: this.value, entries: this.entries.map((e) => ({ ...e })) };
   }
 }
@@ -132,7 +164,7 @@ export class AcSensitivity {
   }
 
   /** Plain data: frequency, the output phasor as { re, im } and every entry. */
-  toJSON(): { frequency: number; value: { re: number; im: number }; entries: AcSensitivityEntry[] } {
+  toJSON(): AcSensitivityJson {
     return {
       frequency: this.frequency,
       value: { re: this.value.re, im: this.value.im },
@@ -439,14 +471,23 @@ function atThreshold(op: OperatingPoint, k: number, parameter: string): Operatin
   const system = op.system;
   const prepared = new PreparedCircuit(system.records, system);
   prepared.setValue(system.records[k]!.name, parameter, THRESHOLD_VALUE);
-  const moved = prepared.operatingPoint({
+  const conditions = {
     temperature: op.conditions.temperature,
     junctionConductance: op.conditions.junctionConductance,
-  });
-  // The copy's unknowns differ; the element keeps its position.
-  if (moved.system.records[k]!.name !== system.records[k]!.name) throw new Error('element order changed');
-  return moved;
+  };
+  // The voltage across so small a resistance is a tiny difference of two node voltages: solve
+  // tightly enough to resolve it (the derivative is that voltage over the resistance), and with the
+  // usual tolerances only if the tight solve does not converge.
+  try {
+    return prepared.operatingPoint({ ...conditions, ...THRESHOLD_TOLERANCES });
+  } catch (e) {
+    if (!(e instanceof QuiescentError) || e.code !== 'no-convergence') throw e;
+    return prepared.operatingPoint(conditions);
+  }
 }
+
+/** Tolerances of the solve at {@link THRESHOLD_VALUE}. */
+const THRESHOLD_TOLERANCES = { relativeTolerance: 1e-12, voltageTolerance: 1e-15, currentTolerance: 1e-18 };
 
 function temperatureEntry(context: AdjointContext, reader: DcReader, lambda: Float64Array): SensitivityEntry {
   const { system, x, conditions } = context;

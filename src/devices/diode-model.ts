@@ -28,7 +28,7 @@ export interface DiodeModel {
   bandgap?: Value;
   /** The temperature exponent p of Is (default 3). */
   saturationCurrentTemperatureExponent?: Value;
-  /** The temperature, in K, at which `saturationCurrent` is given (default 300.15). */
+  /** The temperature, in K, at which `saturationCurrent` is given (default 298.15, 25 °C). */
   referenceTemperature?: Value;
   /** Flicker noise coefficient K_f, in A^(2 − flickerExponent): the 1/f noise PSD is K_f·|i|^a_f/f (default 0: none). */
   flickerCoefficient?: Value;
@@ -48,7 +48,7 @@ export const DIODE_PARAMETERS: ParameterTable<keyof DiodeModel> = {
   breakdownVoltage: { unit: 'V', defaultValue: Number.POSITIVE_INFINITY, range: 'positive-or-infinite' },
   bandgap: { unit: 'eV', defaultValue: 1.12, range: 'positive' },
   saturationCurrentTemperatureExponent: { defaultValue: 3, range: 'any' },
-  referenceTemperature: { unit: 'K', defaultValue: 300.15, range: 'positive' },
+  referenceTemperature: { unit: 'K', defaultValue: 298.15, range: 'positive' },
   flickerCoefficient: { defaultValue: 0, range: 'non-negative' },
   flickerExponent: { defaultValue: 1, range: 'positive' },
 };

@@ -3,6 +3,7 @@
  * each output (or of each output over an input, in dB), in engineering notation.
  */
 import type { AcAnalysis, Probe } from '../analysis/ac-analysis.js';
+import { probeLabel, ratioLabel } from '../analysis/probe-label.js';
 import { GROUND } from '../circuit/elements.js';
 import type { Unit } from '../values/units.js';
 import {
@@ -20,14 +21,6 @@ export interface AcReportOptions extends ReportOptions {
   readonly outputs?: readonly Probe[];
   /** When given, each output is shown relative to it: a gain in dB and a phase difference. */
   readonly input?: Probe;
-}
-
-/** `v(out)`, `v(out, ref)` or `i(R1)`. */
-export function probeLabel(probe: Probe): string {
-  if (typeof probe === 'string') return `v(${probe})`;
-  if ('element' in probe) return `i(${probe.element})`;
-  const reference = probe.reference ?? GROUND;
-  return reference === GROUND ? `v(${probe.node})` : `v(${probe.node}, ${reference})`;
 }
 
 function probeUnit(probe: Probe): Unit {
@@ -72,7 +65,7 @@ export function acTable(ac: AcAnalysis, options: AcReportOptions = {}): TextTabl
       );
     } else {
       const gain = ac.magnitudeDb(output, input);
-      const ratio = `${label}/${probeLabel(input)}`;
+      const ratio = ratioLabel(output, input);
       columns.push({ header: ratio, align: 'right' }, { header: `∠${ratio}`, align: 'right' });
       cellsOf.push(
         (k) => decibels(gain[k]!),

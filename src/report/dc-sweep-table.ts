@@ -1,5 +1,6 @@
 /** The text table of a DC sweep: one row per swept value, one column per node voltage or element current. */
 import type { DcSweep, SweptQuantity } from '../analysis/dc-sweep.js';
+import { probeLabel } from '../analysis/probe-label.js';
 import { GROUND } from '../circuit/elements.js';
 import type { Unit } from '../values/units.js';
 import {
@@ -51,11 +52,11 @@ export function dcSweepTable(sweep: DcSweep, options: DcSweepReportOptions = {})
   const columns: TableColumn[] = [{ header: swept.header, align: 'right' }];
   const series: { values: Float64Array; unit: Unit }[] = [];
   for (const node of nodes) {
-    columns.push({ header: `v(${node})`, align: 'right' });
+    columns.push({ header: probeLabel(node), align: 'right' });
     series.push({ values: sweep.voltage(node), unit: 'V' });
   }
   for (const element of elements) {
-    columns.push({ header: `i(${element})`, align: 'right' });
+    columns.push({ header: probeLabel({ element }), align: 'right' });
     series.push({ values: sweep.current(element), unit: 'A' });
   }
   const rows = Array.from(sweep.values, (value, k) => [

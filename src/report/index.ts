@@ -1,8 +1,11 @@
-export { type AcReportOptions, acTable, formatAcAnalysis, probeLabel } from './ac-table.js';
+export { probeLabel, ratioLabel } from '../analysis/probe-label.js';
+export { type AcReportOptions, acTable, formatAcAnalysis } from './ac-table.js';
 export { type DcSweepReportOptions, dcSweepTable, formatDcSweep } from './dc-sweep-table.js';
 export { currentDirection } from './element-currents.js';
+export { escapeHtml, htmlTable } from './html-table.js';
 export { type DeviceJson, type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
 export { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
+export { acAnalysisHtml, bodePlot, operatingPointHtml } from './result-html.js';
 export {
   type AcAnalysisJson,
   acAnalysisToJson,
@@ -14,7 +17,9 @@ export {
   type OutputLinearityJson,
   type PhasorsJson,
 } from './result-json.js';
+export { type MimeBundle, NOTEBOOK_DISPLAY, RichOutput } from './rich-output.js';
 export {
+  type BodeCurve,
   bodePlotSvg,
   type PlotAxis,
   type PlotOptions,

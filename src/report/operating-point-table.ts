@@ -24,6 +24,9 @@ interface FieldColumn<R> {
   readonly unit?: Unit;
 }
 
+/** The temperature in the heading to a hundredth of a kelvin (298.15 K), whatever the table's digits. */
+const TEMPERATURE_DIGITS = 6;
+
 const DIODE_COLUMNS: readonly FieldColumn<DiodeReport>[] = [
   { field: 'voltage', header: 'voltage', unit: 'V' },
   { field: 'current', header: 'current', unit: 'A' },
@@ -126,7 +129,7 @@ export function operatingPointTables(op: OperatingPoint, options: ReportOptions 
 export function formatOperatingPoint(op: OperatingPoint, options: ReportOptions = {}): string {
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const heading =
-    `Operating point at ${formatValue(op.temperature, 'K')} (Vt = ${formatValue(op.thermalVoltage, 'V', { digits })}), ` +
+    `Operating point at ${formatValue(op.temperature, 'K', TEMPERATURE_DIGITS)} (Vt = ${formatValue(op.thermalVoltage, 'V', { digits })}), ` +
     `${op.strategy}, ${op.iterations} iteration${op.iterations === 1 ? '' : 's'}`;
   const warnings = op.warnings.map((w) => `Warning: ${w}`);
   return [heading, ...warnings, ...operatingPointTables(op, options).map(renderTable)].join('\n\n');

@@ -23,7 +23,7 @@ export interface DcSweepJson {
   readonly values: readonly number[];
   /** Every node's voltage to ground at every point, in V. */
   readonly nodes: Readonly<Record<string, readonly number[]>>;
-  /** Every element current at every point, in A, by the contract's sign conventions. */
+  /** Every element current at every point, in A, by the sign conventions of docs/circuit-api.md. */
   readonly currents: Readonly<Record<string, readonly number[]>>;
 }
 

@@ -1,7 +1,9 @@
 /**
  * Line plots as standalone SVG text, with no dependency: stacked panels sharing one x axis, linear or
- * logarithmic axes, gridlines at round values, tick labels in engineering notation and axis titles
- * with units. Enough for a Bode plot or a DC-sweep curve in a report or a notebook.
+ * logarithmic axes, gridlines at round values (phase in steps of 45° or 90°), tick labels in
+ * engineering notation and axis titles with units. The legend stands to the right of the plotting
+ * area, where no curve runs, and a series keeps one colour in every panel it appears in (matched by
+ * its label). Enough for a Bode plot or a DC-sweep curve in a report or a notebook.
  */
 import type { BodeTable } from '../analysis/ac-analysis.js';
 import { invalidValue } from '../errors/messages.js';
@@ -24,7 +26,7 @@ export interface PlotAxis {
 
 /** One curve: its points and its legend label. */
 export interface PlotSeries {
-  /** The legend label. */
+  /** The legend label; series with the same label in several panels share a colour and a legend entry. */
   readonly label: string;
   /** The x values, one per point. */
   readonly x: ArrayLike<number>;
@@ -58,7 +60,11 @@ export interface PlotOptions {
 
 const PALETTE = ['#1f5fa8', '#c2452d', '#2e8540', '#7a4fa3', '#b07d10', '#0f7c86'];
 const FONT = 'font-family="system-ui, -apple-system, Segoe UI, sans-serif"';
-const MARGIN = { left: 78, right: 24, top: 44, bottom: 54, gap: 46 };
+const MARGIN = { left: 78, right: 16, top: 44, bottom: 54, gap: 46 };
+/** Space between the plotting area and the legend, and the legend's inner layout, in px. */
+const LEGEND = { gap: 14, swatch: 22, padding: 8, row: 16, charWidth: 6.5 };
+/** Phase steps in degrees: quarter and half turns first, then whole turns. */
+const PHASE_STEPS = [45, 90, 180, 360, 720, 1440];
 
 /** Escape text for XML. */
 function escapeXml(text: string): string {
@@ -99,13 +105,19 @@ function niceStep(span: number, count: number): number {
   return (fraction <= 1 ? 1 : fraction <= 2 ? 2 : fraction <= 5 ? 5 : 10) * power;
 }
 
+/** The smallest of 45°, 90°, 180°, … that cuts `span` into at most 4 intervals: 45° up to a half turn, 90° up to a turn. */
+function phaseStep(span: number): number {
+  for (const step of PHASE_STEPS) if (span / step <= 4 + 1e-9) return step;
+  return niceStep(span, 6);
+}
+
 function linearTicks(lo: number, hi: number, axis: PlotAxis): Ticks {
   if (lo === hi) {
     const pad = lo === 0 ? 1 : Math.abs(lo) * 0.1;
     lo -= pad;
     hi += pad;
   }
-  const step = niceStep(hi - lo, 6);
+  const step = axis.unit === '°' ? phaseStep(hi - lo) : niceStep(hi - lo, 6);
   const min = axis.min ?? Math.floor(lo / step + 1e-9) * step;
   const max = axis.max ?? Math.ceil(hi / step - 1e-9) * step;
   const major: number[] = [];
@@ -163,6 +175,19 @@ function mapper(ticks: Ticks, log: boolean, from: number, to: number): (v: numbe
   return (v) => from + ((t(v) - a) / (b - a)) * (to - from);
 }
 
+/** One colour per distinct label, in the order labels first appear: a given colour, else the palette's next. */
+function seriesColours(panels: readonly PlotPanel[]): Map<string, string> {
+  const colours = new Map<string, string>();
+  for (const panel of panels) {
+    for (const series of panel.series) {
+      if (!colours.has(series.label)) {
+        colours.set(series.label, series.color ?? PALETTE[colours.size % PALETTE.length]!);
+      }
+    }
+  }
+  return colours;
+}
+
 /**
  * Draws stacked line plots as a standalone SVG document.
  *
@@ -175,7 +200,7 @@ function mapper(ticks: Ticks, log: boolean, from: number, to: number): (v: numbe
  * const svg = svgPlot({
  *   title: 'Output against control voltage',
  *   x: { label: 'control', unit: 'V' },
- *   panels: [{ y: { label: 'output', unit: 'V' }, series: [{ label: 'v(out)', x: [0, 1, 2], y: [0, 0.5, 0.8] }] }],
+ *   panels: [{ y: { label: 'output', unit: 'V' }, series: [{ label: 'out', x: [0, 1, 2], y: [0, 0.5, 0.8] }] }],
  * });
  * ```
  */
@@ -185,7 +210,19 @@ export function svgPlot(options: PlotOptions): string {
   const panels = options.panels;
   const height = MARGIN.top + panels.length * panelHeight + (panels.length - 1) * MARGIN.gap + MARGIN.bottom;
   const left = MARGIN.left;
-  const right = width - MARGIN.right;
+  const colours = seriesColours(panels);
+  const longest = [...colours.keys()].reduce((w, label) => Math.max(w, [...label].length), 0);
+  const legendWidth = 2 * LEGEND.padding + LEGEND.swatch + 6 + longest * LEGEND.charWidth;
+  const right = width - MARGIN.right - LEGEND.gap - legendWidth;
+  if (right - left < 40) {
+    throw invalidValue(
+      ['width'],
+      width,
+      `a width that leaves room for the plot beside a ${Math.ceil(legendWidth)} px legend`,
+    );
+  }
+  const legendLeft = right + LEGEND.gap;
+  const listed = new Set<string>();
   for (const [p, panel] of panels.entries()) {
     for (const [s, series] of panel.series.entries()) {
       if (series.x.length !== series.y.length) {
@@ -209,7 +246,6 @@ export function svgPlot(options: PlotOptions): string {
     `<rect width="${width}" height="${height}" fill="#ffffff"/>`,
     `<text x="${left}" y="26" font-size="16" font-weight="600" fill="#222">${escapeXml(options.title)}</text>`,
   ];
-  let colour = 0;
   panels.forEach((panel, index) => {
     const top = MARGIN.top + index * (panelHeight + MARGIN.gap);
     const bottom = top + panelHeight;
@@ -247,14 +283,9 @@ export function svgPlot(options: PlotOptions): string {
     out.push(
       `<clipPath id="panel${index}"><rect x="${left}" y="${top}" width="${right - left}" height="${panelHeight}"/></clipPath>`,
     );
-    // A legend box in the top right corner, wide enough for the longest label.
-    const longest = panel.series.reduce((w, series) => Math.max(w, [...series.label].length), 0);
-    const legendWidth = 40 + longest * 6.5;
-    out.push(
-      `<rect x="${(right - legendWidth - 8).toFixed(1)}" y="${top + 4}" width="${legendWidth.toFixed(1)}" height="${8 + panel.series.length * 16}" fill="#ffffff" fill-opacity="0.85" stroke="#d0d4da"/>`,
-    );
-    panel.series.forEach((series, s) => {
-      const color = series.color ?? PALETTE[colour++ % PALETTE.length]!;
+    const legendEntries: string[] = [];
+    for (const series of panel.series) {
+      const color = colours.get(series.label)!;
       const path: string[] = [];
       let pen = 'M';
       for (let i = 0; i < series.x.length; i++) {
@@ -268,14 +299,26 @@ export function svgPlot(options: PlotOptions): string {
         pen = 'L';
       }
       out.push(
-        `<path d="${path.join(' ')}" fill="none" stroke="${color}" stroke-width="2" stroke-linejoin="round" clip-path="url(#panel${index})"/>`,
+        `<path class="series" data-label="${escapeXml(series.label)}" d="${path.join(' ')}" fill="none" stroke="${color}" stroke-width="2" stroke-linejoin="round" clip-path="url(#panel${index})"/>`,
       );
-      const legendY = top + 16 + s * 16;
+      if (listed.has(series.label)) continue;
+      listed.add(series.label);
+      const y = top + LEGEND.padding + 12 + legendEntries.length * LEGEND.row;
+      const x = legendLeft + LEGEND.padding;
+      legendEntries.push(
+        `<line x1="${x.toFixed(1)}" y1="${y - 4}" x2="${(x + LEGEND.swatch).toFixed(1)}" y2="${y - 4}" stroke="${color}" stroke-width="2"/>`,
+        `<text x="${(x + LEGEND.swatch + 6).toFixed(1)}" y="${y}" font-size="11" fill="#222">${escapeXml(series.label)}</text>`,
+      );
+    }
+    // The legend of the labels this panel shows first, beside the panel, outside its plotting area.
+    if (legendEntries.length > 0) {
+      const rows = legendEntries.length / 2;
       out.push(
-        `<line x1="${(right - legendWidth).toFixed(1)}" y1="${legendY - 4}" x2="${(right - legendWidth + 22).toFixed(1)}" y2="${legendY - 4}" stroke="${color}" stroke-width="2"/>`,
-        `<text x="${(right - legendWidth + 28).toFixed(1)}" y="${legendY}" font-size="11" fill="#222">${escapeXml(series.label)}</text>`,
+        `<g class="legend"><rect x="${legendLeft.toFixed(1)}" y="${top}" width="${legendWidth.toFixed(1)}" height="${2 * LEGEND.padding + rows * LEGEND.row}" fill="#ffffff" stroke="#d0d4da"/>`,
+        ...legendEntries,
+        '</g>',
       );
-    });
+    }
   });
   const lastBottom = MARGIN.top + panels.length * panelHeight + (panels.length - 1) * MARGIN.gap;
   out.push(
@@ -285,25 +328,65 @@ export function svgPlot(options: PlotOptions): string {
   return out.join('\n');
 }
 
+/** One response of a Bode plot with several: its legend label and its table. */
+export interface BodeCurve {
+  /** The legend label, shared by its magnitude and phase curves. */
+  readonly label: string;
+  /** The table from `AcAnalysis.bode`. */
+  readonly bode: BodeTable;
+  /** A CSS colour (default from the palette). */
+  readonly color?: string;
+}
+
 /**
- * A Bode plot as SVG: magnitude in dB above, phase in degrees below, against frequency on a log axis.
+ * A Bode plot as SVG: magnitude in dB above, phase in degrees below (ticks every 45° or 90°), against
+ * frequency on a log axis. Give one table, or several labelled responses to compare them on one plot;
+ * each response keeps its colour in both panels and is named once in the legend beside the magnitude
+ * panel.
  *
- * @param bode - the table from `AcAnalysis.bode`
+ * @param responses - a table from `AcAnalysis.bode`, or several `{ label, bode, color? }`
  * @param title - the title above the plot
- * @param label - the legend label of the curve (default `'response'`)
+ * @param label - the legend label of a single table (default `'response'`)
  * @returns the SVG text
- * @throws QuiescentError `invalid-value` when no frequency is above 0
+ * @throws QuiescentError `invalid-value` when no frequency is above 0, or the list is empty
+ * @example
+ * ```ts
+ * const circuit = new Circuit()
+ *   .voltageSource('drive', 'in', GROUND, { ac: 1 })
+ *   .resistor('R1', 'in', 'out', '1k')
+ *   .capacitor('C1', 'out', GROUND, '100n');
+ * const ac = acAnalysis(operatingPoint(circuit), { frequencies: logSweep(10, 1e6, 10) });
+ * const svg = bodePlotSvg(
+ *   [
+ *     { label: 'out ÷ in', bode: ac.bode('out', 'in') },
+ *     { label: 'current in R1 ÷ in', bode: ac.bode({ element: 'R1' }, 'in') },
+ *   ],
+ *   'Low-pass filter',
+ * );
+ * ```
  */
-export function bodePlotSvg(bode: BodeTable, title: string, label = 'response'): string {
+export function bodePlotSvg(
+  responses: BodeTable | readonly BodeCurve[],
+  title: string,
+  label = 'response',
+): string {
+  const curves: readonly BodeCurve[] = Array.isArray(responses)
+    ? (responses as readonly BodeCurve[])
+    : [{ label, bode: responses as BodeTable }];
+  if (curves.length === 0) throw invalidValue(['responses'], 'an empty list', 'one response or more');
+  const series = (pick: (bode: BodeTable) => Float64Array): PlotSeries[] =>
+    curves.map((curve) => ({
+      label: curve.label,
+      x: curve.bode.frequencies,
+      y: pick(curve.bode),
+      ...(curve.color === undefined ? {} : { color: curve.color }),
+    }));
   return svgPlot({
     title,
     x: { label: 'frequency', unit: 'Hz', scale: 'log' },
     panels: [
-      {
-        y: { label: 'magnitude', unit: 'dB' },
-        series: [{ label, x: bode.frequencies, y: bode.magnitudeDb }],
-      },
-      { y: { label: 'phase', unit: '°' }, series: [{ label, x: bode.frequencies, y: bode.phaseDegrees }] },
+      { y: { label: 'magnitude', unit: 'dB' }, series: series((bode) => bode.magnitudeDb) },
+      { y: { label: 'phase', unit: '°' }, series: series((bode) => bode.phaseDegrees) },
     ],
   });
 }

@@ -2,7 +2,7 @@
  * Plain-text tables for a terminal or a notebook: a title, a header row, a rule and aligned columns.
  * Every result table of the library is drawn by {@link renderTable}, so they all look alike.
  */
-import { formatValue } from '../values/format.js';
+import { DEFAULT_DIGITS, formatValue } from '../values/format.js';
 import type { Unit } from '../values/units.js';
 
 /** One column of a {@link TextTable}. */
@@ -25,12 +25,12 @@ export interface TextTable {
 
 /** Options shared by the text reports. */
 export interface ReportOptions {
-  /** Significant digits of every value, an integer from 1 to 101 (default 4). */
+  /** Significant digits of every value, an integer from 1 to 101 (default 4, as `formatValue`). */
   readonly digits?: number;
 }
 
-/** Significant digits of report values when none are asked for. */
-export const DEFAULT_REPORT_DIGITS = 4;
+/** Significant digits of report values when none are asked for: the one default of `formatValue`. */
+export const DEFAULT_REPORT_DIGITS = DEFAULT_DIGITS;
 
 /** The gap between two columns. */
 const GAP = '  ';

@@ -3,6 +3,7 @@
  * so that a plain assertion can throw and a vitest matcher can report, with the same words.
  */
 import type { OperatingPoint } from '../analysis/operating-point.js';
+import { probeLabel } from '../analysis/probe-label.js';
 import type { BjtRegion, MosfetRegion } from '../analysis/reports.js';
 import { GROUND } from '../circuit/elements.js';
 import { formatValue } from '../values/format.js';
@@ -15,7 +16,7 @@ import { resolveTolerance, type Tolerance } from './tolerance.js';
 export interface CheckResult {
   /** Whether the actual value met the expectation. */
   readonly pass: boolean;
-  /** What was checked, such as `v(out)`, `current of R1` or `region of Q1`. */
+  /** What was checked, such as `out`, `out − midrail`, `current in Rload` or `region of Q1`. */
   readonly subject: string;
   /** The expected value or word, formatted (`2.5 V`, `forward-active`). */
   readonly expected: string;
@@ -125,12 +126,11 @@ export function checkNodeVoltage(
   options: VoltageCheckOptions,
 ): CheckResult {
   const reference = options.reference ?? GROUND;
-  const subject = reference === GROUND ? `v(${node})` : `v(${node}, ${reference})`;
-  return checkNumber(subject, op.voltage(node, reference), expected, options, 'V');
+  return checkNumber(probeLabel({ node, reference }), op.voltage(node, reference), expected, options, 'V');
 }
 
 /**
- * Checks the current of an element, by the contract's sign conventions.
+ * Checks the current of an element, by the sign conventions of docs/circuit-api.md.
  *
  * @param op - the operating point
  * @param element - the element (any with a current: two-terminal elements, sources, op-amps)
@@ -145,7 +145,7 @@ export function checkElementCurrent(
   expected: Value,
   tolerance: Tolerance,
 ): CheckResult {
-  return checkNumber(`current of ${element}`, op.current(element), expected, tolerance, 'A');
+  return checkNumber(probeLabel({ element }), op.current(element), expected, tolerance, 'A');
 }
 
 /**

@@ -3,7 +3,9 @@
  * frequency, and a junction within its linearity budget.
  */
 import type { AcAnalysis, Probe } from '../analysis/ac-analysis.js';
+import { analysedFrequencyIndex } from '../analysis/analysed-frequency.js';
 import type { JunctionLinearity, LinearityReport } from '../analysis/linearity.js';
+import { ratioLabel } from '../analysis/probe-label.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { formatValue } from '../values/format.js';
 import { type CheckResult, compare } from './check.js';
@@ -27,26 +29,8 @@ export interface JunctionBudgetOptions {
   readonly budget?: number;
 }
 
-function label(probe: Probe): string {
-  if (typeof probe === 'string') return `v(${probe})`;
-  if ('element' in probe) return `i(${probe.element})`;
-  return probe.reference === undefined ? `v(${probe.node})` : `v(${probe.node}, ${probe.reference})`;
-}
-
-/** The index of `frequency` among the analysed frequencies (equal to 1 part in 10⁹). */
-function frequencyIndex(ac: AcAnalysis, frequency: number): number {
-  for (let k = 0; k < ac.frequencies.length; k++) {
-    const f = ac.frequencies[k]!;
-    if (Math.abs(f - frequency) <= 1e-9 * Math.max(Math.abs(f), Math.abs(frequency))) return k;
-  }
-  const list = Array.from(ac.frequencies.slice(0, 6), (f) => formatValue(f, 'Hz')).join(', ');
-  const more = ac.frequencies.length > 6 ? ', …' : '';
-  throw invalidValue(['frequency'], frequency, `one of the analysed frequencies (${list}${more})`);
-}
-
 function subjectOf(what: string, at: ResponsePoint): string {
-  const ratio = at.input === undefined ? label(at.output) : `${label(at.output)}/${label(at.input)}`;
-  return `${what} ${ratio} at ${formatValue(at.frequency, 'Hz')}`;
+  return `${what} ${ratioLabel(at.output, at.input)} at ${formatValue(at.frequency, 'Hz')}`;
 }
 
 /**
@@ -60,7 +44,7 @@ function responseAt(
   expected: number,
   expectation: string,
 ): number {
-  const k = frequencyIndex(ac, at.frequency);
+  const k = analysedFrequencyIndex(ac.frequencies, at.frequency);
   const actual = series()[k]!;
   if (typeof expected !== 'number' || !Number.isFinite(expected)) {
     throw invalidValue(['expected'], expected, expectation);

@@ -19,8 +19,11 @@ import {
   unitTakesPrefix,
 } from './units.js';
 
-/** Significant digits when none are asked for. */
-const DEFAULT_DIGITS = 6;
+/**
+ * Significant digits when none are asked for, by {@link formatValue} and by every report table alike:
+ * four, enough to tell components of the E96 series apart and short enough to read at a glance.
+ */
+export const DEFAULT_DIGITS = 4;
 
 /** The most significant digits `toExponential` can give (its limit is 100 fraction digits). */
 const MAX_DIGITS = 101;
@@ -35,7 +38,7 @@ const MAX_DIGITS = 101;
  * ```
  */
 export interface FormatOptions {
-  /** Significant digits, an integer from 1 to 101; trailing zeros are dropped. Default 6. */
+  /** Significant digits, an integer from 1 to 101; trailing zeros are dropped. Default {@link DEFAULT_DIGITS} (4). */
   readonly digits?: number;
 }
 
@@ -55,7 +58,8 @@ function placePoint(digits: string, integerDigits: number): string {
 /**
  * Formats a value in engineering notation with an SI prefix from femto to tera and an optional unit.
  *
- * The magnitude is rounded to `digits` significant digits (default 6) and trailing zeros are
+ * The magnitude is rounded to `digits` significant digits (default 4, {@link DEFAULT_DIGITS}, as in
+ * the report tables) and trailing zeros are
  * dropped. Values outside the prefix range are written with an exponent (`"1e-18 A"`); zero is
  * `"0"`; non-finite values are `"Infinity"`, `"-Infinity"` and `"NaN"`, each followed by the
  * unit. Micro is written `µ` (U+00B5). Values in `'1/V'` and `'V^½'` take no prefix (it would read
@@ -64,27 +68,37 @@ function placePoint(digits: string, integerDigits: number): string {
  *
  * @param value - the value in SI base units
  * @param unit - the unit symbol to append, if any
- * @param options - `digits`: significant digits, an integer from 1 to 101 (default 6)
+ * @param options - the significant digits, an integer from 1 to 101 (default 4), as a number or as
+ *   `{ digits }`
  * @returns the formatted text
  * @throws QuiescentError `'invalid-value'` when `value` is not a number, `unit` is not a
- *   {@link Unit} or `digits` is not an integer from 1 to 101
+ *   {@link Unit}, `options` is neither a number nor an object, or the digits are not an integer from 1
+ *   to 101
  * @example
  * ```ts
  * formatValue(4700, 'Ω');     // '4.7 kΩ'
  * formatValue(1e-5, 'F');     // '10 µF'
  * formatValue(-0.0123, 'A');  // '-12.3 mA'
- * formatValue(1234567);       // '1.23457 M'
+ * formatValue(1234567);       // '1.235 M'
  * formatValue(1234567, undefined, { digits: 3 }); // '1.23 M'
+ * formatValue(0.0123456, 'A', 6);                 // '12.3456 mA'
  * formatValue(0, 'V');        // '0 V'
  * formatValue(1e-18, 'A');    // '1e-18 A'
  * ```
  */
-export function formatValue(value: number, unit?: Unit, options?: FormatOptions): string {
+export function formatValue(value: number, unit?: Unit, options?: FormatOptions | number): string {
   if (typeof value !== 'number') throw invalidValue(['value'], value, 'a number');
   if (unit !== undefined && !isUnit(unit)) {
     throw invalidValue(['unit'], unit, `a unit symbol (expected one of ${UNITS.join(', ')})`);
   }
-  const digits = options?.digits ?? DEFAULT_DIGITS;
+  if (
+    options !== undefined &&
+    typeof options !== 'number' &&
+    (typeof options !== 'object' || options === null)
+  ) {
+    throw invalidValue(['options'], options, 'a number of significant digits or { digits }');
+  }
+  const digits = (typeof options === 'number' ? options : options?.digits) ?? DEFAULT_DIGITS;
   if (!(Number.isInteger(digits) && digits >= 1 && digits <= MAX_DIGITS)) {
     throw invalidValue(
       ['digits'],

@@ -15,7 +15,7 @@ function loop(): Circuit {
     .diode('D1', 'a', GROUND, { saturationCurrent: IS });
 }
 
-function lambert(supply: number, resistance: number, temperature = 300.15) {
+function lambert(supply: number, resistance: number, temperature = 298.15) {
   // Banwell & Jayakumar, Electronics Letters 36(4), 2000: the exact diode-resistor loop.
   return diodeSeriesResistorSolution({
     supply,
@@ -63,7 +63,7 @@ describe('dcSweep over a source value', () => {
     expect(Array.from(sweep.current('I1'))).toEqual([1e-6, 1e-4, 1e-2]);
     // Shockley: the voltage rises by Vt·ln 100 per two decades of current (from memory, any textbook).
     const v = sweep.voltage('a');
-    const vt = thermalVoltage(300.15);
+    const vt = thermalVoltage(298.15);
     expect(v[1]! - v[0]!).toBeCloseTo(vt * Math.log(100), 4);
     expect(sweep.points[0]!.current('I1')).toBe(1e-6);
   });
@@ -118,7 +118,7 @@ describe('dcSweep over an element parameter', () => {
 
 describe('dcSweep over temperature', () => {
   it('solves each point at its own temperature and thermal voltage', () => {
-    const values = [250, 300.15, 350, 400];
+    const values = [250, 298.15, 350, 400];
     const sweep = dcSweep(loop(), { temperature: values, ...EXACT });
     expect(sweep.swept).toEqual({ kind: 'temperature' });
     sweep.points.forEach((p, k) => {

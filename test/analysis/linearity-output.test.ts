@@ -177,14 +177,14 @@ describe('no-signal', () => {
     const ac = acAnalysis(operatingPoint(commonEmitterStage(0.01, 220)), { frequencies: [0] });
     const attempt = () => linearity(ac, { output: 'out' });
     expect(attempt).toThrow(QuiescentError);
-    expect(attempt).toThrow(/v\(out\) carries no signal at 0 Hz/);
+    expect(attempt).toThrow(/the output out carries no signal at 0 Hz/);
     try {
       attempt();
     } catch (e) {
       expect((e as QuiescentError).code).toBe('no-signal');
       expect((e as QuiescentError).details).toMatchObject({
         code: 'no-signal',
-        output: 'v(out)',
+        output: 'out',
         frequencies: [0],
       });
     }
@@ -249,7 +249,7 @@ describe('the report as JSON', () => {
     );
     const json = JSON.parse(JSON.stringify(report));
     expect(json.output).toMatchObject({
-      output: 'v(out)',
+      output: 'out',
       frequency: 10e3,
       withinBudget: true,
       secondHarmonic: report.output!.secondHarmonic,

@@ -46,7 +46,7 @@ describe('formatLinearity', () => {
       expect(text).toContain(`${Number((100 * j.secondHarmonic).toPrecision(4))} %`);
       expect(text).toContain(`${Number((100 * j.thirdHarmonic).toPrecision(4))} %`);
     }
-    expect(text).toContain('v(b)');
+    expect(text).toContain('Distortion of b ');
     expect(text).toContain('quasi-static check');
     expect(text).toContain(`${Number((100 * check.secondRatio).toPrecision(4))} %`);
   });
@@ -79,10 +79,10 @@ describe('formatLinearity with an output', () => {
   it('opens with the output table and closes with a verdict naming the output, its figures and the top contributor', () => {
     // Source: the report's definitions (docs/linearity.md, "The verdict at an output").
     const [first] = linearityTables(report);
-    expect(first!.title).toContain('Linearity at v(out)');
+    expect(first!.title).toContain('Linearity at out');
     const verdict = linearityVerdict(report);
     expect(text.endsWith(verdict)).toBe(true);
-    expect(verdict).toMatch(/^Linear enough at v\(out\): error bound /);
+    expect(verdict).toMatch(/^Linear enough at out: error bound /);
     expect(verdict).toContain(`${Number((100 * report.output!.secondHarmonic).toPrecision(4))} %`);
     expect(verdict).toContain('most of it from Q1');
     expect(verdict).toContain(String(Number(report.maxInputScale.toPrecision(4))));
@@ -95,7 +95,7 @@ describe('formatLinearity with an output', () => {
 
   it('says "not linear enough" at the output when its bound exceeds the budget', () => {
     const tight = linearity(ac, { output: 'out', budget: 1e-4 });
-    expect(linearityVerdict(tight)).toMatch(/^Not linear enough at v\(out\)/);
+    expect(linearityVerdict(tight)).toMatch(/^Not linear enough at out/);
     expect(formatLinearity(tight)).toContain('OVER BUDGET');
   });
 });

@@ -14,14 +14,14 @@ describe('the warnings of an operating point', () => {
     expect(op.warnings).toEqual([]);
   });
 
-  // 5 V forced across a junction is 193·Vt at 300.15 K (Vt = 25.86 mV, k·T/q with the SI 2019
+  // 5 V forced across a junction is 194.6·Vt at 298.15 K (Vt = 25.69 mV, k·T/q with the SI 2019
   // constants): beyond the limit of 80·n·Vt, so the answer is the continued model's and says so.
   it('name a junction forced beyond the exponential limit', () => {
     const op = operatingPoint(
       new Circuit().voltageSource('V1', 'a', GROUND, { dc: 5 }).diode('D1', 'a', GROUND),
     );
     expect(op.warnings).toHaveLength(1);
-    expect(op.warnings[0]).toMatch(/pn junction of 'D1' at 193·n·Vt/);
+    expect(op.warnings[0]).toMatch(/pn junction of 'D1' at 195·n·Vt/);
     expect(formatOperatingPoint(op)).toContain(`Warning: ${op.warnings[0]}`);
   });
 

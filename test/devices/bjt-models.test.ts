@@ -4,7 +4,7 @@ import { Circuit, GROUND, operatingPoint } from '../../src/index.js';
 import knee from '../reference/bjt-knee.json';
 import { expectRelativelyClose } from '../support/close.js';
 
-const T = 300.15;
+const T = 298.15;
 /** The references have no parallel junction conductance: make the library's negligible. */
 const BARE = { temperature: T, junctionConductance: 1e-30 };
 const VT = (1.380649e-23 * T) / 1.602176634e-19;

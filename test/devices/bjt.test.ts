@@ -9,7 +9,7 @@ import {
 } from '../../src/index.js';
 import { expectRelativelyClose } from '../support/close.js';
 
-const VT = thermalVoltage(300.15);
+const VT = thermalVoltage(298.15);
 
 /** A transistor with its base-emitter and collector-emitter voltages set by ideal sources. */
 function biased(vbe: number, vce: number, model: BjtModel, options: OperatingPointOptions = {}) {

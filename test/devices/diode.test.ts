@@ -3,7 +3,7 @@ import { Circuit, GROUND, operatingPoint, thermalVoltage } from '../../src/index
 import { expectRelativelyClose } from '../support/close.js';
 import { diodeSeriesResistorSolution } from '../support/diode-series-resistor.js';
 
-const VT = thermalVoltage(300.15);
+const VT = thermalVoltage(298.15);
 const IS = 1e-14;
 
 /** A supply V into a resistor R into the anode of diode D1, cathode to ground. */
@@ -180,7 +180,7 @@ describe('the diode temperature law', () => {
     // written in its Arrhenius form (from memory), with the exact SI 2019 constants.
     const k = 1.380649e-23;
     const q = 1.602176634e-19;
-    const [n, p, eg, tref, t] = [1.3, 3, 1.12, 300.15, 360];
+    const [n, p, eg, tref, t] = [1.3, 3, 1.12, 298.15, 360];
     const isT = 1e-14 * Math.exp((p / n) * Math.log(t / tref) + ((q * eg) / (n * k)) * (1 / tref - 1 / t));
     const d = operatingPoint(currentDriven(1e-3, { emissionCoefficient: n }), {
       temperature: t,

@@ -6,8 +6,8 @@ import {
 } from '../../examples/voltage-controlled-attenuator.js';
 import { Circuit, quasiStaticHarmonics } from '../../src/index.js';
 
-// Vt = k·T/q at 300.15 K with the exact SI 2019 constants (BIPM, SI Brochure, 9th ed., 2019).
-const VT = (1.380649e-23 * 300.15) / 1.602176634e-19;
+// Vt = k·T/q at 298.15 K (25 °C, the default temperature) with the exact SI 2019 constants (BIPM, SI Brochure, 9th ed., 2019).
+const VT = (1.380649e-23 * 298.15) / 1.602176634e-19;
 const {
   seriesResistance: RS,
   controlResistance: RC,

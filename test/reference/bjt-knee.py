@@ -12,7 +12,7 @@ H. K. Gummel and H. C. Poon, Bell Syst. Tech. J. 49, 1970, forward part of the n
     ib  = (Is/bF)*(e_f - 1) + (Is/bR)*(e_r - 1),
 
 with vbe = VB - ve and vbc = VB - 5.  Kirchhoff at the emitter: ve/RE = ic + ib, solved for ve with
-mpmath.findroot at 50 digits; Vt = k*T/q with the exact SI 2019 constants at 300.15 K.
+mpmath.findroot at 50 digits; Vt = k*T/q with the exact SI 2019 constants at 298.15 K.
 """
 
 import json
@@ -23,7 +23,7 @@ from mpmath import mpf
 
 mpmath.mp.dps = 50
 
-VT = mpf("1.380649e-23") * mpf("300.15") / mpf("1.602176634e-19")
+VT = mpf("1.380649e-23") * mpf("298.15") / mpf("1.602176634e-19")
 IS = mpf("1e-15")
 BF = mpf(100)
 BR = mpf(1)

@@ -27,7 +27,7 @@ mpmath.mp.dps = 50
 
 BOLTZMANN = mpf("1.380649e-23")  # J/K, exact (SI 2019)
 ELEMENTARY_CHARGE = mpf("1.602176634e-19")  # C, exact (SI 2019)
-TEMPERATURE = mpf("300.15")  # K
+TEMPERATURE = mpf("298.15")  # K (25 °C, the default analysis temperature)
 VT = BOLTZMANN * TEMPERATURE / ELEMENTARY_CHARGE
 
 SUPPLIES = ["0.1", "0.3", "1", "3", "10", "30", "100"]

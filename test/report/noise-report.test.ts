@@ -42,7 +42,7 @@ describe('noiseTables', () => {
       '1 MHz',
       '10 MHz',
     ]);
-    // Below the pole: √(4kT·750 Ω) = 3.53 nV/√Hz at 300.15 K.
+    // Below the pole: √(4kT·750 Ω) = 3.51 nV/√Hz at 298.15 K (Johnson 1928; Nyquist 1928).
     const flat = Math.sqrt(4 * BOLTZMANN * op.temperature * 750);
     expect(densities!.rows[0]![1]).toBe(`${(flat * 1e9).toFixed(2)} nV`);
     // The source resistor's noise current is 3 times the bias resistor's power: 75 % and 25 %.

@@ -77,7 +77,7 @@ describe('formatOperatingPoint', () => {
   it('prints a heading, then each table separated by a blank line', () => {
     const text = formatOperatingPoint(operatingPoint(divider()));
     const blocks = text.split('\n\n');
-    expect(blocks[0]).toMatch(/^Operating point at 300\.15 K \(Vt = 25\.86 mV\), linear/);
+    expect(blocks[0]).toMatch(/^Operating point at 298\.15 K \(Vt = 25\.69 mV\), linear/);
     expect(blocks.slice(1).map((b) => b.split('\n')[0])).toEqual([
       'Node voltages (to ground)',
       'Element currents',

@@ -71,7 +71,7 @@ describe('the DC sweep table', () => {
     const text = formatDcSweep(sweep, { nodes: ['anode'], elements: ['Rbias'] });
     const lines = text.split('\n');
     expect(lines[0]).toBe('DC sweep of Vbias');
-    expect(lines[1]).toMatch(/Vbias\s+v\(anode\)\s+i\(Rbias\)/);
+    expect(lines[1]).toMatch(/Vbias\s+anode\s+current in Rbias/);
     expect(lines).toHaveLength(3 + 3);
     expect(lines[3]).toMatch(/^\s*1 V\s/);
     expect(lines[5]).toMatch(/^\s*3 V\s/);

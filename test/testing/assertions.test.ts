@@ -19,7 +19,7 @@ describe('assertNodeVoltage', () => {
 
   it('fails outside it with the node, expected value, tolerance, actual value and deviation', () => {
     const error = failure(() => assertNodeVoltage(divider, 'tap', '7.9 V', { absolute: '50 mV' }));
-    expect(error.message).toBe('v(tap): expected 7.9 V ± 50 mV, actual 8 V (off by +100 mV)');
+    expect(error.message).toBe('tap: expected 7.9 V ± 50 mV, actual 8 V (off by +100 mV)');
     expect(error.expected).toBe(7.9);
     expect(error.actual).toBeCloseTo(8, 12);
   });
@@ -27,7 +27,7 @@ describe('assertNodeVoltage', () => {
   it('scales a relative tolerance with the expected value and says so', () => {
     assertNodeVoltage(divider, 'tap', 8.07, { relative: 0.01 });
     const error = failure(() => assertNodeVoltage(divider, 'tap', 8.1, { relative: 0.01 }));
-    expect(error.message).toBe('v(tap): expected 8.1 V ± 81 mV (±1 %), actual 8 V (off by -100 mV)');
+    expect(error.message).toBe('tap: expected 8.1 V ± 81 mV (±1 %), actual 8 V (off by -100 mV)');
   });
 
   it('allows the larger of an absolute and a relative tolerance', () => {
@@ -43,7 +43,7 @@ describe('assertNodeVoltage', () => {
     assertNodeVoltage(divider, 'in', 2, { absolute: 1e-9, reference: 'tap' });
     expect(
       failure(() => assertNodeVoltage(divider, 'in', 3, { absolute: 1e-3, reference: 'tap' })).message,
-    ).toMatch(/^v\(in, tap\): expected 3 V/);
+    ).toMatch(/^in − tap: expected 3 V/);
   });
 
   it('rejects a tolerance with neither allowance, or a negative one', () => {
@@ -66,11 +66,11 @@ describe('assertNodeVoltage', () => {
 });
 
 describe('assertElementCurrent', () => {
-  it('passes and fails by the sign conventions of the contract', () => {
+  it('passes and fails by the sign conventions of docs/circuit-api.md', () => {
     assertElementCurrent(divider, 'Rtop', '2 mA', { relative: 1e-9 });
     // The source delivers power, so its current is −2 mA.
     const error = failure(() => assertElementCurrent(divider, 'Vin', '2 mA', { relative: 0.05 }));
-    expect(error.message).toBe('current of Vin: expected 2 mA ± 100 µA (±5 %), actual -2 mA (off by -4 mA)');
+    expect(error.message).toBe('current in Vin: expected 2 mA ± 100 µA (±5 %), actual -2 mA (off by -4 mA)');
   });
 });
 

@@ -39,7 +39,7 @@ describe('assertOutputWithinBudget and toHaveOutputWithinBudget', () => {
   it('fail naming the output, the figures and the device that contributes most', () => {
     const error = failure(() => assertOutputWithinBudget(report(), { budget: 1e-4 }));
     expect(error.message).toMatch(
-      /^linearity at v\(out\): expected error bound ≤ 0\.0001, actual 0\.000\d+ at 10 kHz \(2nd harmonic 0\.0\d+ %, 3rd .* %, compression -.* %, mean shift 0 %; most from Q1\)$/,
+      /^linearity at out: expected error bound ≤ 0\.0001, actual 0\.000\d+ at 10 kHz \(2nd harmonic 0\.0\d+ %, 3rd .* %, compression -.* %, mean shift 0 %; most from Q1\)$/,
     );
   });
 

@@ -40,14 +40,14 @@ describe('quiescentMatchers', () => {
 
   it('fail with the node, expected value, tolerance and actual value', () => {
     expect(messageOf(() => expect(op).toHaveNodeVoltage('drain', 3.2, { absolute: 0.01 }))).toBe(
-      'v(drain): expected 3.2 V ± 10 mV, actual 3.31 V (off by +110 mV)',
+      'drain: expected 3.2 V ± 10 mV, actual 3.31 V (off by +110 mV)',
     );
   });
 
   it('say "not" when a negated expectation fails', () => {
     expect(
       messageOf(() => expect(op).not.toHaveElementCurrent('Rd', '845 µA', { absolute: '1 µA' })),
-    ).toMatch(/^current of Rd: expected not 845 µA ± 1 µA, actual 845 µA \(off by [-+]?[\d.]+ [pf]?A\)$/);
+    ).toMatch(/^current in Rd: expected not 845 µA ± 1 µA, actual 845 µA \(off by [-+]?[\d.]+ [pf]?A\)$/);
   });
 
   it('name the region and the bias of a MOSFET in the wrong region', () => {

@@ -1,7 +1,8 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { QuiescentError } from '../../src/errors/quiescent-error.js';
-import { formatValue, parseValue, type Unit } from '../../src/values/index.js';
+import { DEFAULT_REPORT_DIGITS } from '../../src/report/table.js';
+import { DEFAULT_DIGITS, formatValue, parseValue, type Unit } from '../../src/values/index.js';
 
 /**
  * Output prefixes from femto to tera by power of ten, typed in from BIPM, The International System of
@@ -39,12 +40,12 @@ describe('formatValue', () => {
     expect(formatValue(4700, 'Ω')).toBe('4.7 kΩ');
     expect(formatValue(1e-5, 'F')).toBe('10 \u00b5F');
     expect(formatValue(-0.0123, 'A')).toBe('-12.3 mA');
-    expect(formatValue(1234567)).toBe('1.23457 M');
+    expect(formatValue(1234567)).toBe('1.235 M');
     expect(formatValue(2.2e-9, 'F')).toBe('2.2 nF');
     expect(formatValue(10_000, 'Hz')).toBe('10 kHz');
     expect(formatValue(330, 'Ω')).toBe('330 Ω');
     expect(formatValue(1.12, 'eV')).toBe('1.12 eV');
-    expect(formatValue(300.15, 'K')).toBe('300.15 K');
+    expect(formatValue(298.15, 'K', 5)).toBe('298.15 K');
     expect(formatValue(0.5)).toBe('500 m');
     expect(formatValue(3.3)).toBe('3.3');
   });
@@ -75,7 +76,7 @@ describe('formatValue', () => {
     expect(formatValue(1.5e-16, 'A')).toBe('1.5e-16 A');
     expect(formatValue(-2.5e15)).toBe('-2.5e15');
     expect(formatValue(1e300, 'Hz')).toBe('1e300 Hz');
-    expect(formatValue(Number.MIN_VALUE)).toBe('4.94066e-324');
+    expect(formatValue(Number.MIN_VALUE)).toBe('4.941e-324');
   });
 
   it('moves to the next prefix when rounding crosses a power of 1000', () => {
@@ -98,7 +99,7 @@ describe('formatValue', () => {
     expect(formatValue(47_000, 'Ω', { digits: 1 })).toBe('50 kΩ');
     expect(formatValue(1.5, 'V', { digits: 10 })).toBe('1.5 V');
     expect(formatValue(1 / 3, 'V', { digits: 10 })).toBe('333.3333333 mV');
-    expect(formatValue(2 / 3, 'V')).toBe('666.667 mV');
+    expect(formatValue(2 / 3, 'V')).toBe('666.7 mV');
   });
 
   it('prints the units spelled for formatting', () => {
@@ -106,7 +107,7 @@ describe('formatValue', () => {
     expect(formatValue(2e-3, 'A/V²')).toBe('2 mA/V²');
     expect(formatValue(0.02, '1/V')).toBe('0.02 1/V');
     expect(formatValue(0.4, 'V^½')).toBe('0.4 V^½');
-    expect(formatValue(1 / 3, 'V^½')).toBe('0.333333 V^½');
+    expect(formatValue(1 / 3, 'V^½')).toBe('0.3333 V^½');
     expect(formatValue(0, '1/V')).toBe('0 1/V');
   });
 
@@ -138,8 +139,9 @@ describe('formatValue', () => {
   });
 
   it('round-trips through parseValue to within the printed precision for both signs', () => {
-    // Common practice, no source: rounding to 6 significant digits moves a value by at most half a
-    // unit in the sixth digit, 5e-6 relative to a mantissa ≥ 1 (plus one rounding of the double).
+    // Common practice, no source: rounding to 4 significant digits (the default) moves a value by at
+    // most half a unit in the fourth digit, 5e-4 relative to a mantissa ≥ 1 (plus one rounding of the
+    // double).
     fc.assert(
       fc.property(fc.double({ min: 1e-15, max: 1e13, noNaN: true }), fc.boolean(), (magnitude, negative) => {
         const x = negative ? -magnitude : magnitude;
@@ -147,7 +149,7 @@ describe('formatValue', () => {
           const text = formatValue(x, unit);
           const back = parseValue(unit === 'A/V²' ? text.replace(/A\/V²$/, '') : text, unit);
           const error = Math.abs(back - x) / Math.abs(x);
-          expect(error, `${x} → ${text} → ${back}`).toBeLessThanOrEqual(5e-6 + 2 * Number.EPSILON);
+          expect(error, `${x} → ${text} → ${back}`).toBeLessThanOrEqual(5e-4 + 2 * Number.EPSILON);
         }
       }),
       { numRuns: 2000 },
@@ -174,6 +176,29 @@ describe('formatValue', () => {
       expect(error.message).toContain('an integer from 1 to 101');
     }
     expect(formatValue(1, 'V', { digits: 101 })).toBe('1 V');
+  });
+
+  it('takes the digit count as a plain number too, with the same limits', () => {
+    // docs/getting-started.md, "Values and units": formatValue(value, unit, digits).
+    expect(formatValue(0.0123456, 'A', 6)).toBe('12.3456 mA');
+    expect(formatValue(0.0123456, 'A', 2)).toBe('12 mA');
+    expect(formatValue(0.0123456, 'A', 6)).toBe(formatValue(0.0123456, 'A', { digits: 6 }));
+    for (const digits of [0, 1.5, 102, Number.NaN]) {
+      expect(rejection(() => formatValue(1, 'V', digits)).details).toEqual({
+        code: 'invalid-value',
+        path: ['digits'],
+        value: digits,
+      });
+    }
+    const options = rejection(() => formatValue(1, 'V', '4' as unknown as number));
+    expect(options.details).toEqual({ code: 'invalid-value', path: ['options'], value: '4' });
+  });
+
+  it('shares its default of 4 digits with the report tables', () => {
+    // docs/reports.md, "Text tables": the default precision is 4 significant digits.
+    expect(DEFAULT_DIGITS).toBe(4);
+    expect(DEFAULT_REPORT_DIGITS).toBe(DEFAULT_DIGITS);
+    expect(formatValue(1 / 3, 'V')).toBe('333.3 mV');
   });
 
   it('rejects an unknown unit and a value that is not a number', () => {
