@@ -321,7 +321,75 @@ const STRATEGIES: readonly Strategy[] = [
       return { converged: true, iterations };
     },
   },
+  {
+    name: 'pseudo-transient',
+    run: pseudoTransient,
+  },
 ];
+
+/** Largest and smallest conductance per node of the pseudo-transient steps, in S. */
+const PSEUDO_TRANSIENT_START = 1e-2;
+const PSEUDO_TRANSIENT_GIVE_UP = 1e3;
+/** Below this conductance per node the steps are long enough to try the circuit as given. */
+const PSEUDO_TRANSIENT_FINISH = 1e-12;
+
+/**
+ * Pseudo-transient continuation (Kelley & Keyes, "Convergence analysis of pseudo-transient
+ * continuation", SIAM J. Numer. Anal. 35, 1998): a capacitor C from every node to ground, and the
+ * circuit stepped in time with backward Euler from the start, so that each step solves the circuit
+ * plus a conductance g = C/h from every node to its voltage at the last step. Unlike conductance
+ * stepping, whose conductances pull every node to 0 V and whose path can fold back on a high-gain
+ * stage, the path here follows the circuit's own relaxation, which reaches a stable solution of the
+ * DC equations for any circuit whose nodes all have a capacitance to ground. The step h (that is,
+ * 1/g) grows fourfold after a step that converged in few iterations and shrinks fourfold after one
+ * that did not (iteration-count step control, common practice); once g is below
+ * {@link PSEUDO_TRANSIENT_FINISH}, or the state stops moving, plain Newton finishes from there.
+ */
+function pseudoTransient(ws: NewtonWorkspace, o: ResolvedOptions): NewtonOutcome {
+  const n = ws.system.n;
+  let iterations = 0;
+  let g = PSEUDO_TRANSIENT_START;
+  // Each step is allowed a short run: a step that needs more is too long and is shortened.
+  const perStep = Math.min(o.maxIterations, 25);
+  const budget = o.maxIterations * (20 + Math.ceil(n / 10));
+  ws.anchor.set(ws.x);
+  while (iterations <= budget) {
+    const r = runNewton(ws, o, 1, g, perStep, true);
+    iterations += r.iterations;
+    if (!r.converged) {
+      ws.x.set(ws.anchor);
+      g *= 4;
+      if (g > PSEUDO_TRANSIENT_GIVE_UP) return { converged: false, iterations };
+      continue;
+    }
+    // A step that left every node where it started has reached a steady state: the capacitors
+    // carry no current, so x solves the circuit as given, which the residual confirms (the
+    // Jacobian there may be too ill-conditioned for plain Newton to accept an update).
+    if (stateSettled(ws, o) && measureResidual(ws, o)) return { converged: true, iterations };
+    if (g < PSEUDO_TRANSIENT_FINISH) {
+      const finish = runNewton(ws, o, 1, 0, o.maxIterations);
+      iterations += finish.iterations;
+      if (finish.converged) return { converged: true, iterations };
+      ws.x.set(ws.anchor);
+      g = PSEUDO_TRANSIENT_FINISH * 4;
+      continue;
+    }
+    ws.anchor.set(ws.x);
+    if (r.iterations <= 4) g /= 4;
+    else if (r.iterations > perStep / 2) g *= 2;
+  }
+  return { converged: false, iterations };
+}
+
+/** Whether the last pseudo-transient step left every node where it started (within tolerance). */
+function stateSettled(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
+  const { x, anchor } = ws;
+  for (let i = 0; i < ws.system.nodeCount; i++) {
+    const d = Math.abs(x[i]! - anchor[i]!);
+    if (!(d <= o.relativeTolerance * Math.abs(x[i]!) + o.voltageTolerance)) return false;
+  }
+  return true;
+}
 
 /** The `no-convergence` error with the worst residuals and the nonlinear devices touching them. */
 function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
