@@ -7,6 +7,7 @@ import { singularMatrix } from '../errors/messages.js';
 import { createRealSolver, type RealLinearSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import type { ResolvedOptions } from './options.js';
+import { diagnoseSingular } from './singular-diagnosis.js';
 
 /** Arrays and the solver of one compiled system, reused by every Newton run on it. */
 export class NewtonWorkspace {
@@ -272,10 +273,19 @@ function allFiniteIn(v: Float64Array, n: number): boolean {
   return true;
 }
 
-/** {@link trySolve}, throwing `singular` (with `context`) where it found no pivot. */
+/** {@link trySolve}, throwing `singular` (with `context`, diagnosed) where it found no pivot. */
 function step(ws: NewtonWorkspace, context: string): void {
   const status = trySolve(ws);
-  if (status !== 0) throw singularAt(ws.system, status - 1, context);
+  if (status !== 0) throw diagnoseSingular(ws.system, ws.A, status - 1, context);
+}
+
+/**
+ * The diagnosed `singular` error for the circuit as given (full sources, no added conductance),
+ * loaded at ws.x, where a factorization found no pivot for unknown k.
+ */
+export function singularCircuit(ws: NewtonWorkspace, k: number, context: string) {
+  loadAll(ws, 1, 0, true);
+  return diagnoseSingular(ws.system, ws.A, k, context);
 }
 
 /** The `singular` error for unknown k: its node or branch, and the elements that touch it. */

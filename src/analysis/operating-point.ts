@@ -19,7 +19,7 @@ import {
   prepareWorkspace,
   residualExcess,
   runNewton,
-  singularAt,
+  singularCircuit,
   solveLinear,
   worstResidualExcess,
 } from './newton.js';
@@ -237,7 +237,8 @@ export function solveFromCurrent(solver: Solver, conditions: Conditions): Operat
   }
   // A matrix singular in every attempt is a property of the circuit, not of the search.
   if (singularEverywhere && firstSingular !== undefined) {
-    throw singularAt(system, firstSingular, 'at the operating point');
+    ws.x.set(start);
+    throw singularCircuit(ws, firstSingular, 'at the operating point');
   }
   ws.x.set(closest);
   throw failure(solver, attempts);
@@ -399,11 +400,12 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
   const updateNorm = ws.lastUpdateNorm;
   measureResidual(ws, options);
   const excess = Array.from({ length: system.n }, (_, i) => residualExcess(ws, options, i));
-  // The five rows furthest outside their tolerance, largest first.
-  const order = Array.from({ length: system.n }, (_, i) => i)
-    .filter((i) => excess[i]! > 1)
-    .sort((a, b) => excess[b]! - excess[a]!)
-    .slice(0, 5);
+  // The five rows furthest outside their tolerance, largest first. When every row is within its
+  // tolerance (the updates, not the residuals, never settled), the five closest to their limit: a
+  // failure always names where it is held back.
+  const ranked = Array.from({ length: system.n }, (_, i) => i).sort((a, b) => excess[b]! - excess[a]!);
+  const outside = ranked.filter((i) => excess[i]! > 1);
+  const order = (outside.length > 0 ? outside : ranked).slice(0, 5);
   const worstResiduals: ResidualEntry[] = order.map((i) => ({
     name: system.labels[i]!.name,
     kind: system.labels[i]!.kind,
@@ -415,7 +417,10 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
       if (system.deviceByName.get(name)?.nonlinear) devices.add(name);
     }
   }
+  // Rows touched only by linear elements still name something: the elements at those rows.
+  if (devices.size === 0) for (const i of order) for (const name of system.elementsAt[i] ?? []) devices.add(name);
   return noConvergence({
+    residualsWithinTolerance: outside.length === 0,
     strategies: attempts,
     worstResiduals,
     devices: [...devices],

@@ -105,6 +105,54 @@ export function singularMatrix(
   );
 }
 
+/** The equations cannot be regular whatever the values: an equation or unknown has no partner. */
+export function structurallySingular(d: {
+  equations: readonly string[];
+  equationKinds: readonly ('node' | 'branch')[];
+  unknowns: readonly string[];
+  unknownKinds: readonly ('node' | 'branch')[];
+  elements: readonly string[];
+  context: string;
+}): QuiescentError {
+  const equations = d.equations.map((name, i) =>
+    d.equationKinds[i] === 'node' ? `the current balance at node '${name}'` : `the branch equation of '${name}'`,
+  );
+  const unknowns = d.unknowns.map((name, i) =>
+    d.unknownKinds[i] === 'node' ? `the voltage of node '${name}'` : `the current of '${name}'`,
+  );
+  const nodes = d.unknowns.filter((_, i) => d.unknownKinds[i] === 'node');
+  return new QuiescentError(
+    { code: 'singular', elements: d.elements, nodes, reason: 'structural' },
+    `the circuit equations have no unique solution ${d.context}, whatever the element values: ` +
+      `${equations.join(', ')} ${equations.length === 1 ? 'determines' : 'determine'} nothing that is not already fixed, ` +
+      `leaving ${unknowns.join(', ')} undetermined (for a branch equation: a controlled source or amplifier ` +
+      `whose output is its own input says 0 = 0); elements involved: ${listNames(d.elements)}`,
+  );
+}
+
+/** The equations are regular in structure but too ill-conditioned for double precision. */
+export function illConditioned(d: {
+  elements: readonly string[];
+  nodes: readonly string[];
+  conditionEstimate: number;
+  context: string;
+}): QuiescentError {
+  const where = d.nodes.length > 0 ? ` at node${d.nodes.length > 1 ? 's' : ''} ${listNames(d.nodes)}` : '';
+  return new QuiescentError(
+    {
+      code: 'singular',
+      elements: d.elements,
+      nodes: d.nodes,
+      reason: 'ill-conditioned',
+      conditionEstimate: d.conditionEstimate,
+    },
+    `the circuit equations ${d.context} are sound in structure but too ill-conditioned for double precision ` +
+      `(condition number about ${d.conditionEstimate.toExponential(1)}; double precision carries about ` +
+      `16 digits, so fewer than 3 would be left)${where}; look for gains or conductance ratios beyond about 1e13 among ${listNames(d.elements)}: ` +
+      'this is not a fault of the topology',
+  );
+}
+
 /** The operating point could not be found. */
 export function noConvergence(details: {
   strategies: readonly StrategyAttempt[];
@@ -112,14 +160,18 @@ export function noConvergence(details: {
   devices: readonly string[];
   lastUpdateNorm: number;
   lastResidualNorm: number;
+  residualsWithinTolerance: boolean;
 }): QuiescentError {
   const tried = details.strategies.map((s) => `${s.strategy} (${s.iterations} iterations)`).join(', ');
   const worst = details.worstResiduals
     .map((r) => `${r.kind} '${r.name}' (${r.residual.toExponential(2)} ${r.kind === 'node' ? 'A' : 'V'})`)
     .join(', ');
+  const where = details.residualsWithinTolerance
+    ? `every residual is within tolerance but the updates never settled; closest to their limit: ${worst}`
+    : `largest residuals at ${worst}`;
   const devices = details.devices.length > 0 ? `; devices still moving: ${listNames(details.devices)}` : '';
   return new QuiescentError(
     { code: 'no-convergence', ...details },
-    `the operating point could not be found after ${tried}; largest residuals at ${worst || 'no node'}${devices}`,
+    `the operating point could not be found after ${tried}; ${where}${devices}`,
   );
 }
