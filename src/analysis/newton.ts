@@ -280,6 +280,16 @@ function step(ws: NewtonWorkspace, context: string): void {
 }
 
 /**
+ * Load the full circuit's Jacobian at `x` (after {@link prepareWorkspace}) and factor it; returns
+ * whether it factored. For analyses of a solved point (the cautions' feedback test).
+ */
+export function loadJacobianAt(ws: NewtonWorkspace, x: Float64Array): boolean {
+  ws.x.set(x);
+  loadAll(ws, 1, 0, true);
+  return ws.solver.factor(ws.A) === 0;
+}
+
+/**
  * The diagnosed `singular` error for the circuit as given (full sources, no added conductance),
  * loaded at ws.x, where a factorization found no pivot for unknown k.
  */

@@ -5,12 +5,12 @@
 import type { Circuit } from '../circuit/circuit.js';
 import { type ElementRecord, GROUND } from '../circuit/elements.js';
 import type { Conditions } from '../devices/device.js';
-import { EXP_LIMIT, thermalVoltage } from '../devices/junction.js';
+import { thermalVoltage } from '../devices/junction.js';
 import { noConvergence, unknownElement, unknownNode } from '../errors/messages.js';
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
 import { type CompiledSystem, compileCircuit } from '../mna/system.js';
 import { type OperatingPointJson, operatingPointToJson } from '../report/operating-point-json.js';
-import { forwardBias } from './junction-bias.js';
+import { type Caution, cautionsOf } from './cautions.js';
 import {
   measureResidual,
   type NewtonOutcome,
@@ -40,6 +40,7 @@ export class OperatingPoint {
   readonly strategy: string;
   /** Every strategy tried, in order, with its iterations. */
   readonly attempts: readonly StrategyAttempt[];
+  #cautions: readonly Caution[] | undefined;
 
   /** @internal Built by {@link operatingPoint} and the sweeps. */
   constructor(
@@ -116,28 +117,19 @@ export class OperatingPoint {
   }
 
   /**
-   * Cautions about the solution, empty for a circuit solved within its models. A junction forward-biased
-   * beyond v/(n·Vt) = 80 (about 2 V for n = 1) lies where the exponential is continued linearly to keep
-   * the equations finite: its current follows that continuation, not the Shockley law, which usually
-   * means a source forced straight across a junction with nothing to limit the current.
+   * Cautions about the solution as data (code, element or node, the figure that triggered it, and a
+   * sentence), empty for a circuit solved within its models: a junction beyond the exponential's
+   * limit or reverse-biased beyond any physical breakdown, a node with a single connection, an
+   * op-amp in positive feedback or with its inputs far apart (docs/cautions.md).
    */
+  get cautions(): readonly Caution[] {
+    this.#cautions ??= Object.freeze(cautionsOf(this.system, this.x, this.conditions).map((c) => Object.freeze(c)));
+    return this.#cautions;
+  }
+
+  /** The {@link OperatingPoint.cautions} in words, one sentence each. */
   get warnings(): readonly string[] {
-    const out: string[] = [];
-    prepareDevices(this.system, this.conditions);
-    for (const device of this.system.devices) {
-      for (const probe of device.junctions?.(this.x) ?? []) {
-        if (probe.junction === 'channel') continue;
-        // Channels were skipped above, so of the mirrored devices only a pnp reaches here.
-        const exponent = forwardBias(device.record, probe, this.x) / probe.scale;
-        if (exponent > EXP_LIMIT) {
-          out.push(
-            `${probe.junction} junction of '${device.name}' at ${exponent.toFixed(0)}·n·Vt, beyond the ` +
-              `exponential's limit of ${EXP_LIMIT}·n·Vt: its current follows the linear continuation, not the Shockley law`,
-          );
-        }
-      }
-    }
-    return out;
+    return this.cautions.map((c) => c.message);
   }
 
   /**

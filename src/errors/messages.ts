@@ -62,11 +62,15 @@ export function unknownElement(
   return new QuiescentError({ code: 'unknown-element', element, path }, `${at(path)}'${element}': ${why}`);
 }
 
-/** Nothing connects to ground. */
-export function noGround(): QuiescentError {
+/** Nothing connects to ground; `groundLikeNodes` are nodes named as if they were meant to be it. */
+export function noGround(groundLikeNodes: readonly string[] = []): QuiescentError {
+  const hint =
+    groundLikeNodes.length > 0
+      ? `; node ${listNames(groundLikeNodes)} looks meant as ground: name it 'gnd' (or use the GROUND constant)`
+      : '';
   return new QuiescentError(
-    { code: 'no-ground' },
-    "no element connects to ground (node 'gnd'); every circuit needs a reference node",
+    { code: 'no-ground', groundLikeNodes },
+    `no element connects to ground (node 'gnd'); every circuit needs a reference node${hint}`,
   );
 }
 

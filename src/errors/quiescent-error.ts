@@ -68,6 +68,8 @@ export type ErrorDetails =
   | {
       /** Nothing connects to ground. */
       readonly code: 'no-ground';
+      /** Nodes named like a ground ('0', 'GND', 'ground' …), which were probably meant to be it. */
+      readonly groundLikeNodes?: readonly string[];
     }
   | {
       /** Some nodes have no DC path to ground. */
