@@ -12,7 +12,8 @@ import { AcWorkspace } from './ac-workspace.js';
 import { currentReader, type ProbeReader, probeReader, voltageReader } from './distortion-probe.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { checkAscending, crossings, decibels, unwrappedPhase } from './frequency-response.js';
-import { nodeAt, type OperatingPoint } from './operating-point.js';
+import { nodeAt, OperatingPoint } from './operating-point.js';
+import { requireInstance } from './arguments.js';
 
 /** Options of {@link acAnalysis}. */
 export interface AcAnalysisOptions {
@@ -264,6 +265,7 @@ const ROUNDING_MARGIN = 64;
  * ```
  */
 export function acAnalysis(op: OperatingPoint, options: AcAnalysisOptions): AcAnalysis {
+  requireInstance(op, OperatingPoint, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))');
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the frequencies to analyse');
   }

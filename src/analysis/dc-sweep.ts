@@ -26,6 +26,7 @@ import {
 } from './operating-point.js';
 import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
 import type { DeviceReport } from './reports.js';
+import { requireCircuit } from './arguments.js';
 
 /** The values a sweep steps through, in the order given: any finite numbers. */
 export type SweepValues = readonly number[] | Float64Array;
@@ -151,6 +152,7 @@ export class DcSweep {
  * ```
  */
 export function dcSweep(circuit: Circuit, options: DcSweepOptions): DcSweep {
+  requireCircuit(circuit);
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object naming what to sweep');
   }

@@ -37,10 +37,11 @@ import type { ElementKind } from '../circuit/elements.js';
 import type { JunctionProbe, NonlinearCurrent } from '../devices/device.js';
 import { invalidValue } from '../errors/messages.js';
 import { addCurrent } from '../mna/stamp.js';
-import type { AcAnalysis, Probe } from './ac-analysis.js';
+import { AcAnalysis, type Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { describeProbe, type ProbeReader, probeReader } from './distortion-probe.js';
 import { prepareDevices } from './newton.js';
+import { requireInstance } from './arguments.js';
 
 /** Options of {@link distortion}. */
 export interface DistortionOptions {
@@ -136,6 +137,7 @@ interface Group {
  * ```
  */
 export function distortion(ac: AcAnalysis, options: DistortionOptions): DistortionEstimate {
+  requireInstance(ac, AcAnalysis, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))');
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output to estimate');
   }

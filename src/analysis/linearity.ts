@@ -21,9 +21,10 @@ import {
   junctionNonlinearity,
 } from '../math/junction-nonlinearity.js';
 import { type LinearityReportJson, linearityToJson } from '../report/result-json.js';
-import type { AcAnalysis } from './ac-analysis.js';
+import { AcAnalysis } from './ac-analysis.js';
 import { forwardBias } from './junction-bias.js';
 import { prepareDevices } from './newton.js';
+import { requireInstance } from './arguments.js';
 
 /** Default budget of the first-order error bound: 10 % of the linear term. */
 export const DEFAULT_LINEARITY_BUDGET = 0.1;
@@ -122,6 +123,7 @@ function checkBudget(budget: unknown): number {
  * ```
  */
 export function linearity(ac: AcAnalysis, options: LinearityOptions = {}): LinearityReport {
+  requireInstance(ac, AcAnalysis, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))');
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object such as { budget: 0.1 }');
   }

@@ -25,6 +25,7 @@ import {
 } from './newton.js';
 import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
 import type { BjtReport, DeviceReport, DiodeReport, MosfetReport } from './reports.js';
+import { requireCircuit, requireOptions } from './arguments.js';
 
 /** The DC solution of a circuit: node voltages, element currents and every device's operating values. */
 export class OperatingPoint {
@@ -438,6 +439,8 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
  * ```
  */
 export function operatingPoint(circuit: Circuit, options?: OperatingPointOptions): OperatingPoint {
+  requireCircuit(circuit);
+  requireOptions(options);
   const solver = prepareSolver(circuit, options);
   startFromGuess(solver);
   return solveFromCurrent(solver, conditionsAt(solver.options.temperature, solver.options));

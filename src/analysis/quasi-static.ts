@@ -30,6 +30,7 @@ import {
   startFromGuess,
 } from './operating-point.js';
 import type { OperatingPointOptions } from './options.js';
+import { requireCircuit } from './arguments.js';
 
 /** Default number of phases per period. */
 export const DEFAULT_PHASES = 64;
@@ -102,6 +103,7 @@ export interface QuasiStaticHarmonics {
  * ```
  */
 export function quasiStaticHarmonics(circuit: Circuit, options: QuasiStaticOptions): QuasiStaticHarmonics {
+  requireCircuit(circuit);
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output to analyse');
   }
@@ -219,6 +221,7 @@ export interface DistortionCheck {
  * @throws QuiescentError as {@link quasiStaticHarmonics} and {@link distortion}
  */
 export function checkDistortion(circuit: Circuit, options: DistortionCheckOptions): DistortionCheck {
+  requireCircuit(circuit);
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output to analyse');
   }

@@ -32,6 +32,34 @@ export function invalidValue(
   );
 }
 
+/** How a value given where another was expected reads in a message: its class, or its kind. */
+function kindOf(value: unknown): string {
+  if (value === null) return 'null';
+  if (Array.isArray(value)) return 'an array';
+  if (typeof value === 'object') {
+    const name = (Object.getPrototypeOf(value) as { constructor?: { name?: unknown } } | null)?.constructor?.name;
+    if (typeof name !== 'string' || name === 'Object' || name === '') return 'a plain object';
+    return `${/^[AEIOU]/.test(name) ? 'an' : 'a'} ${name}`;
+  }
+  return show(value);
+}
+
+/**
+ * A public function was handed the wrong kind of argument: `invalid-circuit` for a circuit
+ * argument, `invalid-value` for any other, with the argument's name as the path.
+ */
+export function wrongArgument(
+  argument: string,
+  value: unknown,
+  expected: string,
+  code: 'invalid-circuit' | 'invalid-value' = 'invalid-value',
+): QuiescentError {
+  const message = `${argument}: expected ${expected}, got ${kindOf(value)}`;
+  return code === 'invalid-circuit'
+    ? new QuiescentError({ code, path: [argument] }, message)
+    : new QuiescentError({ code, path: [argument], value }, message);
+}
+
 /** An element name is used twice. */
 export function duplicateName(name: string): QuiescentError {
   return new QuiescentError(

@@ -13,6 +13,7 @@ import {
   type TableColumn,
   type TextTable,
 } from './table.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 
 /** Options of {@link formatAcAnalysis} and {@link acTable}. */
 export interface AcReportOptions extends ReportOptions {
@@ -54,6 +55,8 @@ function decibels(value: number): string {
  * @throws QuiescentError `unknown-node`, `unknown-element`, or `invalid-value` for a zero input
  */
 export function acTable(ac: AcAnalysis, options: AcReportOptions = {}): TextTable {
+  requireShape(ac, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))', ['operatingPoint', 'frequencies', 're']);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const outputs = options.outputs ?? ac.operatingPoint.nodes.filter((n) => n !== GROUND);
   const input = options.input;

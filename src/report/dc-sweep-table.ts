@@ -10,6 +10,7 @@ import {
   type TableColumn,
   type TextTable,
 } from './table.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 
 /** Options of {@link dcSweepTable}. */
 export interface DcSweepReportOptions extends ReportOptions {
@@ -44,6 +45,8 @@ function sweptLabel(sweep: DcSweep): { header: string; unit: Unit | undefined } 
  * @throws QuiescentError `unknown-node`, `unknown-element` for names the circuit lacks
  */
 export function dcSweepTable(sweep: DcSweep, options: DcSweepReportOptions = {}): TextTable {
+  requireShape(sweep, 'sweep', 'a DcSweep (the result of dcSweep(circuit, options))', ['points', 'swept', 'values']);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const nodes = options.nodes ?? (sweep.points[0]?.nodes ?? []).filter((n) => n !== GROUND);
   const elements = options.elements ?? [];

@@ -8,6 +8,7 @@ import type { JunctionLinearity, LinearityReport } from '../analysis/linearity.j
 import type { QuasiStaticHarmonics } from '../analysis/quasi-static.js';
 import { invalidValue } from '../errors/messages.js';
 import { cell, DEFAULT_REPORT_DIGITS, type ReportOptions, renderTable, type TextTable } from './table.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 
 /** Options of {@link formatLinearity} and {@link linearityTables}. */
 export interface LinearityReportOptions extends ReportOptions {
@@ -52,6 +53,8 @@ function worstPoint(estimate: DistortionEstimate): DistortionPoint | undefined {
  * @throws QuiescentError `invalid-value` for digits that are not a whole number from 1 to 101
  */
 export function linearityTables(report: LinearityReport, options: LinearityReportOptions = {}): TextTable[] {
+  requireShape(report, 'report', 'a LinearityReport (the result of linearity(ac))', ['junctions', 'worst', 'budget']);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   if (!Number.isInteger(digits) || digits < 1 || digits > 101) {
     throw invalidValue(['digits'], digits, 'a whole number of significant digits from 1 to 101');
@@ -140,6 +143,7 @@ export function linearityTables(report: LinearityReport, options: LinearityRepor
  * @returns the sentence
  */
 export function linearityVerdict(report: LinearityReport, digits: number = DEFAULT_REPORT_DIGITS): string {
+  requireShape(report, 'report', 'a LinearityReport (the result of linearity(ac))', ['junctions', 'worst', 'budget']);
   const worst = report.worst;
   if (worst === null)
     return 'No junction or saturated channel to judge: nothing here departs from the small-signal answer.';

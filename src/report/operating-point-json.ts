@@ -2,6 +2,7 @@
 import type { OperatingPoint } from '../analysis/operating-point.js';
 import { GROUND } from '../circuit/elements.js';
 import { currentDirection, hasDeviceReport } from './element-currents.js';
+import { requireShape } from '../errors/arguments.js';
 
 /** A device report as JSON: every number of the report, with `null` where the value is infinite. */
 export type DeviceJson = Readonly<Record<string, string | number | null>>;
@@ -41,6 +42,7 @@ export interface OperatingPointJson {
  * ```
  */
 export function operatingPointToJson(op: OperatingPoint): OperatingPointJson {
+  requireShape(op, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))', ['system', 'x', 'voltage']);
   const nodes: Record<string, number> = {};
   for (const node of op.nodes) if (node !== GROUND) nodes[node] = op.voltage(node);
   const currents: Record<string, number> = {};

@@ -16,6 +16,7 @@ import {
   type TableColumn,
   type TextTable,
 } from './table.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 
 /** One numeric column of a device table: the report field, its heading and its unit. */
 interface FieldColumn<R> {
@@ -66,6 +67,8 @@ const MOSFET_COLUMNS: readonly FieldColumn<MosfetReport>[] = [
  * @returns the tables, in print order
  */
 export function operatingPointTables(op: OperatingPoint, options: ReportOptions = {}): TextTable[] {
+  requireShape(op, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))', ['system', 'x', 'voltage']);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const records = op.system.records;
   const tables: TextTable[] = [
@@ -124,6 +127,8 @@ export function operatingPointTables(op: OperatingPoint, options: ReportOptions 
  * ```
  */
 export function formatOperatingPoint(op: OperatingPoint, options: ReportOptions = {}): string {
+  requireShape(op, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))', ['system', 'x', 'voltage']);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const heading =
     `Operating point at ${formatValue(op.temperature, 'K')} (Vt = ${formatValue(op.thermalVoltage, 'V', { digits })}), ` +

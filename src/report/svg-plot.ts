@@ -7,6 +7,7 @@ import type { BodeTable } from '../analysis/ac-analysis.js';
 import { invalidValue } from '../errors/messages.js';
 import { formatValue } from '../values/format.js';
 import type { Unit } from '../values/units.js';
+import { requireOptions } from '../errors/arguments.js';
 
 /** An axis: its title, its unit and its scale. */
 export interface PlotAxis {
@@ -180,6 +181,7 @@ function mapper(ticks: Ticks, log: boolean, from: number, to: number): (v: numbe
  * ```
  */
 export function svgPlot(options: PlotOptions): string {
+  requireOptions(options, 'options', false);
   const width = options.width ?? 720;
   const panelHeight = options.panelHeight ?? 240;
   const panels = options.panels;
