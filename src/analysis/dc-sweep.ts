@@ -204,8 +204,10 @@ function checkedValues(values: unknown, key: string, check?: (v: number, k: numb
 function pointOptions(options: object): OperatingPointOptions {
   const out: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(options)) {
-    // A number under `temperature` is the fixed temperature of a source or parameter sweep.
-    if (!SWEEP_KEYS.has(key) || (key === 'temperature' && typeof value === 'number')) out[key] = value;
+    // Anything under `temperature` but a list is the fixed temperature of a source or parameter
+    // sweep, and is checked as such (a string or null is rejected, not replaced by the default).
+    const temperatureList = Array.isArray(value) || value instanceof Float64Array;
+    if (!SWEEP_KEYS.has(key) || (key === 'temperature' && !temperatureList)) out[key] = value;
   }
   return out as OperatingPointOptions;
 }
@@ -350,10 +352,12 @@ const RANGE_WORDS = {
  * the builder does. Throws `invalid-value` naming the element when it has no such parameter.
  */
 function parameterVariant(record: ElementRecord, parameter: string): (value: number) => ElementRecord {
-  const scalars = SCALAR_PARAMETERS[record.kind];
+  if (typeof parameter !== 'string') throw invalidValue(['options', 'parameter'], parameter, 'a parameter name');
+  // Own properties only: 'toString', 'constructor' or '__proto__' must not find Object's members.
+  const scalars = Object.hasOwn(SCALAR_PARAMETERS, record.kind) ? SCALAR_PARAMETERS[record.kind] : undefined;
   const path = [record.name, parameter];
   if (scalars !== undefined) {
-    const range = scalars[parameter];
+    const range = Object.hasOwn(scalars, parameter) ? scalars[parameter] : undefined;
     if (range === undefined) throw noSuchParameter(record, parameter, Object.keys(scalars));
     return (value) => {
       const ok = range === 'positive' ? value > 0 : range === 'non-negative' ? value >= 0 : true;
