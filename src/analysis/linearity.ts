@@ -62,13 +62,19 @@ export interface JunctionLinearity {
   readonly scale: number;
   /** x = amplitude/scale. */
   readonly normalized: number;
-  /** Bound on the first-order Taylor remainder relative to the linear term: (x/2)·e^x, or x/2. */
+  /**
+   * Bound on the first-order Taylor remainder relative to the linear term: (x/2)·e^x, or x/2.
+   * Infinity when x is beyond about 700 (e^x overflows): the signal is then nowhere near small.
+   */
   readonly errorBound: number;
   /** 2nd-harmonic amplitude of the junction's current relative to its fundamental: I₂(x)/I₁(x), or x/4. */
   readonly secondHarmonic: number;
   /** 3rd-harmonic amplitude of the junction's current relative to its fundamental: I₃(x)/I₁(x), or 0. */
   readonly thirdHarmonic: number;
-  /** Rise of the junction's mean current relative to its quiescent current: I₀(x) − 1, or x²/2. */
+  /**
+   * Rise of the junction's mean current relative to its quiescent current: I₀(x) − 1, or x²/2;
+   * Infinity when x is beyond about 700 (I₀ overflows).
+   */
   readonly meanShift: number;
   /** Whether `errorBound` ≤ the budget. */
   readonly withinBudget: boolean;
