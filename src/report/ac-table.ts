@@ -25,6 +25,7 @@ export interface AcReportOptions extends ReportOptions {
 
 /** `v(out)`, `v(out, ref)` or `i(R1)`. */
 export function probeLabel(probe: Probe): string {
+  if (typeof probe !== 'string') requireOptions(probe, 'probe', false);
   if (typeof probe === 'string') return `v(${probe})`;
   if ('element' in probe) return `i(${probe.element})`;
   const reference = probe.reference ?? GROUND;

@@ -4,6 +4,7 @@
  */
 import { formatValue } from '../values/format.js';
 import type { Unit } from '../values/units.js';
+import { requireShape } from '../errors/arguments.js';
 
 /** One column of a {@link TextTable}. */
 export interface TableColumn {
@@ -51,6 +52,7 @@ const GAP = '  ';
  * ```
  */
 export function renderTable(table: TextTable): string {
+  requireShape(table, 'table', 'a TextTable (of operatingPointTables, acTable …)', ['title', 'columns', 'rows']);
   const widths = table.columns.map((column, c) =>
     table.rows.reduce((w, row) => Math.max(w, textWidth(row[c] ?? '')), textWidth(column.header)),
   );

@@ -5,6 +5,7 @@
  * 9th edition, 2019, Table 7; symbols are case-sensitive (§3: "m" is milli, "M" is mega). Only the
  * prefixes from femto to tera are used: smaller and larger values are written with an exponent.
  */
+import { invalidValue } from '../errors/messages.js';
 
 /**
  * A unit symbol. The first ten are the units of the quantities a value may carry; `'A/V²'` (the
@@ -71,6 +72,7 @@ const QUANTITIES: Readonly<Record<Unit, string>> = {
  * ```
  */
 export function quantityName(unit: Unit): string {
+  if (!isUnit(unit)) throw invalidValue(['unit'], unit, `a unit symbol (one of ${UNITS.join(', ')})`);
   return QUANTITIES[unit];
 }
 
