@@ -30,7 +30,7 @@ export {
   type DistortionPoint,
   distortion,
 } from './analysis/distortion.js';
-export { linearSweep, logSweep } from './analysis/frequency-grid.js';
+export { linearSweep, logSweep, MAX_FREQUENCY, MAX_GRID_POINTS } from './analysis/frequency-grid.js';
 export {
   DEFAULT_LINEARITY_BUDGET,
   type JunctionLinearity,
