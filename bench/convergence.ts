@@ -31,6 +31,7 @@ for (const hard of HARD_CIRCUITS) {
   rows.push([hard.name, hard.expect, outcome, strategy, iterations, ms.toFixed(1)]);
 }
 const widths = rows[0]!.map((_, c) => Math.max(...rows.map((r) => r[c]!.length)));
-for (const r of rows) console.log(r.map((cell, c) => (c >= 4 ? cell.padStart(widths[c]!) : cell.padEnd(widths[c]!))).join('  '));
+for (const r of rows)
+  console.log(r.map((cell, c) => (c >= 4 ? cell.padStart(widths[c]!) : cell.padEnd(widths[c]!))).join('  '));
 console.log(wrong === 0 ? 'every circuit as expected' : `${wrong} circuit(s) not as expected`);
 if (wrong > 0) process.exitCode = 1;

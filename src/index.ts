@@ -14,6 +14,12 @@ export {
   type Probe,
 } from './analysis/ac-analysis.js';
 export {
+  AMPLIFIER_INPUT_LIMIT,
+  type Caution,
+  type CautionCode,
+  REVERSE_BREAKDOWN_LIMIT,
+} from './analysis/cautions.js';
+export {
   DcSweep,
   type DcSweepOptions,
   dcSweep,
@@ -38,12 +44,6 @@ export {
   type LinearityReport,
   linearity,
 } from './analysis/linearity.js';
-export {
-  AMPLIFIER_INPUT_LIMIT,
-  type Caution,
-  type CautionCode,
-  REVERSE_BREAKDOWN_LIMIT,
-} from './analysis/cautions.js';
 export { OperatingPoint, operatingPoint } from './analysis/operating-point.js';
 export { DEFAULT_TEMPERATURE, type OperatingPointOptions } from './analysis/options.js';
 export { type Port, portImpedance } from './analysis/port-impedance.js';

@@ -9,11 +9,11 @@ import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { type AcAnalysisJson, acAnalysisToJson } from '../report/result-json.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { requireInstance } from './arguments.js';
 import { currentReader, type ProbeReader, probeReader, voltageReader } from './distortion-probe.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { checkAscending, crossings, decibels, unwrappedPhase } from './frequency-response.js';
 import { nodeAt, OperatingPoint } from './operating-point.js';
-import { requireInstance } from './arguments.js';
 
 /** Options of {@link acAnalysis}. */
 export interface AcAnalysisOptions {

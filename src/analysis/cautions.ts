@@ -131,7 +131,8 @@ function closeNames(a: string, b: string): boolean {
     for (let j = 1; j <= lb; j++) {
       const cost = a[i - 1] === b[j - 1] ? 0 : 1;
       let d = Math.min(previous[j]! + 1, row[j - 1]! + 1, previous[j - 1]! + cost);
-      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1]) d = Math.min(d, before[j - 2]! + 1);
+      if (i > 1 && j > 1 && a[i - 1] === b[j - 2] && a[i - 2] === b[j - 1])
+        d = Math.min(d, before[j - 2]! + 1);
       row[j] = d;
     }
     before = previous;
@@ -179,7 +180,9 @@ function amplifierCautions(system: CompiledSystem, x: Float64Array, conditions: 
     const feedback = (w[plus]! - w[minus]!) / w[output]!;
     // An ideal op-amp runs away on any positive feedback; a finite gain A only when A·f > 1.
     const gain =
-      record.options === undefined ? Number.POSITIVE_INFINITY : withDefaults(OP_AMP_PARAMETERS, record.options).openLoopGain;
+      record.options === undefined
+        ? Number.POSITIVE_INFINITY
+        : withDefaults(OP_AMP_PARAMETERS, record.options).openLoopGain;
     if (Number.isFinite(feedback) && feedback > 0 && gain * feedback > 1) {
       out.push({
         code: 'positive-feedback',

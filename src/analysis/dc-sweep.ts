@@ -16,6 +16,7 @@ import { type ParameterTable, parseParameters } from '../devices/parameters.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
 import { type DcSweepJson, dcSweepToJson } from '../report/result-json.js';
+import { requireCircuit } from './arguments.js';
 import {
   conditionsAt,
   type OperatingPoint,
@@ -26,7 +27,6 @@ import {
 } from './operating-point.js';
 import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
 import type { DeviceReport } from './reports.js';
-import { requireCircuit } from './arguments.js';
 
 /** The values a sweep steps through, in the order given: any finite numbers. */
 export type SweepValues = readonly number[] | Float64Array;
@@ -352,7 +352,8 @@ const RANGE_WORDS = {
  * the builder does. Throws `invalid-value` naming the element when it has no such parameter.
  */
 function parameterVariant(record: ElementRecord, parameter: string): (value: number) => ElementRecord {
-  if (typeof parameter !== 'string') throw invalidValue(['options', 'parameter'], parameter, 'a parameter name');
+  if (typeof parameter !== 'string')
+    throw invalidValue(['options', 'parameter'], parameter, 'a parameter name');
   // Own properties only: 'toString', 'constructor' or '__proto__' must not find Object's members.
   const scalars = Object.hasOwn(SCALAR_PARAMETERS, record.kind) ? SCALAR_PARAMETERS[record.kind] : undefined;
   const path = [record.name, parameter];

@@ -39,9 +39,9 @@ import { invalidValue } from '../errors/messages.js';
 import { addCurrent } from '../mna/stamp.js';
 import { AcAnalysis, type Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { requireInstance } from './arguments.js';
 import { describeProbe, type ProbeReader, probeReader } from './distortion-probe.js';
 import { prepareDevices } from './newton.js';
-import { requireInstance } from './arguments.js';
 
 /** Options of {@link distortion}. */
 export interface DistortionOptions {

@@ -71,8 +71,10 @@ export function logSweep(start: number, stop: number, pointsPerDecade: number): 
  *   whole number from 2 to {@link MAX_GRID_POINTS}
  */
 export function linearSweep(start: number, stop: number, count: number): Float64Array {
-  if (typeof start !== 'number' || !Number.isFinite(start)) throw invalidValue(['start'], start, 'a finite number');
-  if (typeof stop !== 'number' || !Number.isFinite(stop)) throw invalidValue(['stop'], stop, 'a finite number');
+  if (typeof start !== 'number' || !Number.isFinite(start))
+    throw invalidValue(['start'], start, 'a finite number');
+  if (typeof stop !== 'number' || !Number.isFinite(stop))
+    throw invalidValue(['stop'], stop, 'a finite number');
   if (!Number.isInteger(count) || count < 1 || (count === 1 && start !== stop)) {
     throw invalidValue(
       ['count'],

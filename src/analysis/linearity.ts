@@ -22,9 +22,9 @@ import {
 } from '../math/junction-nonlinearity.js';
 import { type LinearityReportJson, linearityToJson } from '../report/result-json.js';
 import { AcAnalysis } from './ac-analysis.js';
+import { requireInstance } from './arguments.js';
 import { forwardBias } from './junction-bias.js';
 import { prepareDevices } from './newton.js';
-import { requireInstance } from './arguments.js';
 
 /** Default budget of the first-order error bound: 10 % of the linear term. */
 export const DEFAULT_LINEARITY_BUDGET = 0.1;

@@ -10,12 +10,12 @@ import { noConvergence, unknownElement, unknownNode } from '../errors/messages.j
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
 import { type CompiledSystem, compileCircuit } from '../mna/system.js';
 import { type OperatingPointJson, operatingPointToJson } from '../report/operating-point-json.js';
+import { requireCircuit, requireOptions } from './arguments.js';
 import { type Caution, cautionsOf } from './cautions.js';
 import {
   measureResidual,
   type NewtonOutcome,
   NewtonWorkspace,
-  prepareDevices,
   prepareWorkspace,
   residualExcess,
   runNewton,
@@ -25,7 +25,6 @@ import {
 } from './newton.js';
 import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
 import type { BjtReport, DeviceReport, DiodeReport, MosfetReport } from './reports.js';
-import { requireCircuit, requireOptions } from './arguments.js';
 
 /** The DC solution of a circuit: node voltages, element currents and every device's operating values. */
 export class OperatingPoint {
@@ -124,7 +123,9 @@ export class OperatingPoint {
    * op-amp in positive feedback or with its inputs far apart (docs/cautions.md).
    */
   get cautions(): readonly Caution[] {
-    this.#cautions ??= Object.freeze(cautionsOf(this.system, this.x, this.conditions).map((c) => Object.freeze(c)));
+    this.#cautions ??= Object.freeze(
+      cautionsOf(this.system, this.x, this.conditions).map((c) => Object.freeze(c)),
+    );
     return this.#cautions;
   }
 
@@ -411,7 +412,8 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
     }
   }
   // Rows touched only by linear elements still name something: the elements at those rows.
-  if (devices.size === 0) for (const i of order) for (const name of system.elementsAt[i] ?? []) devices.add(name);
+  if (devices.size === 0)
+    for (const i of order) for (const name of system.elementsAt[i] ?? []) devices.add(name);
   return noConvergence({
     residualsWithinTolerance: outside.length === 0,
     strategies: attempts,

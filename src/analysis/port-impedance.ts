@@ -8,9 +8,9 @@ import { GROUND } from '../circuit/elements.js';
 import { invalidValue } from '../errors/messages.js';
 import type { AcAnalysisOptions } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { requireInstance, requireOptions } from './arguments.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { nodeAt, OperatingPoint } from './operating-point.js';
-import { requireInstance, requireOptions } from './arguments.js';
 
 /** A port: two nodes; the impedance is (v(plus) − v(minus)) per ampere driven into `plus`. */
 export interface Port {

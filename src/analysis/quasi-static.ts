@@ -17,6 +17,7 @@ import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import type { AcAnalysis, Probe } from './ac-analysis.js';
 import { acAnalysis } from './ac-analysis.js';
+import { requireCircuit } from './arguments.js';
 import { checkDriveScale, type DistortionPoint, distortion } from './distortion.js';
 import { describeProbe } from './distortion-probe.js';
 import {
@@ -30,7 +31,6 @@ import {
   startFromGuess,
 } from './operating-point.js';
 import type { OperatingPointOptions } from './options.js';
-import { requireCircuit } from './arguments.js';
 
 /** Default number of phases per period. */
 export const DEFAULT_PHASES = 64;

@@ -121,7 +121,8 @@ export function checkTopology(elements: readonly ElementRecord[]): void {
     }
   }
   // A node named like a ground ('0', 'GND', 'ground') was most likely meant to be one.
-  if (!touchesGround) throw noGround([...index.keys()].filter((node) => node !== GROUND && GROUND_LIKE.test(node)));
+  if (!touchesGround)
+    throw noGround([...index.keys()].filter((node) => node !== GROUND && GROUND_LIKE.test(node)));
 
   const dc = new DisjointSets(index.size);
   for (const e of elements) for (const [a, b] of dcConnections(e)) dc.union(index.get(a)!, index.get(b)!);

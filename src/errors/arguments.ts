@@ -17,7 +17,12 @@ export function requireOptions(value: unknown, argument = 'options', optional = 
  * Require an object that has every member named in `members` (a result of the library, checked by
  * shape where importing its class would tie folders together), described as `what`.
  */
-export function requireShape(value: unknown, argument: string, what: string, members: readonly string[]): void {
+export function requireShape(
+  value: unknown,
+  argument: string,
+  what: string,
+  members: readonly string[],
+): void {
   if (value === null || typeof value !== 'object' || members.some((m) => !(m in value))) {
     throw wrongArgument(argument, value, what);
   }

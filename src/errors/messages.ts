@@ -37,7 +37,8 @@ function kindOf(value: unknown): string {
   if (value === null) return 'null';
   if (Array.isArray(value)) return 'an array';
   if (typeof value === 'object') {
-    const name = (Object.getPrototypeOf(value) as { constructor?: { name?: unknown } } | null)?.constructor?.name;
+    const name = (Object.getPrototypeOf(value) as { constructor?: { name?: unknown } } | null)?.constructor
+      ?.name;
     if (typeof name !== 'string' || name === 'Object' || name === '') return 'a plain object';
     return `${/^[AEIOU]/.test(name) ? 'an' : 'a'} ${name}`;
   }
@@ -147,7 +148,9 @@ export function structurallySingular(d: {
   context: string;
 }): QuiescentError {
   const equations = d.equations.map((name, i) =>
-    d.equationKinds[i] === 'node' ? `the current balance at node '${name}'` : `the branch equation of '${name}'`,
+    d.equationKinds[i] === 'node'
+      ? `the current balance at node '${name}'`
+      : `the branch equation of '${name}'`,
   );
   const unknowns = d.unknowns.map((name, i) =>
     d.unknownKinds[i] === 'node' ? `the voltage of node '${name}'` : `the current of '${name}'`,

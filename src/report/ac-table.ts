@@ -4,6 +4,7 @@
  */
 import type { AcAnalysis, Probe } from '../analysis/ac-analysis.js';
 import { GROUND } from '../circuit/elements.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import type { Unit } from '../values/units.js';
 import {
   cell,
@@ -13,7 +14,6 @@ import {
   type TableColumn,
   type TextTable,
 } from './table.js';
-import { requireOptions, requireShape } from '../errors/arguments.js';
 
 /** Options of {@link formatAcAnalysis} and {@link acTable}. */
 export interface AcReportOptions extends ReportOptions {
@@ -56,7 +56,11 @@ function decibels(value: number): string {
  * @throws QuiescentError `unknown-node`, `unknown-element`, or `invalid-value` for a zero input
  */
 export function acTable(ac: AcAnalysis, options: AcReportOptions = {}): TextTable {
-  requireShape(ac, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))', ['operatingPoint', 'frequencies', 're']);
+  requireShape(ac, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))', [
+    'operatingPoint',
+    'frequencies',
+    're',
+  ]);
   requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const outputs = options.outputs ?? ac.operatingPoint.nodes.filter((n) => n !== GROUND);

@@ -1,6 +1,7 @@
 /** The text table of a DC sweep: one row per swept value, one column per node voltage or element current. */
 import type { DcSweep, SweptQuantity } from '../analysis/dc-sweep.js';
 import { GROUND } from '../circuit/elements.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import type { Unit } from '../values/units.js';
 import {
   cell,
@@ -10,7 +11,6 @@ import {
   type TableColumn,
   type TextTable,
 } from './table.js';
-import { requireOptions, requireShape } from '../errors/arguments.js';
 
 /** Options of {@link dcSweepTable}. */
 export interface DcSweepReportOptions extends ReportOptions {
@@ -45,7 +45,11 @@ function sweptLabel(sweep: DcSweep): { header: string; unit: Unit | undefined } 
  * @throws QuiescentError `unknown-node`, `unknown-element` for names the circuit lacks
  */
 export function dcSweepTable(sweep: DcSweep, options: DcSweepReportOptions = {}): TextTable {
-  requireShape(sweep, 'sweep', 'a DcSweep (the result of dcSweep(circuit, options))', ['points', 'swept', 'values']);
+  requireShape(sweep, 'sweep', 'a DcSweep (the result of dcSweep(circuit, options))', [
+    'points',
+    'swept',
+    'values',
+  ]);
   requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const nodes = options.nodes ?? (sweep.points[0]?.nodes ?? []).filter((n) => n !== GROUND);

@@ -6,9 +6,9 @@
 import type { DistortionEstimate, DistortionPoint } from '../analysis/distortion.js';
 import type { JunctionLinearity, LinearityReport } from '../analysis/linearity.js';
 import type { QuasiStaticHarmonics } from '../analysis/quasi-static.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import { invalidValue } from '../errors/messages.js';
 import { cell, DEFAULT_REPORT_DIGITS, type ReportOptions, renderTable, type TextTable } from './table.js';
-import { requireOptions, requireShape } from '../errors/arguments.js';
 
 /** Options of {@link formatLinearity} and {@link linearityTables}. */
 export interface LinearityReportOptions extends ReportOptions {
@@ -53,7 +53,11 @@ function worstPoint(estimate: DistortionEstimate): DistortionPoint | undefined {
  * @throws QuiescentError `invalid-value` for digits that are not a whole number from 1 to 101
  */
 export function linearityTables(report: LinearityReport, options: LinearityReportOptions = {}): TextTable[] {
-  requireShape(report, 'report', 'a LinearityReport (the result of linearity(ac))', ['junctions', 'worst', 'budget']);
+  requireShape(report, 'report', 'a LinearityReport (the result of linearity(ac))', [
+    'junctions',
+    'worst',
+    'budget',
+  ]);
   requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   if (!Number.isInteger(digits) || digits < 1 || digits > 101) {
@@ -143,7 +147,11 @@ export function linearityTables(report: LinearityReport, options: LinearityRepor
  * @returns the sentence
  */
 export function linearityVerdict(report: LinearityReport, digits: number = DEFAULT_REPORT_DIGITS): string {
-  requireShape(report, 'report', 'a LinearityReport (the result of linearity(ac))', ['junctions', 'worst', 'budget']);
+  requireShape(report, 'report', 'a LinearityReport (the result of linearity(ac))', [
+    'junctions',
+    'worst',
+    'budget',
+  ]);
   const worst = report.worst;
   if (worst === null)
     return 'No junction or saturated channel to judge: nothing here departs from the small-signal answer.';

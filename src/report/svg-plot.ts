@@ -4,12 +4,10 @@
  * with units. Enough for a Bode plot or a DC-sweep curve in a report or a notebook.
  */
 import type { BodeTable } from '../analysis/ac-analysis.js';
-import { invalidValue } from '../errors/messages.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
+import { invalidValue, wrongArgument } from '../errors/messages.js';
 import { formatValue } from '../values/format.js';
 import type { Unit } from '../values/units.js';
-import { requireOptions } from '../errors/arguments.js';
-import { requireShape } from '../errors/arguments.js';
-import { wrongArgument } from '../errors/messages.js';
 
 /** An axis: its title, its unit and its scale. */
 export interface PlotAxis {
@@ -184,7 +182,8 @@ function mapper(ticks: Ticks, log: boolean, from: number, to: number): (v: numbe
  */
 export function svgPlot(options: PlotOptions): string {
   requireOptions(options, 'options', false);
-  if (!Array.isArray(options.panels as unknown)) throw wrongArgument('options.panels', options.panels, 'an array of panels');
+  if (!Array.isArray(options.panels as unknown))
+    throw wrongArgument('options.panels', options.panels, 'an array of panels');
   const width = options.width ?? 720;
   const panelHeight = options.panelHeight ?? 240;
   const panels = options.panels;
@@ -300,7 +299,11 @@ export function svgPlot(options: PlotOptions): string {
  * @throws QuiescentError `invalid-value` when no frequency is above 0
  */
 export function bodePlotSvg(bode: BodeTable, title: string, label = 'response'): string {
-  requireShape(bode, 'bode', 'a BodeTable (the result of ac.bode(output))', ['frequencies', 'magnitudeDb', 'phaseDegrees']);
+  requireShape(bode, 'bode', 'a BodeTable (the result of ac.bode(output))', [
+    'frequencies',
+    'magnitudeDb',
+    'phaseDegrees',
+  ]);
   return svgPlot({
     title,
     x: { label: 'frequency', unit: 'Hz', scale: 'log' },

@@ -77,7 +77,8 @@ function readSuffix(text: string): Suffix | undefined {
   const symbol = text.slice(1);
   const unit = unitOfSymbol(symbol);
   // A prefix before 1/V or V^½ would be ambiguous (milli of the quantity, or of the volt inside it).
-  if (prefix !== undefined && unit !== undefined && unitTakesPrefix(unit)) return { exponent: prefix, symbol, unit };
+  if (prefix !== undefined && unit !== undefined && unitTakesPrefix(unit))
+    return { exponent: prefix, symbol, unit };
   return undefined;
 }
 
@@ -196,7 +197,8 @@ export function parseValue(
   if (!Number.isFinite(value)) {
     // The text stands for every number that rounds to it: '1.8e308' (two digits) includes the
     // largest double, 1.7976931348623157e308, which it then reads as.
-    if (roundsFromBelowLargest(mantissa, exponent)) return mantissa.startsWith('-') ? -Number.MAX_VALUE : Number.MAX_VALUE;
+    if (roundsFromBelowLargest(mantissa, exponent))
+      return mantissa.startsWith('-') ? -Number.MAX_VALUE : Number.MAX_VALUE;
     throw reject(path, text, unit, 'its magnitude is too large for a double-precision number');
   }
   return value;

@@ -54,7 +54,11 @@ describe('dcSweep', () => {
 describe('magnitudes', () => {
   it('refuses a subnormal Early voltage, which gave NaN in g_m, r_o and C_π', () => {
     const e = thrown(() =>
-      new Circuit().bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, { polarity: 'npn', earlyVoltage: 5e-324 }),
+      new Circuit().bjt(
+        'Q1',
+        { collector: 'c', base: 'b', emitter: GROUND },
+        { polarity: 'npn', earlyVoltage: 5e-324 },
+      ),
     );
     expect(e.code).toBe('invalid-value');
     expect(e.details).toMatchObject({ path: ['Q1', 'model', 'earlyVoltage'], value: 5e-324 });
@@ -90,7 +94,9 @@ describe('frequency grids', () => {
 
   it('span any range of finite numbers without overflow', () => {
     // 600 decades at 0.01 per decade: six intervals of 100 decades.
-    expect(Array.from(logSweep(1e-300, 1e300, 0.01))).toEqual([1e-300, 1e-200, 1e-100, 1, 1e100, 1e200, 1e300]);
+    expect(Array.from(logSweep(1e-300, 1e300, 0.01))).toEqual([
+      1e-300, 1e-200, 1e-100, 1, 1e100, 1e200, 1e300,
+    ]);
     expect(Array.from(linearSweep(-1e308, 1e308, 3))).toEqual([-1e308, 0, 1e308]);
   });
 

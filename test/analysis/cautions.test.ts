@@ -3,13 +3,7 @@
  * satisfy the equations but that a careful engineer would question.
  */
 import { describe, expect, it } from 'vitest';
-import {
-  Circuit,
-  GROUND,
-  operatingPoint,
-  QuiescentError,
-  REVERSE_BREAKDOWN_LIMIT,
-} from '../../src/index.js';
+import { Circuit, GROUND, operatingPoint, QuiescentError, REVERSE_BREAKDOWN_LIMIT } from '../../src/index.js';
 
 describe('operating-point cautions', () => {
   it('flag a current forced backwards into a diode, whose model then shows about −1e9 V', () => {
@@ -71,7 +65,9 @@ describe('operating-point cautions', () => {
   });
 
   it('are plain frozen data that JSON can carry', () => {
-    const op = operatingPoint(new Circuit().currentSource('force', 'k', GROUND, { dc: 1 }).diode('D1', GROUND, 'k'));
+    const op = operatingPoint(
+      new Circuit().currentSource('force', 'k', GROUND, { dc: 1 }).diode('D1', GROUND, 'k'),
+    );
     expect(Object.isFrozen(op.cautions)).toBe(true);
     expect(JSON.parse(JSON.stringify(op.cautions))).toEqual(op.cautions);
   });
@@ -80,7 +76,9 @@ describe('operating-point cautions', () => {
 describe('no-ground', () => {
   it("suggests 'gnd' for a node named like a ground", () => {
     for (const name of ['0', 'GND', 'ground']) {
-      const circuit = new Circuit().voltageSource('supply', 'a', name, { dc: 1 }).resistor('load', 'a', name, '1k');
+      const circuit = new Circuit()
+        .voltageSource('supply', 'a', name, { dc: 1 })
+        .resistor('load', 'a', name, '1k');
       let error: unknown;
       try {
         operatingPoint(circuit);

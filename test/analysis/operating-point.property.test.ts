@@ -129,7 +129,10 @@ describe('the operating point of random diode-resistor networks', () => {
     fc.assert(
       fc.property(
         network,
-        fc.array(fc.double({ min: -20, max: 20, noNaN: true }).map(flushTiny), { minLength: 1, maxLength: 6 }),
+        fc.array(fc.double({ min: -20, max: 20, noNaN: true }).map(flushTiny), {
+          minLength: 1,
+          maxLength: 6,
+        }),
         (net, values) => {
           const sweep = dcSweep(build(net), { source: 'V1', values });
           for (let k = 0; k < net.nodes; k++) {

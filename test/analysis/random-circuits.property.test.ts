@@ -5,19 +5,40 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { Circuit, GROUND, operatingPoint, QuiescentError } from '../../src/index.js';
+import { Circuit, operatingPoint, QuiescentError } from '../../src/index.js';
 import { worstKcl } from '../support/kcl.js';
 
 const NODES = ['gnd', 'a', 'b', 'c', 'd', 'e'] as const;
 const node = fc.constantFrom(...NODES);
 
 const element = fc.oneof(
-  fc.record({ kind: fc.constant('resistor'), a: node, b: node, value: fc.double({ min: 1, max: 6, noNaN: true }) }),
-  fc.record({ kind: fc.constant('voltage'), a: node, b: node, value: fc.double({ min: -15, max: 15, noNaN: true }) }),
-  fc.record({ kind: fc.constant('current'), a: node, b: node, value: fc.double({ min: -0.01, max: 0.01, noNaN: true }) }),
+  fc.record({
+    kind: fc.constant('resistor'),
+    a: node,
+    b: node,
+    value: fc.double({ min: 1, max: 6, noNaN: true }),
+  }),
+  fc.record({
+    kind: fc.constant('voltage'),
+    a: node,
+    b: node,
+    value: fc.double({ min: -15, max: 15, noNaN: true }),
+  }),
+  fc.record({
+    kind: fc.constant('current'),
+    a: node,
+    b: node,
+    value: fc.double({ min: -0.01, max: 0.01, noNaN: true }),
+  }),
   fc.record({ kind: fc.constant('diode'), a: node, b: node, value: fc.constant(0) }),
   fc.record({ kind: fc.constant('npn'), a: node, b: node, c: node, value: fc.constant(0) }),
-  fc.record({ kind: fc.constant('nmos'), a: node, b: node, c: node, value: fc.double({ min: 0, max: 0.05, noNaN: true }) }),
+  fc.record({
+    kind: fc.constant('nmos'),
+    a: node,
+    b: node,
+    c: node,
+    value: fc.double({ min: 0, max: 0.05, noNaN: true }),
+  }),
   fc.record({ kind: fc.constant('opamp'), a: node, b: node, c: node, value: fc.constant(0) }),
 );
 
@@ -31,9 +52,14 @@ function build(specs: readonly Spec[]): Circuit {
     else if (s.kind === 'voltage') c.voltageSource(`source${k}`, s.a, s.b, { dc: v });
     else if (s.kind === 'current') c.currentSource(`feed${k}`, s.a, s.b, { dc: v });
     else if (s.kind === 'diode') c.diode(`D${k}`, s.a, s.b);
-    else if (s.kind === 'npn') c.bjt(`Q${k}`, { collector: s.a, base: s.b, emitter: s.c! }, { polarity: 'npn' });
+    else if (s.kind === 'npn')
+      c.bjt(`Q${k}`, { collector: s.a, base: s.b, emitter: s.c! }, { polarity: 'npn' });
     else if (s.kind === 'nmos')
-      c.mosfet(`M${k}`, { drain: s.a, gate: s.b, source: s.c! }, { polarity: 'nmos', channelLengthModulation: v });
+      c.mosfet(
+        `M${k}`,
+        { drain: s.a, gate: s.b, source: s.c! },
+        { polarity: 'nmos', channelLengthModulation: v },
+      );
     else c.opAmp(`U${k}`, { plus: s.a, minus: s.b, output: s.c! });
   });
   return c;
@@ -65,12 +91,17 @@ describe('random circuits', () => {
           expect(Math.abs(w.imbalance), `KCL at '${w.node}'`).toBeLessThanOrEqual(1e-6 * w.scale + 1e-12);
           for (const n of op.nodes) expect(Number.isNaN(op.voltage(n))).toBe(false);
           for (const e of circuit.elements) {
-            if (e.kind === 'diode' || e.kind === 'bjt' || e.kind === 'mosfet') expect(hasNaN(op.device(e.name))).toBe(false);
+            if (e.kind === 'diode' || e.kind === 'bjt' || e.kind === 'mosfet')
+              expect(hasNaN(op.device(e.name))).toBe(false);
           }
           expect(hasNaN(op.cautions)).toBe(false);
         } catch (e) {
           if (!(e instanceof QuiescentError)) throw e;
-          const d = e.details as { nodes?: readonly string[]; elements?: readonly string[]; devices?: readonly string[] };
+          const d = e.details as {
+            nodes?: readonly string[];
+            elements?: readonly string[];
+            devices?: readonly string[];
+          };
           if (e.code === 'no-ground') return;
           if (e.code === 'no-convergence') {
             const details = e.details as { worstResiduals: readonly unknown[]; devices: readonly string[] };

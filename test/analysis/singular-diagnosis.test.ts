@@ -37,7 +37,9 @@ describe('a singular circuit', () => {
   it('calls a 300 dB gain chain ill-conditioned, with the estimate, not a topology fault', () => {
     const circuit = new Circuit().voltageSource('supply', 's0', GROUND, { dc: 1e-3 });
     for (let k = 0; k < 15; k++) {
-      circuit.vcvs(`stage${k}`, [`s${k + 1}`, GROUND], [`s${k}`, GROUND], 10).resistor(`load${k}`, `s${k + 1}`, GROUND, '1k');
+      circuit
+        .vcvs(`stage${k}`, [`s${k + 1}`, GROUND], [`s${k}`, GROUND], 10)
+        .resistor(`load${k}`, `s${k + 1}`, GROUND, '1k');
     }
     circuit.resistor('back', 's15', 's0', 1);
     const e = thrown(() => operatingPoint(circuit));

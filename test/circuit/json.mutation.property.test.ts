@@ -33,8 +33,9 @@ const base = new Circuit()
 /** Every path to a value inside a JSON value. */
 function paths(value: unknown, prefix: (string | number)[] = []): (string | number)[][] {
   const out: (string | number)[][] = [prefix];
-  if (Array.isArray(value)) value.forEach((v, i) => out.push(...paths(v, [...prefix, i])));
-  else if (value !== null && typeof value === 'object') {
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) out.push(...paths(value[i], [...prefix, i]));
+  } else if (value !== null && typeof value === 'object') {
     for (const [k, v] of Object.entries(value)) out.push(...paths(v, [...prefix, k]));
   }
   return out;
@@ -60,8 +61,13 @@ function mutate(document: unknown, m: { path: (string | number)[]; kind: string;
   else if (m.kind === 'replace') parent[last] = m.value;
   else {
     // JSON.parse makes '__proto__' an own key, as a parsed document from outside would have.
-    const polluted = JSON.parse(`{"__proto__": {"polluted": true}, "constructor": {"prototype": {"polluted": true}}}`);
-    parent[last] = typeof parent[last] === 'object' && parent[last] !== null ? { ...(parent[last] as object), ...polluted } : polluted;
+    const polluted = JSON.parse(
+      `{"__proto__": {"polluted": true}, "constructor": {"prototype": {"polluted": true}}}`,
+    );
+    parent[last] =
+      typeof parent[last] === 'object' && parent[last] !== null
+        ? { ...(parent[last] as object), ...polluted }
+        : polluted;
   }
   return copy;
 }

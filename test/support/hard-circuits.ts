@@ -25,15 +25,32 @@ const NPN = { polarity: 'npn', forwardBeta: 100, earlyVoltage: 80 } as const;
 const PNP = { polarity: 'pnp', forwardBeta: 60, earlyVoltage: 50 } as const;
 
 /** Add a CMOS inverter from `input` to `output` on supply node `vdd`. */
-function inverter(c: Circuit, name: string, input: string, output: string, lambda: number, vdd = 'vdd'): Circuit {
+function inverter(
+  c: Circuit,
+  name: string,
+  input: string,
+  output: string,
+  lambda: number,
+  vdd = 'vdd',
+): Circuit {
   return c
-    .mosfet(`${name}up`, { drain: output, gate: input, source: vdd }, { ...PMOS, channelLengthModulation: lambda })
-    .mosfet(`${name}down`, { drain: output, gate: input, source: GROUND }, { ...NMOS, channelLengthModulation: lambda });
+    .mosfet(
+      `${name}up`,
+      { drain: output, gate: input, source: vdd },
+      { ...PMOS, channelLengthModulation: lambda },
+    )
+    .mosfet(
+      `${name}down`,
+      { drain: output, gate: input, source: GROUND },
+      { ...NMOS, channelLengthModulation: lambda },
+    );
 }
 
 /** A chain of `stages` inverters on a 5 V supply, driven at `input` volts; outputs s1 … s<stages>. */
 export function inverterChain(stages: number, lambda: number, input: number): Circuit {
-  const c = new Circuit().voltageSource('supply', 'vdd', GROUND, { dc: 5 }).voltageSource('drive', 's0', GROUND, { dc: input });
+  const c = new Circuit()
+    .voltageSource('supply', 'vdd', GROUND, { dc: 5 })
+    .voltageSource('drive', 's0', GROUND, { dc: input });
   for (let k = 0; k < stages; k++) inverter(c, `stage${k}`, `s${k}`, `s${k + 1}`, lambda);
   return c;
 }
@@ -60,7 +77,11 @@ function schmittTrigger(input: number): Circuit {
     .resistor('feedIn', 'in', 'minus', '10k')
     .resistor('threshold', 'plus', GROUND, '10k')
     .resistor('hysteresis', 'plus', 'limited', '100k')
-    .opAmp('comparator', { plus: 'plus', minus: 'minus', output: 'raw' }, { openLoopGain: 1e5, outputResistance: 100 })
+    .opAmp(
+      'comparator',
+      { plus: 'plus', minus: 'minus', output: 'raw' },
+      { openLoopGain: 1e5, outputResistance: 100 },
+    )
     .resistor('clampFeed', 'raw', 'limited', '1k')
     .diode('clampHigh', 'limited', 'railHigh')
     .diode('clampLow', 'railLow', 'limited')
@@ -202,7 +223,13 @@ function selfDrivenSource(): Circuit {
 /** Fifteen gain-of-ten stages closed by 1 Ω back to a driven node: 300 dB, beyond double precision. */
 function highGainChain(): Circuit {
   const c = new Circuit().voltageSource('supply', 's0', GROUND, { dc: 1e-3 });
-  for (let k = 0; k < 15; k++) c.vcvs(`stage${k}`, [`s${k + 1}`, GROUND], [`s${k}`, GROUND], 10).resistor(`load${k}`, `s${k + 1}`, GROUND, '1k');
+  for (let k = 0; k < 15; k++)
+    c.vcvs(`stage${k}`, [`s${k + 1}`, GROUND], [`s${k}`, GROUND], 10).resistor(
+      `load${k}`,
+      `s${k + 1}`,
+      GROUND,
+      '1k',
+    );
   return c.resistor('back', 's15', 's0', 1);
 }
 
@@ -210,13 +237,32 @@ function highGainChain(): Circuit {
 export const HARD_CIRCUITS: readonly HardCircuit[] = [
   { name: 'three inverters at 2.40 V', build: () => inverterChain(3, 0, 2.4), expect: 'solves' },
   { name: 'three inverters at 2.45 V', build: () => inverterChain(3, 0, 2.45), expect: 'solves' },
-  { name: 'three inverters at 2.50 V (the switching point)', build: () => inverterChain(3, 0, 2.5), expect: 'solves' },
+  {
+    name: 'three inverters at 2.50 V (the switching point)',
+    build: () => inverterChain(3, 0, 2.5),
+    expect: 'solves',
+  },
   { name: 'ten inverters, λ = 0.05, at 0 V', build: () => inverterChain(10, 0.05, 0), expect: 'solves' },
   { name: '50 inverters, λ = 0, at 5 V', build: () => inverterChain(50, 0, 5), expect: 'solves' },
   { name: '200 inverters, λ = 0.02, at 0 V', build: () => inverterChain(200, 0.02, 0), expect: 'solves' },
-  { name: '500 inverters, λ = 0.05, at 0 V', build: () => inverterChain(500, 0.05, 0), expect: 'solves', slow: true },
-  { name: '1,000 inverters, λ = 0, at 0 V', build: () => inverterChain(1000, 0, 0), expect: 'solves', slow: true },
-  { name: '10,000 inverters, λ = 0, at 0 V', build: () => inverterChain(10000, 0, 0), expect: 'solves', slow: true },
+  {
+    name: '500 inverters, λ = 0.05, at 0 V',
+    build: () => inverterChain(500, 0.05, 0),
+    expect: 'solves',
+    slow: true,
+  },
+  {
+    name: '1,000 inverters, λ = 0, at 0 V',
+    build: () => inverterChain(1000, 0, 0),
+    expect: 'solves',
+    slow: true,
+  },
+  {
+    name: '10,000 inverters, λ = 0, at 0 V',
+    build: () => inverterChain(10000, 0, 0),
+    expect: 'solves',
+    slow: true,
+  },
   { name: 'ring of three inverters', build: () => inverterRing(3, 0.02), expect: 'solves' },
   { name: 'ring of 11 inverters', build: () => inverterRing(11, 0.02), expect: 'solves' },
   { name: 'ring of 101 inverters', build: () => inverterRing(101, 0.05), expect: 'solves' },
@@ -225,8 +271,16 @@ export const HARD_CIRCUITS: readonly HardCircuit[] = [
   { name: 'op-amp Schmitt trigger below its threshold', build: () => schmittTrigger(-1), expect: 'solves' },
   { name: 'op-amp Schmitt trigger above its threshold', build: () => schmittTrigger(1), expect: 'solves' },
   { name: 'emitter-coupled Schmitt trigger at 1 V', build: () => emitterCoupledSchmitt(1), expect: 'solves' },
-  { name: 'emitter-coupled Schmitt trigger at 2.5 V', build: () => emitterCoupledSchmitt(2.5), expect: 'solves' },
-  { name: 'self-biased reference without start-up', build: () => selfBiasedReference(false), expect: 'solves' },
+  {
+    name: 'emitter-coupled Schmitt trigger at 2.5 V',
+    build: () => emitterCoupledSchmitt(2.5),
+    expect: 'solves',
+  },
+  {
+    name: 'self-biased reference without start-up',
+    build: () => selfBiasedReference(false),
+    expect: 'solves',
+  },
   { name: 'self-biased reference with start-up', build: () => selfBiasedReference(true), expect: 'solves' },
   { name: 'bandgap core at 1:8', build: bandgapCore, expect: 'solves' },
   { name: 'Widlar mirror', build: widlarMirror, expect: 'solves' },
@@ -237,9 +291,24 @@ export const HARD_CIRCUITS: readonly HardCircuit[] = [
   { name: '100 diodes across 1 kV through 1 Ω', build: () => diodeString(100, 1000, 1), expect: 'solves' },
   { name: 'BJT ring of three stages', build: bjtRing, expect: 'solves' },
   { name: 'rectifier and diode clamp at mains peak', build: rectifierClamp, expect: 'solves' },
-  { name: 'diode string at 220 K', build: () => diodeString(20, 30, 1e3), expect: 'solves', temperature: 220 },
-  { name: 'diode string at 450 K', build: () => diodeString(20, 30, 1e3), expect: 'solves', temperature: 450 },
-  { name: 'inverter chain at 400 K', build: () => inverterChain(20, 0.02, 0), expect: 'solves', temperature: 400 },
+  {
+    name: 'diode string at 220 K',
+    build: () => diodeString(20, 30, 1e3),
+    expect: 'solves',
+    temperature: 220,
+  },
+  {
+    name: 'diode string at 450 K',
+    build: () => diodeString(20, 30, 1e3),
+    expect: 'solves',
+    temperature: 450,
+  },
+  {
+    name: 'inverter chain at 400 K',
+    build: () => inverterChain(20, 0.02, 0),
+    expect: 'solves',
+    temperature: 400,
+  },
   { name: 'follower behind a 1e-15 Ω link', build: tinyLinkFollower, expect: 'solves' },
   { name: 'vcvs driving its own control node', build: selfDrivenSource, expect: 'singular' },
   { name: '300 dB gain chain closed by 1 Ω', build: highGainChain, expect: 'singular' },

@@ -9,7 +9,11 @@ import { UNITS } from '../../src/values/units.js';
 
 /** Half a unit in the last of `digits` significant digits of v (common practice, no source). */
 function halfUnit(v: number, digits: number): number {
-  const exponent = Number(Math.abs(v).toExponential(digits - 1).split('e')[1]);
+  const exponent = Number(
+    Math.abs(v)
+      .toExponential(digits - 1)
+      .split('e')[1],
+  );
   return 0.5 * 10 ** (exponent - digits + 1);
 }
 
