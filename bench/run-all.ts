@@ -11,6 +11,7 @@ const BENCHMARKS: readonly (readonly string[])[] = [
   ['lu-families.ts'],
   ['operating-point.ts'],
   ['ac-analysis.ts'],
+  ['convergence.ts'],
 ];
 
 const here = dirname(fileURLToPath(import.meta.url));
