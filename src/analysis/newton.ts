@@ -218,16 +218,16 @@ const REFINEMENT_ROUNDS = 3;
  * single solve, and without refinement Newton reads that loss as an update that never settles.
  * Returns 0, or k+1 when column k found no pivot.
  */
-function trySolve(ws: NewtonWorkspace): number {
-  const status = ws.solver.factor(ws.A);
+function trySolve(ws: NewtonWorkspace, solver: RealLinearSolver = ws.solver): number {
+  const status = solver.factor(ws.A);
   if (status !== 0) return status;
   ws.previous.set(ws.x);
   ws.x.set(ws.b);
-  ws.solver.solve(ws.x);
+  solver.solve(ws.x);
   ws.x[ws.system.n] = 0;
   for (let round = 0; round < REFINEMENT_ROUNDS; round++) {
     if (!linearResidualLarge(ws)) break;
-    ws.solver.solve(ws.correction);
+    solver.solve(ws.correction);
     const x = ws.x;
     const c = ws.correction;
     for (let i = 0; i < ws.system.n; i++) x[i]! += c[i]!;
@@ -404,7 +404,10 @@ export function worstResidualExcess(ws: NewtonWorkspace, o: ResolvedOptions): nu
 /** Solve a linear system once (no Newton needed) and check its residual. */
 export function solveLinear(ws: NewtonWorkspace, o: ResolvedOptions): NewtonOutcome {
   loadAll(ws, 1, 0, true);
-  step(ws, 'at the operating point');
+  const status = trySolve(ws);
+  if (status !== 0) {
+    throw diagnoseSingular(ws.system, ws.A, status - 1, 'at the operating point');
+  }
   loadAll(ws, 1, 0, false);
   return { converged: residualWithin(ws, o) && ws.lastIterateFinite, iterations: 1 };
 }

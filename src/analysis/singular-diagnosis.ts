@@ -50,10 +50,24 @@ export function diagnoseSingular(
   const nodes = [...new Set(involved.filter((i) => i < n && system.labels[i]!.kind === 'node'))].map(
     (i) => system.labels[i]!.name,
   );
-  if (exact.factor(A) !== 0) return singularMatrix(elements, nodes, context);
+  if (exact.factor(A) !== 0) return singularMatrix(elements, nodes, context, valueRange(A, pattern.Ap[n]!));
   const condition = equilibratedCondition(system, A, exact);
-  if (!(condition > ILL_CONDITIONED)) return singularMatrix(elements, nodes, context);
+  if (!(condition > ILL_CONDITIONED))
+    return singularMatrix(elements, nodes, context, valueRange(A, pattern.Ap[n]!));
   return illConditioned({ elements, nodes, conditionEstimate: condition, context });
+}
+
+/** The ratio of the largest to the smallest non-zero |entry| among the first nnz entries of A. */
+function valueRange(A: Float64Array, nnz: number): number {
+  let largest = 0;
+  let smallest = Number.POSITIVE_INFINITY;
+  for (let p = 0; p < nnz; p++) {
+    const a = Math.abs(A[p]!);
+    if (a === 0) continue;
+    if (a > largest) largest = a;
+    if (a < smallest) smallest = a;
+  }
+  return largest === 0 ? 1 : largest / smallest;
 }
 
 /** The element names touching the given unknowns (rows or columns), each once, in order met. */

@@ -128,13 +128,23 @@ export function singularMatrix(
   elements: readonly string[],
   nodes: readonly string[],
   context: string,
+  valueRange?: number,
 ): QuiescentError {
   const parts: string[] = [];
   if (nodes.length > 0) parts.push(`node${nodes.length > 1 ? 's' : ''} ${listNames(nodes)}`);
   if (elements.length > 0) parts.push(`element${elements.length > 1 ? 's' : ''} ${listNames(elements)}`);
+  // Entries more than about 1e16 apart lose the smaller when added: the dependence may be rounding.
+  const hint =
+    valueRange !== undefined && valueRange > 1e15
+      ? `; the matrix entries span ${valueRange.toExponential(0)}, beyond the 16 digits of double precision, ` +
+        'so a conductance or gain that small beside one that large is lost when they are added: ' +
+        'the dependence may come from the values, not the topology'
+      : '';
   return new QuiescentError(
-    { code: 'singular', elements, nodes, reason: 'matrix' },
-    `the circuit equations have no unique solution ${context}; the trouble involves ${parts.join(' and ')}`,
+    valueRange === undefined
+      ? { code: 'singular', elements, nodes, reason: 'matrix' }
+      : { code: 'singular', elements, nodes, reason: 'matrix', valueRange },
+    `the circuit equations have no unique solution ${context}; the trouble involves ${parts.join(' and ')}${hint}`,
   );
 }
 

@@ -93,6 +93,8 @@ export type ErrorDetails =
       readonly reason: 'voltage-loop' | 'current-cut-set' | 'matrix' | 'structural' | 'ill-conditioned';
       /** For `'ill-conditioned'`: the estimated 1-norm condition number of the row-equilibrated equations. */
       readonly conditionEstimate?: number;
+      /** For `'matrix'` found while solving: the ratio of the largest to the smallest non-zero matrix entry. */
+      readonly valueRange?: number;
     }
   | {
       /** The operating point could not be found. */

@@ -6,6 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { Circuit, GROUND, operatingPoint, QuiescentError } from '../../src/index.js';
 import { inverterChain } from '../support/hard-circuits.js';
+import { worstKcl } from '../support/kcl.js';
 
 function thrown(run: () => unknown): QuiescentError {
   try {
@@ -73,16 +74,46 @@ describe('no-convergence', () => {
 });
 
 describe('iterative refinement', () => {
-  it('solves an op-amp follower behind a 1e-15 Ω link', () => {
-    // A 1e15 S conductance beside unit entries loses most digits of one solve; refinement recovers them.
+  it('solves an op-amp follower behind a 1e-15 Ω link, checked by KCL from outside the solver', () => {
     const circuit = new Circuit()
       .voltageSource('reference', 'in', GROUND, { dc: 1.25 })
       .resistor('link', 'in', 'x', 1e-15)
       .opAmp('buffer', { plus: 'x', minus: 'out', output: 'out' })
       .resistor('load', 'out', GROUND, '1k');
     const op = operatingPoint(circuit);
+    const w = worstKcl(circuit, op, 1e-6);
+    expect(Math.abs(w.imbalance)).toBeLessThanOrEqual(1e-6 * w.scale + 1e-12);
     // An ideal follower copies its input (common practice, no source): 1.25 V across 1 kΩ.
     expect(op.voltage('out')).toBeCloseTo(1.25, 12);
     expect(op.current('load')).toBeCloseTo(1.25e-3, 15);
+  });
+
+  it('calls an inverting amplifier with a 1e-15 Ω input resistor ill-conditioned, not structurally singular', () => {
+    // 1e15 S and 1e-3 S meet at the summing node: row-scaled, 1e-18 of the row is all that fixes
+    // the output, beyond the 16 digits of double precision.
+    const circuit = new Circuit()
+      .voltageSource('reference', 'in', GROUND, { dc: 1 })
+      .resistor('input', 'in', 'sum', 1e-15)
+      .opAmp('U1', { plus: GROUND, minus: 'sum', output: 'out' })
+      .resistor('feedback', 'out', 'sum', '1k');
+    const e = thrown(() => operatingPoint(circuit));
+    if (e.details.code !== 'singular') throw new Error(`expected singular, got ${e.code}`);
+    expect(e.details.reason).toBe('ill-conditioned');
+    expect(e.details.conditionEstimate).toBeGreaterThan(1e13);
+  });
+
+  it('says when values too far apart in size made the equations dependent', () => {
+    // 1e15 S beside 1e-3 S: the sum is 1e15 exactly in double precision, and the 1 kΩ is lost.
+    const circuit = new Circuit()
+      .voltageSource('reference', 'in', GROUND, { dc: 1 })
+      .resistor('source', 'in', 'p', '1k')
+      .resistor('bridge', 'p', 'm', 1e-15)
+      .opAmp('U1', { plus: 'p', minus: 'm', output: 'out' })
+      .resistor('feedback', 'out', 'm', '1k')
+      .resistor('load', 'out', GROUND, '1k');
+    const e = thrown(() => operatingPoint(circuit));
+    if (e.details.code !== 'singular') throw new Error(`expected singular, got ${e.code}`);
+    expect(e.details.valueRange).toBeGreaterThan(1e17);
+    expect(e.message).toContain('beyond the 16 digits of double precision');
   });
 });
