@@ -273,12 +273,6 @@ function allFiniteIn(v: Float64Array, n: number): boolean {
   return true;
 }
 
-/** {@link trySolve}, throwing `singular` (with `context`, diagnosed) where it found no pivot. */
-function step(ws: NewtonWorkspace, context: string): void {
-  const status = trySolve(ws);
-  if (status !== 0) throw diagnoseSingular(ws.system, ws.A, status - 1, context);
-}
-
 /**
  * Load the full circuit's Jacobian at `x` (after {@link prepareWorkspace}) and factor it; returns
  * whether it factored. For analyses of a solved point (the cautions' feedback test).
@@ -405,9 +399,7 @@ export function worstResidualExcess(ws: NewtonWorkspace, o: ResolvedOptions): nu
 export function solveLinear(ws: NewtonWorkspace, o: ResolvedOptions): NewtonOutcome {
   loadAll(ws, 1, 0, true);
   const status = trySolve(ws);
-  if (status !== 0) {
-    throw diagnoseSingular(ws.system, ws.A, status - 1, 'at the operating point');
-  }
+  if (status !== 0) throw diagnoseSingular(ws.system, ws.A, status - 1, 'at the operating point');
   loadAll(ws, 1, 0, false);
   return { converged: residualWithin(ws, o) && ws.lastIterateFinite, iterations: 1 };
 }
