@@ -214,8 +214,8 @@ const REFINEMENT_ROUNDS = 3;
  * Factor and solve in place: previous ← x, x ← A⁻¹b, then refine: while the residual b − A·x of the
  * linear solve is above what rounding allows, solve for a correction with the same factors and add
  * it (iterative refinement; Higham, "Accuracy and Stability of Numerical Algorithms", 2nd ed. 2002,
- * ch. 12). A conductance of 1e15 S beside a unit gain, or a gain of 1e15, loses most digits of a
- * single solve, and without refinement Newton reads that loss as an update that never settles.
+ * ch. 12): it recovers digits lost to pivot growth, which Newton would otherwise read as an update
+ * that never settles (it cannot recover digits the stored equations already lost).
  * Returns 0, or k+1 when column k found no pivot.
  */
 function trySolve(ws: NewtonWorkspace, solver: RealLinearSolver = ws.solver): number {
