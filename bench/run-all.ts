@@ -16,6 +16,7 @@ const BENCHMARKS: readonly (readonly string[])[] = [
   ['noise.ts'],
   ['linearity.ts'],
   ['stability.ts'],
+  ['convergence.ts'],
 ];
 
 const here = dirname(fileURLToPath(import.meta.url));

@@ -14,6 +14,12 @@ export {
   type Probe,
 } from './analysis/ac-analysis.js';
 export {
+  AMPLIFIER_INPUT_LIMIT,
+  type Caution,
+  type CautionCode,
+  REVERSE_BREAKDOWN_LIMIT,
+} from './analysis/cautions.js';
+export {
   DcSweep,
   type DcSweepOptions,
   dcSweep,
@@ -30,7 +36,7 @@ export {
   type DistortionPoint,
   distortion,
 } from './analysis/distortion.js';
-export { linearSweep, logSweep } from './analysis/frequency-grid.js';
+export { linearSweep, logSweep, MAX_FREQUENCY, MAX_GRID_POINTS } from './analysis/frequency-grid.js';
 export { type HeldReactive, holdReactive } from './analysis/held-reactive.js';
 export {
   type Intermodulation,

@@ -12,10 +12,11 @@ import { acAnalysisHtml, bodePlot } from '../report/result-html.js';
 import { type AcAnalysisJson, acAnalysisToJson } from '../report/result-json.js';
 import { type MimeBundle, NOTEBOOK_DISPLAY, type RichOutput } from '../report/rich-output.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { requireInstance } from './arguments.js';
 import { currentReader, type ProbeReader, probeReader, voltageReader } from './distortion-probe.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { checkAscending, crossings, decibels, unwrappedPhase } from './frequency-response.js';
-import { nodeAt, type OperatingPoint } from './operating-point.js';
+import { nodeAt, OperatingPoint } from './operating-point.js';
 import {
   type PassBand,
   type PassBandOptions,
@@ -301,6 +302,7 @@ const ROUNDING_MARGIN = 64;
  * ```
  */
 export function acAnalysis(op: OperatingPoint, options: AcAnalysisOptions): AcAnalysis {
+  requireInstance(op, OperatingPoint, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))');
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the frequencies to analyse');
   }

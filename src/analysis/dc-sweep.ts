@@ -11,6 +11,7 @@ import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
 import { type DcSweepJson, dcSweepToJson } from '../report/result-json.js';
+import { requireCircuit } from './arguments.js';
 import { parameterVariant } from './element-parameters.js';
 import {
   conditionsAt,
@@ -147,6 +148,7 @@ export class DcSweep {
  * ```
  */
 export function dcSweep(circuit: Circuit, options: DcSweepOptions): DcSweep {
+  requireCircuit(circuit);
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object naming what to sweep');
   }
@@ -198,8 +200,10 @@ function checkedValues(values: unknown, key: string, check?: (v: number, k: numb
 function pointOptions(options: object): OperatingPointOptions {
   const out: Record<string, unknown> = {};
   for (const [key, value] of Object.entries(options)) {
-    // A number under `temperature` is the fixed temperature of a source or parameter sweep.
-    if (!SWEEP_KEYS.has(key) || (key === 'temperature' && typeof value === 'number')) out[key] = value;
+    // Anything under `temperature` but a list is the fixed temperature of a source or parameter
+    // sweep, and is checked as such (a string or null is rejected, not replaced by the default).
+    const temperatureList = Array.isArray(value) || value instanceof Float64Array;
+    if (!SWEEP_KEYS.has(key) || (key === 'temperature' && !temperatureList)) out[key] = value;
   }
   return out as OperatingPointOptions;
 }

@@ -48,8 +48,9 @@ import { Complex } from 'complex.js';
 import type { ElementKind } from '../circuit/elements.js';
 import type { JunctionProbe } from '../devices/device.js';
 import { invalidValue } from '../errors/messages.js';
-import type { AcAnalysis, Probe } from './ac-analysis.js';
+import { AcAnalysis, type Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { requireInstance } from './arguments.js';
 import { describeProbe, type ProbeReader, probeReader } from './distortion-probe.js';
 import {
   ControlPhasors,
@@ -440,6 +441,7 @@ export class HarmonicEstimator {
  * ```
  */
 export function distortion(ac: AcAnalysis, options: DistortionOptions): DistortionEstimate {
+  requireInstance(ac, AcAnalysis, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))');
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output to estimate');
   }

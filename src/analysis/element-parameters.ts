@@ -42,10 +42,13 @@ const RANGE_WORDS = {
  * the builder does. Throws `invalid-value` naming the element when it has no such parameter.
  */
 export function parameterVariant(record: ElementRecord, parameter: string): (value: number) => ElementRecord {
-  const scalars = SCALAR_PARAMETERS[record.kind];
+  if (typeof parameter !== 'string')
+    throw invalidValue(['options', 'parameter'], parameter, 'a parameter name');
+  // Own properties only: 'toString', 'constructor' or '__proto__' must not find Object's members.
+  const scalars = Object.hasOwn(SCALAR_PARAMETERS, record.kind) ? SCALAR_PARAMETERS[record.kind] : undefined;
   const path = [record.name, parameter];
   if (scalars !== undefined) {
-    const range = scalars[parameter];
+    const range = Object.hasOwn(scalars, parameter) ? scalars[parameter] : undefined;
     if (range === undefined) throw noSuchParameter(record, parameter, Object.keys(scalars));
     return (value) => {
       const ok = range === 'positive' ? value > 0 : range === 'non-negative' ? value >= 0 : true;

@@ -13,8 +13,11 @@
  *   source, close a cut set of current sources; it stays a short. An inductor that controls a
  *   current-controlled source stays a short too, since a current source carries no current unknown.
  */
+
 import { type ElementRecord, GROUND } from '../circuit/elements.js';
-import type { OperatingPoint } from './operating-point.js';
+import { wrongArgument } from '../errors/messages.js';
+import { requireInstance } from './arguments.js';
+import { OperatingPoint } from './operating-point.js';
 
 /** Node names numbered on first sight, joined in a disjoint-set forest. */
 class NodeSets {
@@ -107,6 +110,13 @@ export interface HeldReactive {
  * @param op - its operating point (the values held)
  */
 export function holdReactive(records: readonly ElementRecord[], op: OperatingPoint): HeldReactive {
+  if (
+    !Array.isArray(records) ||
+    !records.every((r) => r !== null && typeof r === 'object' && typeof r.kind === 'string')
+  ) {
+    throw wrongArgument('records', records, 'the element records of a circuit (circuit.elements)');
+  }
+  requireInstance(op, OperatingPoint, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))');
   const voltages = new NodeSets();
   for (const e of records) {
     const pair = imposedVoltage(e);

@@ -39,7 +39,8 @@ import {
 } from '../math/junction-nonlinearity.js';
 import { taylorAmplitudeForBound, taylorNonlinearity } from '../math/taylor-nonlinearity.js';
 import { type LinearityReportJson, linearityToJson } from '../report/result-json.js';
-import type { AcAnalysis, Probe } from './ac-analysis.js';
+import { AcAnalysis, type Probe } from './ac-analysis.js';
+import { requireInstance } from './arguments.js';
 import { HarmonicEstimator, ratio, relativeReal } from './distortion.js';
 import { describeProbe } from './distortion-probe.js';
 import { forwardBias } from './junction-bias.js';
@@ -127,13 +128,19 @@ export interface JunctionLinearity {
   readonly scale: number;
   /** x = amplitude/scale. */
   readonly normalized: number;
-  /** Bound on the first-order Taylor remainder relative to the linear term: (x/2)·e^x, or x/2. */
+  /**
+   * Bound on the first-order Taylor remainder relative to the linear term: (x/2)·e^x, or x/2.
+   * Infinity when x is beyond about 700 (e^x overflows): the signal is then nowhere near small.
+   */
   readonly errorBound: number;
   /** 2nd-harmonic amplitude of the junction's current relative to its fundamental: I₂(x)/I₁(x), or x/4. */
   readonly secondHarmonic: number;
   /** 3rd-harmonic amplitude of the junction's current relative to its fundamental: I₃(x)/I₁(x), or 0. */
   readonly thirdHarmonic: number;
-  /** Rise of the junction's mean current relative to its quiescent current: I₀(x) − 1, or x²/2. */
+  /**
+   * Rise of the junction's mean current relative to its quiescent current: I₀(x) − 1, or x²/2;
+   * Infinity when x is beyond about 700 (I₀ overflows).
+   */
   readonly meanShift: number;
   /** Whether `errorBound` ≤ the budget. */
   readonly withinBudget: boolean;
@@ -208,6 +215,7 @@ function checkBudget(budget: unknown): number {
  * ```
  */
 export function linearity(ac: AcAnalysis, options: LinearityOptions = {}): LinearityReport {
+  requireInstance(ac, AcAnalysis, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))');
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object such as { output: "out", budget: 0.1 }');
   }

@@ -7,10 +7,12 @@
  * Up to {@link DENSE_LIMIT} unknowns every root is found densely; `near` and `limit` ask for the
  * `limit` roots nearest j·2π·near at any size, by shift and invert on the sparse LU above it.
  */
+
 import { invalidValue } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
 import type { Probe } from './ac-analysis.js';
-import type { OperatingPoint } from './operating-point.js';
+import { requireInstance, requireOptions } from './arguments.js';
+import { OperatingPoint } from './operating-point.js';
 import { borderedPencil, circuitPencil, type Pencil } from './pencil.js';
 import { denseRoots, type RootValue } from './pencil-roots-dense.js';
 import { sparseRootsNear } from './pencil-roots-sparse.js';
@@ -137,6 +139,8 @@ function rootsOf(pencil: Pencil, options: PolesOptions, singular: () => Quiescen
  * ```
  */
 export function poles(op: OperatingPoint, options: PolesOptions = {}): Root[] {
+  requireInstance(op, OperatingPoint, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))');
+  requireOptions(options);
   const pencil = circuitPencil(op);
   return rootsOf(
     pencil,
@@ -162,6 +166,8 @@ export function poles(op: OperatingPoint, options: PolesOptions = {}): Root[] {
  *   unreadable output, or a transfer that is zero at every frequency
  */
 export function zeros(op: OperatingPoint, options: ZerosOptions): Root[] {
+  requireInstance(op, OperatingPoint, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))');
+  requireOptions(options, 'options', false);
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output and the input');
   }

@@ -4,9 +4,10 @@
  */
 import type { Conditions, DcLoadContext, Device } from '../devices/device.js';
 import { singularMatrix } from '../errors/messages.js';
-import { createRealSolver, type SparseRealSolver } from '../linalg/index.js';
+import { createRealSolver, type RealLinearSolver, type SparseRealSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import type { ResolvedOptions } from './options.js';
+import { diagnoseSingular } from './singular-diagnosis.js';
 
 /** Arrays and the solver of one compiled system, reused by every Newton run on it. */
 export class NewtonWorkspace {
@@ -16,6 +17,13 @@ export class NewtonWorkspace {
   readonly b: Float64Array;
   readonly residual: Float64Array;
   readonly rowScale: Float64Array;
+  /**
+   * The node voltages a pseudo-transient step starts from: with `anchored` loads, the conductance
+   * added to every node pulls it towards its anchor instead of towards ground.
+   */
+  readonly anchor: Float64Array;
+  /** The residual of a linear solve and then its correction (iterative refinement). */
+  readonly correction: Float64Array;
   readonly solver: SparseRealSolver;
   readonly context: DcLoadContext;
   /**
@@ -35,6 +43,8 @@ export class NewtonWorkspace {
   lastResidualNorm = Number.POSITIVE_INFINITY;
   /** Whether every unknown of x was finite at the last residual pass (checked while reading x). */
   lastIterateFinite = true;
+  /** How many rows were within tolerance at the last residual pass (a measure of progress). */
+  lastRowsWithin = 0;
 
   constructor(system: CompiledSystem) {
     this.system = system;
@@ -45,6 +55,8 @@ export class NewtonWorkspace {
     this.b = new Float64Array(n + 1);
     this.residual = new Float64Array(n + 1);
     this.rowScale = new Float64Array(n + 1);
+    this.anchor = new Float64Array(n + 1);
+    this.correction = new Float64Array(n + 1);
     // One ordering per topology: a later workspace on the same pattern starts from the first's.
     const symbolic = system.ordering.symbolic;
     this.solver = createRealSolver(system.pattern, symbolic === null ? {} : { symbolic });
@@ -116,11 +128,18 @@ export function prepareWorkspace(ws: NewtonWorkspace, conditions: Conditions): v
 }
 
 /**
- * Load every device at ws.x, plus a conductance `shunt` from every node to ground: the linear part
- * is copied (its right-hand side scaled by `sourceScale`, which linear devices are proportional to),
- * and only the nonlinear devices are evaluated.
+ * Load every device at ws.x, plus a conductance `shunt` from every node to ground (to its anchor
+ * voltage when `anchored`: the companion of a capacitor after one backward-Euler step): the linear
+ * part is copied (its right-hand side scaled by `sourceScale`, which linear devices are proportional
+ * to), and only the nonlinear devices are evaluated.
  */
-function loadAll(ws: NewtonWorkspace, sourceScale: number, shunt: number, first: boolean): boolean {
+function loadAll(
+  ws: NewtonWorkspace,
+  sourceScale: number,
+  shunt: number,
+  first: boolean,
+  anchored = false,
+): boolean {
   const ctx = ws.context as { -readonly [K in keyof DcLoadContext]: DcLoadContext[K] };
   ws.A.set(ws.linearA);
   const { b, linearB } = ws;
@@ -135,6 +154,10 @@ function loadAll(ws: NewtonWorkspace, sourceScale: number, shunt: number, first:
   if (shunt > 0) {
     const diag = ws.system.nodeDiagonal;
     for (let k = 0; k < diag.length; k++) ws.A[diag[k]!]! += shunt;
+    if (anchored) {
+      const anchor = ws.anchor;
+      for (let k = 0; k < diag.length; k++) b[k]! += shunt * anchor[k]!;
+    }
   }
   return ctx.limited;
 }
@@ -169,23 +192,24 @@ function residualWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
   }
   ws.lastIterateFinite = finite;
   const rel = o.relativeTolerance;
-  let ok = true;
+  let outside = 0;
   let norm = 0;
   // Node rows are currents, branch rows voltages: two loops instead of a test per row.
   const currentTolerance = o.currentTolerance;
   for (let i = 0; i < nodeCount; i++) {
     const ri = Math.abs(r[i]!);
-    if (!(ri <= rel * rowScale[i]! + currentTolerance)) ok = false;
+    if (!(ri <= rel * rowScale[i]! + currentTolerance)) outside++;
     if (ri > norm || Number.isNaN(ri)) norm = ri;
   }
   const voltageTolerance = o.voltageTolerance;
   for (let i = nodeCount; i < n; i++) {
     const ri = Math.abs(r[i]!);
-    if (!(ri <= rel * rowScale[i]! + voltageTolerance)) ok = false;
+    if (!(ri <= rel * rowScale[i]! + voltageTolerance)) outside++;
     if (ri > norm || Number.isNaN(ri)) norm = ri;
   }
   ws.lastResidualNorm = norm;
-  return ok;
+  ws.lastRowsWithin = n - outside;
+  return outside === 0;
 }
 
 /** Whether the update from `previous` to `x` is within tolerance in every unknown. */
@@ -216,22 +240,90 @@ function updateWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
   return ok;
 }
 
-/** Factor and solve in place: previous ← x, x ← A⁻¹b. Returns 0, or k+1 when column k found no pivot. */
-function trySolve(ws: NewtonWorkspace): number {
-  const status = ws.solver.factor(ws.A);
+/** Rounds of iterative refinement allowed to one linear solve. */
+const REFINEMENT_ROUNDS = 3;
+
+/**
+ * Factor and solve in place: previous ← x, x ← A⁻¹b, then refine: while the residual b − A·x of the
+ * linear solve is above what rounding allows, solve for a correction with the same factors and add
+ * it (iterative refinement; Higham, "Accuracy and Stability of Numerical Algorithms", 2nd ed. 2002,
+ * ch. 12): it recovers digits lost to pivot growth, which Newton would otherwise read as an update
+ * that never settles (it cannot recover digits the stored equations already lost).
+ * Returns 0, or k+1 when column k found no pivot.
+ */
+function trySolve(ws: NewtonWorkspace, solver: RealLinearSolver = ws.solver): number {
+  const status = solver.factor(ws.A);
   if (status !== 0) return status;
   ws.system.ordering.symbolic ??= ws.solver.symbolic;
   ws.previous.set(ws.x);
   ws.x.set(ws.b);
-  ws.solver.solve(ws.x);
+  solver.solve(ws.x);
   ws.x[ws.system.n] = 0;
+  for (let round = 0; round < REFINEMENT_ROUNDS; round++) {
+    if (!linearResidualLarge(ws)) break;
+    solver.solve(ws.correction);
+    const x = ws.x;
+    const c = ws.correction;
+    for (let i = 0; i < ws.system.n; i++) x[i]! += c[i]!;
+  }
   return 0;
 }
 
-/** {@link trySolve}, throwing `singular` (with `context`) where it found no pivot. */
-function step(ws: NewtonWorkspace, context: string): void {
-  const status = trySolve(ws);
-  if (status !== 0) throw singularAt(ws.system, status - 1, context);
+/**
+ * Put b − A·x in ws.correction and tell whether any row of it exceeds 64 ulps of that row's
+ * Σ|A_ij·x_j| + |b_i| (the size of rounding in an accurate solve, with a margin).
+ */
+function linearResidualLarge(ws: NewtonWorkspace): boolean {
+  const { n, pattern } = ws.system;
+  const { Ap, Ai } = pattern;
+  const { A, b, x, correction: r, rowScale } = ws;
+  for (let i = 0; i < n; i++) {
+    r[i] = b[i]!;
+    rowScale[i] = Math.abs(b[i]!);
+  }
+  let begin = Ap[0]!;
+  for (let j = 0; j < n; j++) {
+    const xj = x[j]!;
+    const end = Ap[j + 1]!;
+    for (let p = begin; p < end; p++) {
+      const term = A[p]! * xj;
+      const i = Ai[p]!;
+      r[i]! -= term;
+      rowScale[i]! += Math.abs(term);
+    }
+    begin = end;
+  }
+  let large = false;
+  for (let i = 0; i < n; i++) {
+    // A non-finite residual is left to the caller's finiteness test: refinement cannot repair it.
+    if (Math.abs(r[i]!) > 64 * Number.EPSILON * rowScale[i]!) large = true;
+  }
+  r[n] = 0;
+  return large && allFiniteIn(r, n);
+}
+
+function allFiniteIn(v: Float64Array, n: number): boolean {
+  for (let i = 0; i < n; i++) if (!Number.isFinite(v[i]!)) return false;
+  return true;
+}
+
+/**
+ * Load the full circuit's Jacobian at `x` (after {@link prepareWorkspace}) and factor it; returns
+ * whether it factored. For analyses of a solved point (the cautions' feedback test).
+ */
+export function loadJacobianAt(ws: NewtonWorkspace, x: Float64Array): boolean {
+  ws.x.set(x);
+  loadAll(ws, 1, 0, true);
+  return ws.solver.factor(ws.A) === 0;
+}
+
+/**
+ * The diagnosed `singular` error for the circuit as given (full sources, no added conductance),
+ * loaded at ws.x, where a factorization found no pivot for unknown k.
+ */
+export function singularCircuit(ws: NewtonWorkspace, k: number, context: string) {
+  loadAll(ws, 1, 0, true);
+  return diagnoseSingular(ws.system, ws.A, k, context);
 }
 
 /** The `singular` error for unknown k: its node or branch, and the elements that touch it. */
@@ -243,10 +335,19 @@ export function singularAt(system: CompiledSystem, k: number, context: string) {
 }
 
 /**
+ * How far a Newton run may go past its budget while it is making progress: up to this many budgets
+ * per hundred unknowns (at least one more), so that a long chain whose stages settle one after
+ * another is not cut short, while a run that is going nowhere still stops at its budget.
+ */
+const EXTENSIONS_PER_HUNDRED_UNKNOWNS = 1;
+
+/**
  * Run Newton from ws.x with sources scaled by `sourceScale` and `shunt` siemens from every node to
- * ground. Converged means: the last load was taken at x itself (no junction step limited), every
- * KCL and branch residual there is within tolerance, and the update that led to x was too.
- * A step that makes the residual grow is halved (up to four times) before it is accepted.
+ * ground (to ws.anchor when `anchored`). Converged means: the last load was taken at x itself (no
+ * junction step limited), every KCL and branch residual there is within tolerance, and the update
+ * that led to x was too. A step that makes the residual grow is halved (up to four times) before it
+ * is accepted. Unless the user fixed the budget, `maxIterations` is extended, one budget at a time,
+ * while the last budget brought more rows within tolerance or halved the best residual.
  */
 export function runNewton(
   ws: NewtonWorkspace,
@@ -254,33 +355,51 @@ export function runNewton(
   sourceScale: number,
   shunt: number,
   maxIterations: number,
+  anchored = false,
 ): NewtonOutcome {
   const n = ws.system.n;
   let updateOk = false;
   let bestResidual = Number.POSITIVE_INFINITY;
   let halvings = 0;
-  for (let iteration = 0; iteration <= maxIterations; iteration++) {
-    const limited = loadAll(ws, sourceScale, shunt, iteration === 0);
+  let limit = maxIterations;
+  const extensions = Math.max(1, Math.ceil((EXTENSIONS_PER_HUNDRED_UNKNOWNS * n) / 100));
+  const cap = o.growIterations ? maxIterations * (1 + extensions) : maxIterations;
+  let checkpointResidual = Number.POSITIVE_INFINITY;
+  let checkpointRows = 0;
+  let mostRows = 0;
+  for (let iteration = 0; ; iteration++) {
+    const limited = loadAll(ws, sourceScale, shunt, iteration === 0, anchored);
     const residualOk = residualWithin(ws, o);
     if (!ws.lastIterateFinite) return { converged: false, iterations: iteration };
     if (iteration > 0 && !limited && updateOk && residualOk)
       return { converged: true, iterations: iteration };
-    // Global damping: go halfway back along a step that made an unlimited residual grow.
-    if (iteration > 1 && !limited && ws.lastResidualNorm > bestResidual && halvings < 4) {
+    if (ws.lastRowsWithin > mostRows) mostRows = ws.lastRowsWithin;
+    // Global damping: go halfway back along a step that made an unlimited residual grow (a
+    // residual already within tolerance is left alone: only the update test is pending there).
+    const grew = !limited && !residualOk && ws.lastResidualNorm > bestResidual;
+    if (iteration > 1 && grew && halvings < 4 && iteration < limit) {
       halvings++;
       for (let i = 0; i < n; i++) ws.x[i] = 0.5 * (ws.x[i]! + ws.previous[i]!);
       continue;
     }
+    // A step kept after four halvings becomes the new reference, or the next step would be halved
+    // back towards it again and the run would cycle.
+    if (halvings === 4) bestResidual = ws.lastResidualNorm;
     halvings = 0;
     if (!limited) bestResidual = Math.min(bestResidual, ws.lastResidualNorm);
-    if (iteration === maxIterations) break;
+    if (iteration >= limit) {
+      const progress = mostRows > checkpointRows || bestResidual < 0.5 * checkpointResidual;
+      if (!progress || limit >= cap) return { converged: false, iterations: iteration };
+      checkpointRows = mostRows;
+      checkpointResidual = bestResidual;
+      limit += maxIterations;
+    }
     // A Jacobian that is singular at some iterate (two series junctions both far into conduction,
     // say) ends this run, not the search: the caller's next strategy may avoid that iterate.
     const status = trySolve(ws);
     if (status !== 0) return { converged: false, iterations: iteration, singularAt: status - 1 };
     updateOk = updateWithin(ws, o);
   }
-  return { converged: false, iterations: maxIterations };
 }
 
 /**
@@ -313,7 +432,8 @@ export function worstResidualExcess(ws: NewtonWorkspace, o: ResolvedOptions): nu
 /** Solve a linear system once (no Newton needed) and check its residual. */
 export function solveLinear(ws: NewtonWorkspace, o: ResolvedOptions): NewtonOutcome {
   loadAll(ws, 1, 0, true);
-  step(ws, 'at the operating point');
+  const status = trySolve(ws);
+  if (status !== 0) throw diagnoseSingular(ws.system, ws.A, status - 1, 'at the operating point');
   loadAll(ws, 1, 0, false);
   return { converged: residualWithin(ws, o) && ws.lastIterateFinite, iterations: 1 };
 }

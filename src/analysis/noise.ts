@@ -11,9 +11,10 @@ import { invalidValue, unknownElement } from '../errors/messages.js';
 import { type NoiseJson, noiseToJson } from '../report/noise-json.js';
 import type { Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { requireInstance, requireOptions } from './arguments.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { integratePsd } from './noise-integral.js';
-import type { OperatingPoint } from './operating-point.js';
+import { OperatingPoint } from './operating-point.js';
 import { OutputFunctional } from './output-functional.js';
 
 /** Options of {@link noise}. */
@@ -220,6 +221,8 @@ function sourceResistorGenerator(table: GeneratorTable, op: OperatingPoint, name
  * ```
  */
 export function noise(op: OperatingPoint, options: NoiseOptions): Noise {
+  requireInstance(op, OperatingPoint, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))');
+  requireOptions(options, 'options', false);
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output and the frequencies');
   }

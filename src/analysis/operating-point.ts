@@ -4,7 +4,7 @@
  */
 import { GROUND } from '../circuit/elements.js';
 import type { Conditions } from '../devices/device.js';
-import { EXP_LIMIT, thermalVoltage } from '../devices/junction.js';
+import { thermalVoltage } from '../devices/junction.js';
 import { noConvergence, unknownElement, unknownNode } from '../errors/messages.js';
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
 import type { CompiledSystem } from '../mna/system.js';
@@ -12,16 +12,15 @@ import { type OperatingPointJson, operatingPointToJson } from '../report/operati
 import { operatingPointHtml } from '../report/result-html.js';
 import { type MimeBundle, NOTEBOOK_DISPLAY, type RichOutput } from '../report/rich-output.js';
 import type { ReportOptions } from '../report/table.js';
-import { forwardBias } from './junction-bias.js';
+import { type Caution, cautionsOf } from './cautions.js';
 import {
   measureResidual,
   type NewtonOutcome,
   type NewtonWorkspace,
-  prepareDevices,
   prepareWorkspace,
   residualExcess,
   runNewton,
-  singularAt,
+  singularCircuit,
   solveLinear,
   worstResidualExcess,
 } from './newton.js';
@@ -42,6 +41,7 @@ export class OperatingPoint {
   readonly strategy: string;
   /** Every strategy tried, in order, with its iterations. */
   readonly attempts: readonly StrategyAttempt[];
+  #cautions: readonly Caution[] | undefined;
 
   /** @internal Built by {@link operatingPoint} and the sweeps. */
   constructor(
@@ -122,39 +122,21 @@ export class OperatingPoint {
   }
 
   /**
-   * Cautions about the solution, empty for a circuit solved within its models. An op-amp held at an
-   * output limit is named (its `region` is `'limited-high'` or `'limited-low'`). A junction forward-biased
-   * beyond v/(n·Vt) = 80 (about 2 V for n = 1) lies where the exponential is continued linearly to keep
-   * the equations finite: its current follows that continuation, not the Shockley law, which usually
-   * means a source forced straight across a junction with nothing to limit the current.
+   * Cautions about the solution as data (code, element or node, the figure that triggered it, and a
+   * sentence), empty for a circuit solved within its models: a junction beyond the exponential's
+   * limit or reverse-biased beyond any physical breakdown, a node with a single connection, an
+   * op-amp in positive feedback, with its inputs far apart or held at an output limit (docs/cautions.md).
    */
+  get cautions(): readonly Caution[] {
+    this.#cautions ??= Object.freeze(
+      cautionsOf(this.system, this.x, this.conditions).map((c) => Object.freeze(c)),
+    );
+    return this.#cautions;
+  }
+
+  /** The {@link OperatingPoint.cautions} in words, one sentence each. */
   get warnings(): readonly string[] {
-    const out: string[] = [];
-    prepareDevices(this.system, this.conditions);
-    for (const device of this.system.devices) {
-      if (device.record.kind === 'op-amp') {
-        // The limiter's slope below one half: the output no longer follows the inputs.
-        const region = device.report?.(this.x).region;
-        if (region === 'limited-high' || region === 'limited-low') {
-          const limit = region === 'limited-high' ? 'upper' : 'lower';
-          out.push(
-            `op-amp '${device.name}' is held at its ${limit} output limit (${region}): its output no longer follows its inputs`,
-          );
-        }
-      }
-      for (const probe of device.junctions?.(this.x) ?? []) {
-        if (probe.junction === 'channel') continue;
-        // Channels were skipped above, so of the mirrored devices only a pnp reaches here.
-        const exponent = forwardBias(device.record, probe, this.x) / probe.scale;
-        if (exponent > EXP_LIMIT) {
-          out.push(
-            `${probe.junction} junction of '${device.name}' at ${exponent.toFixed(0)}·n·Vt, beyond the ` +
-              `exponential's limit of ${EXP_LIMIT}·n·Vt: its current follows the linear continuation, not the Shockley law`,
-          );
-        }
-      }
-    }
-    return out;
+    return this.cautions.map((c) => c.message);
   }
 
   /**
@@ -250,7 +232,8 @@ export function solveFromCurrent(solver: Solver, conditions: Conditions): Operat
   }
   // A matrix singular in every attempt is a property of the circuit, not of the search.
   if (singularEverywhere && firstSingular !== undefined) {
-    throw singularAt(system, firstSingular, 'at the operating point');
+    ws.x.set(start);
+    throw singularCircuit(ws, firstSingular, 'at the operating point');
   }
   ws.x.set(closest);
   throw failure(solver, attempts);
@@ -334,7 +317,75 @@ const STRATEGIES: readonly Strategy[] = [
       return { converged: true, iterations };
     },
   },
+  {
+    name: 'pseudo-transient',
+    run: pseudoTransient,
+  },
 ];
+
+/** Largest and smallest conductance per node of the pseudo-transient steps, in S. */
+const PSEUDO_TRANSIENT_START = 1e-2;
+const PSEUDO_TRANSIENT_GIVE_UP = 1e3;
+/** Below this conductance per node the steps are long enough to try the circuit as given. */
+const PSEUDO_TRANSIENT_FINISH = 1e-12;
+
+/**
+ * Pseudo-transient continuation (Kelley & Keyes, "Convergence analysis of pseudo-transient
+ * continuation", SIAM J. Numer. Anal. 35, 1998): a capacitor C from every node to ground, and the
+ * circuit stepped in time with backward Euler from the start, so that each step solves the circuit
+ * plus a conductance g = C/h from every node to its voltage at the last step. Unlike conductance
+ * stepping, whose conductances pull every node to 0 V and whose path can fold back on a high-gain
+ * stage, the path here follows the circuit's own relaxation, which reaches a stable solution of the
+ * DC equations for any circuit whose nodes all have a capacitance to ground. The step h (that is,
+ * 1/g) grows fourfold after a step that converged in few iterations and shrinks fourfold after one
+ * that did not (iteration-count step control, common practice); once g is below
+ * {@link PSEUDO_TRANSIENT_FINISH}, or the state stops moving, plain Newton finishes from there.
+ */
+function pseudoTransient(ws: NewtonWorkspace, o: ResolvedOptions): NewtonOutcome {
+  const n = ws.system.n;
+  let iterations = 0;
+  let g = PSEUDO_TRANSIENT_START;
+  // Each step is allowed a short run: a step that needs more is too long and is shortened.
+  const perStep = Math.min(o.maxIterations, 25);
+  const budget = o.maxIterations * (20 + Math.ceil(n / 10));
+  ws.anchor.set(ws.x);
+  while (iterations <= budget) {
+    const r = runNewton(ws, o, 1, g, perStep, true);
+    iterations += r.iterations;
+    if (!r.converged) {
+      ws.x.set(ws.anchor);
+      g *= 4;
+      if (g > PSEUDO_TRANSIENT_GIVE_UP) return { converged: false, iterations };
+      continue;
+    }
+    // A step that left every node where it started has reached a steady state: the capacitors
+    // carry no current, so x solves the circuit as given, which the residual confirms (the
+    // Jacobian there may be too ill-conditioned for plain Newton to accept an update).
+    if (stateSettled(ws, o) && measureResidual(ws, o)) return { converged: true, iterations };
+    if (g < PSEUDO_TRANSIENT_FINISH) {
+      const finish = runNewton(ws, o, 1, 0, o.maxIterations);
+      iterations += finish.iterations;
+      if (finish.converged) return { converged: true, iterations };
+      ws.x.set(ws.anchor);
+      g = PSEUDO_TRANSIENT_FINISH * 4;
+      continue;
+    }
+    ws.anchor.set(ws.x);
+    if (r.iterations <= 4) g /= 4;
+    else if (r.iterations > perStep / 2) g *= 2;
+  }
+  return { converged: false, iterations };
+}
+
+/** Whether the last pseudo-transient step left every node where it started (within tolerance). */
+function stateSettled(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
+  const { x, anchor } = ws;
+  for (let i = 0; i < ws.system.nodeCount; i++) {
+    const d = Math.abs(x[i]! - anchor[i]!);
+    if (!(d <= o.relativeTolerance * Math.abs(x[i]!) + o.voltageTolerance)) return false;
+  }
+  return true;
+}
 
 /** The `no-convergence` error with the worst residuals and the nonlinear devices touching them. */
 function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
@@ -344,11 +395,12 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
   const updateNorm = ws.lastUpdateNorm;
   measureResidual(ws, options);
   const excess = Array.from({ length: system.n }, (_, i) => residualExcess(ws, options, i));
-  // The five rows furthest outside their tolerance, largest first.
-  const order = Array.from({ length: system.n }, (_, i) => i)
-    .filter((i) => excess[i]! > 1)
-    .sort((a, b) => excess[b]! - excess[a]!)
-    .slice(0, 5);
+  // The five rows furthest outside their tolerance, largest first. When every row is within its
+  // tolerance (the updates, not the residuals, never settled), the five closest to their limit: a
+  // failure always names where it is held back.
+  const ranked = Array.from({ length: system.n }, (_, i) => i).sort((a, b) => excess[b]! - excess[a]!);
+  const outside = ranked.filter((i) => excess[i]! > 1);
+  const order = (outside.length > 0 ? outside : ranked).slice(0, 5);
   const worstResiduals: ResidualEntry[] = order.map((i) => ({
     name: system.labels[i]!.name,
     kind: system.labels[i]!.kind,
@@ -360,7 +412,11 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
       if (system.deviceByName.get(name)?.nonlinear) devices.add(name);
     }
   }
+  // Rows touched only by linear elements still name something: the elements at those rows.
+  if (devices.size === 0)
+    for (const i of order) for (const name of system.elementsAt[i] ?? []) devices.add(name);
   return noConvergence({
+    residualsWithinTolerance: outside.length === 0,
     strategies: attempts,
     worstResiduals,
     devices: [...devices],

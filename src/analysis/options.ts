@@ -16,7 +16,12 @@ export interface OperatingPointOptions {
   voltageTolerance?: number;
   /** Absolute tolerance of branch-current updates and KCL residuals, in A (default 1e-12). */
   currentTolerance?: number;
-  /** Newton iterations allowed to each attempt (default 200). */
+  /**
+   * Newton iterations allowed to each attempt. When given, a strict limit. By default 200, extended
+   * 200 at a time (up to one extension per hundred unknowns) while the last 200 brought more
+   * equations within tolerance or halved the residual, so that a long chain settling stage by stage
+   * is not cut short (docs/analyses.md, "Strategies").
+   */
   maxIterations?: number;
   /** Starting voltage of chosen nodes, in V (default 0 for every node). */
   initialGuess?: Readonly<Record<string, number>>;
@@ -30,6 +35,8 @@ export interface ResolvedOptions {
   readonly voltageTolerance: number;
   readonly currentTolerance: number;
   readonly maxIterations: number;
+  /** Whether a Newton run may go past maxIterations while it makes progress (maxIterations not given). */
+  readonly growIterations: boolean;
   readonly initialGuess: Readonly<Record<string, number>>;
 }
 
@@ -62,6 +69,7 @@ export function resolveOptions(options: OperatingPointOptions = {}): ResolvedOpt
     voltageTolerance: positiveOption(options, 'voltageTolerance', 1e-9),
     currentTolerance: positiveOption(options, 'currentTolerance', 1e-12),
     maxIterations,
+    growIterations: options.maxIterations === undefined,
     initialGuess: guess,
   };
 }

@@ -8,8 +8,9 @@ import { GROUND } from '../circuit/elements.js';
 import { invalidValue } from '../errors/messages.js';
 import type { AcAnalysisOptions } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { requireInstance, requireOptions } from './arguments.js';
 import { checkFrequencies } from './frequency-grid.js';
-import { nodeAt, type OperatingPoint } from './operating-point.js';
+import { nodeAt, OperatingPoint } from './operating-point.js';
 
 /** A port: two nodes; the impedance is (v(plus) − v(minus)) per ampere driven into `plus`. */
 export interface Port {
@@ -31,6 +32,9 @@ export interface Port {
  * ```
  */
 export function portImpedance(op: OperatingPoint, port: Port, options: AcAnalysisOptions): Complex[] {
+  requireInstance(op, OperatingPoint, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))');
+  requireOptions(port, 'port', false);
+  requireOptions(options, 'options', false);
   const frequencies = checkFrequencies(options?.frequencies);
   const system = op.system;
   const plus = nodeAt(system, port?.plus);

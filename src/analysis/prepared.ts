@@ -9,10 +9,12 @@
  */
 import type { Circuit } from '../circuit/circuit.js';
 import type { ElementRecord } from '../circuit/elements.js';
+import { requireOptions } from '../errors/arguments.js';
 import { invalidCircuit, unknownElement, unknownNode } from '../errors/messages.js';
 import { type CompiledSystem, compileCircuit, withRecords } from '../mna/system.js';
 import { parseValue } from '../values/index.js';
 import type { Value } from '../values/value.js';
+import { requireCircuit } from './arguments.js';
 import { parameterValue, parameterVariant } from './element-parameters.js';
 import { measureResidual, NewtonWorkspace, prepareWorkspace } from './newton.js';
 import {
@@ -121,6 +123,7 @@ export class PreparedCircuit {
    * starts from the options' initial guess.
    */
   operatingPoint(options?: OperatingPointOptions): OperatingPoint {
+    requireOptions(options);
     const solver = this.solver(resolveOptions(options));
     startFromGuess(solver);
     return solveFromCurrent(solver, conditionsAt(solver.options.temperature, solver.options));
@@ -183,6 +186,7 @@ export class PreparedCircuit {
  *   `singular`, `unknown-element`)
  */
 export function prepareCircuit(circuit: Circuit): PreparedCircuit {
+  requireCircuit(circuit);
   return new PreparedCircuit(circuit.elements);
 }
 
@@ -229,6 +233,7 @@ export function operatingPoint(
   circuit: Circuit | PreparedCircuit,
   options?: OperatingPointOptions,
 ): OperatingPoint {
+  if (!(circuit instanceof PreparedCircuit)) requireCircuit(circuit);
   const prepared = circuit instanceof PreparedCircuit ? circuit : preparedFor(circuit);
   return prepared.operatingPoint(options);
 }

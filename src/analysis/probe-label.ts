@@ -3,7 +3,9 @@
  * voltage is its node's name, a voltage between two nodes is `out − ref`, a current is
  * `current in Rload`, and a ratio of two probes is `collector ÷ input`.
  */
+
 import { GROUND } from '../circuit/elements.js';
+import { wrongArgument } from '../errors/messages.js';
 import type { Probe } from './ac-analysis.js';
 
 /**
@@ -20,6 +22,13 @@ import type { Probe } from './ac-analysis.js';
  * ```
  */
 export function probeLabel(probe: Probe): string {
+  const probeShape = (p: unknown, name: string) => {
+    if (typeof p === 'string') return;
+    if (p === null || typeof p !== 'object' || !('node' in p || 'element' in p)) {
+      throw wrongArgument(name, p, 'a node name, { node, reference? } or { element }');
+    }
+  };
+  probeShape(probe, 'probe');
   if (typeof probe === 'string') return probe;
   if ('element' in probe) return `current in ${probe.element}`;
   const reference = probe.reference ?? GROUND;
@@ -38,5 +47,13 @@ export function probeLabel(probe: Probe): string {
  * ```
  */
 export function ratioLabel(output: Probe, input?: Probe): string {
+  const probeShape = (p: unknown, name: string) => {
+    if (typeof p === 'string') return;
+    if (p === null || typeof p !== 'object' || !('node' in p || 'element' in p)) {
+      throw wrongArgument(name, p, 'a node name, { node, reference? } or { element }');
+    }
+  };
+  probeShape(output, 'output');
+  if (input !== undefined) probeShape(input, 'input');
   return input === undefined ? probeLabel(output) : `${probeLabel(output)} ÷ ${probeLabel(input)}`;
 }

@@ -8,8 +8,10 @@
  * The grid is walked row by row, alternating direction, so each solve starts Newton next to the last
  * one; the cost grows linearly with the number of phase pairs.
  */
+
 import type { Circuit } from '../circuit/circuit.js';
 import { invalidValue, noSignal } from '../errors/messages.js';
+import { requireCircuit, requireOptions } from './arguments.js';
 import { checkDriveScale } from './distortion.js';
 import type { IntermodulationProduct } from './intermodulation.js';
 import { checkPhases, prepareDriver, type QuasiStaticOptions } from './quasi-static.js';
@@ -73,6 +75,8 @@ export function quasiStaticIntermodulation(
   circuit: Circuit,
   options: QuasiStaticIntermodulationOptions,
 ): QuasiStaticIntermodulation {
+  requireCircuit(circuit);
+  requireOptions(options, 'options', false);
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output to analyse');
   }

@@ -20,6 +20,7 @@ import { GROUND } from '../circuit/elements.js';
 import { invalidValue, noSignal, unknownElement } from '../errors/messages.js';
 import type { AcAnalysis, Probe } from './ac-analysis.js';
 import { acAnalysis } from './ac-analysis.js';
+import { requireCircuit } from './arguments.js';
 import { checkDriveScale, type DistortionPoint, distortion } from './distortion.js';
 import { describeProbe } from './distortion-probe.js';
 import { holdReactive } from './held-reactive.js';
@@ -273,6 +274,7 @@ export function checkPhases(phases: unknown, least: number): number {
  * ```
  */
 export function quasiStaticHarmonics(circuit: Circuit, options: QuasiStaticOptions): QuasiStaticHarmonics {
+  requireCircuit(circuit);
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output to analyse');
   }
@@ -409,6 +411,7 @@ export interface DistortionCheck {
  * @throws QuiescentError as {@link quasiStaticHarmonics} and {@link distortion}
  */
 export function checkDistortion(circuit: Circuit, options: DistortionCheckOptions): DistortionCheck {
+  requireCircuit(circuit);
   if (options === null || typeof options !== 'object') {
     throw invalidValue(['options'], options, 'an object with the output to analyse');
   }

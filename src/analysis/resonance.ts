@@ -5,7 +5,7 @@
  * accuracy (the peak is refined by a parabola through the three highest-lying samples, the band edges
  * by the straight-line interpolation of `crossings`).
  */
-import { invalidValue } from '../errors/messages.js';
+import { invalidValue, wrongArgument } from '../errors/messages.js';
 import { crossings } from './frequency-response.js';
 
 /** The highest point of a response. */
@@ -55,6 +55,16 @@ export interface PassBandOptions {
  * @throws QuiescentError `invalid-value` when no level is finite
  */
 export function responsePeak(frequencies: Float64Array, levelDb: Float64Array): ResponsePeak {
+  for (const [name, list] of [
+    ['frequencies', frequencies],
+    ['levelDb', levelDb],
+  ] as const) {
+    if (!(list instanceof Float64Array) && !Array.isArray(list))
+      throw wrongArgument(name, list, 'a list of numbers');
+  }
+  if (frequencies.length !== levelDb.length) {
+    throw wrongArgument('levelDb', levelDb, `a list as long as the frequencies (${frequencies.length})`);
+  }
   let best = -1;
   for (let k = 0; k < levelDb.length; k++) {
     if (Number.isFinite(levelDb[k]!) && (best < 0 || levelDb[k]! > levelDb[best]!)) best = k;
@@ -98,6 +108,16 @@ export function passBand(
   levelDb: Float64Array,
   options: PassBandOptions = {},
 ): PassBand | null {
+  for (const [name, list] of [
+    ['frequencies', frequencies],
+    ['levelDb', levelDb],
+  ] as const) {
+    if (!(list instanceof Float64Array) && !Array.isArray(list))
+      throw wrongArgument(name, list, 'a list of numbers');
+  }
+  if (frequencies.length !== levelDb.length) {
+    throw wrongArgument('levelDb', levelDb, `a list as long as the frequencies (${frequencies.length})`);
+  }
   const dropDb = options.dropDb ?? 10 * Math.log10(2);
   if (!(Number.isFinite(dropDb) && dropDb > 0))
     throw invalidValue(['dropDb'], dropDb, 'a finite number of dB above 0');

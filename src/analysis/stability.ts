@@ -5,6 +5,7 @@
  * the probe does not break). Otherwise a phase margin below 45° is reported as too small: the closed
  * loop then peaks and rings (docs/stability.md, "What the margins mean").
  */
+import { requireShape } from '../errors/arguments.js';
 import { invalidValue } from '../errors/messages.js';
 import { type LoopGain, type LoopGainJson, type LoopGainOptions, loopGain } from './loop-gain.js';
 import { DENSE_LIMIT, poles, type Root } from './natural-frequencies.js';
@@ -52,11 +53,23 @@ export interface RootJson {
 
 /** A root as JSON. */
 export function rootToJson(root: Root): RootJson {
+  requireShape(root, 'root', 'a root { real, imaginary, frequency, q, dampingRatio }', [
+    'real',
+    'imaginary',
+    'frequency',
+    'q',
+  ]);
   return { ...root, q: Number.isFinite(root.q) ? root.q : null };
 }
 
 /** Whether a pole lies in the right half-plane (beyond rounding of the imaginary axis). */
 export function isRightHalfPlane(root: Root): boolean {
+  requireShape(root, 'root', 'a root { real, imaginary, frequency, q, dampingRatio }', [
+    'real',
+    'imaginary',
+    'frequency',
+    'q',
+  ]);
   return root.real > 1e-9 * root.frequency;
 }
 

@@ -9,6 +9,7 @@ import { checkOpAmpOptions, OP_AMP_PARAMETERS, type OpAmpOptions } from '../devi
 import { parseParameters } from '../devices/parameters.js';
 import { duplicateName, invalidCircuit, invalidValue } from '../errors/messages.js';
 import { parseValue, type Unit } from '../values/index.js';
+import { checkMagnitude } from '../values/magnitude.js';
 import type { Value } from '../values/value.js';
 import { type AcExcitation, type ElementRecord, terminalsOf } from './elements.js';
 import { type CircuitDocument, circuitFromJson, circuitToJson } from './json.js';
@@ -452,7 +453,9 @@ function finite(v: unknown, unit: Unit | undefined, path: readonly (string | num
   if (typeof v !== 'number' && typeof v !== 'string')
     throw invalidValue(path, v, 'a number or a value string');
   // −0 becomes 0: JSON cannot carry the sign of zero, and a round trip must give the same record.
-  return parseValue(v, unit, path) || 0;
+  const x = parseValue(v, unit, path) || 0;
+  checkMagnitude(x, path, v);
+  return x;
 }
 
 function positive(v: unknown, unit: Unit, path: readonly (string | number)[]): number {

@@ -6,6 +6,9 @@
 import { floatingNodes, noGround, unknownElement, voltageLoop } from '../errors/messages.js';
 import { type ElementRecord, GROUND, hasCurrentUnknown, terminalsOf } from './elements.js';
 
+/** Node names that people use for ground in other conventions. */
+const GROUND_LIKE = /^(0|gnd|ground|earth|common|com|vss|agnd|dgnd)$/i;
+
 /** A disjoint-set forest over node indices (union by size, path halving). */
 class DisjointSets {
   readonly parent: Int32Array;
@@ -121,7 +124,9 @@ export function checkTopology(elements: readonly ElementRecord[]): void {
       if (!index.has(node)) index.set(node, index.size);
     }
   }
-  if (!touchesGround) throw noGround();
+  // A node named like a ground ('0', 'GND', 'ground') was most likely meant to be one.
+  if (!touchesGround)
+    throw noGround([...index.keys()].filter((node) => node !== GROUND && GROUND_LIKE.test(node)));
 
   const dc = new DisjointSets(index.size);
   for (const e of elements) for (const [a, b] of dcConnections(e)) dc.union(index.get(a)!, index.get(b)!);

@@ -315,7 +315,8 @@ export class Bjt implements Device {
       ie: this.ic + this.ib,
       gm,
       rpi: 1 / gpi,
-      ro: 1 / go,
+      // go underflows to ±0 when both junctions are far off: r_o is then infinite, never −Infinity.
+      ro: go === 0 ? Number.POSITIVE_INFINITY : 1 / go,
       cpi,
       cmu,
       region: this.region(vbe, vbc),

@@ -2,6 +2,7 @@
  * What every pn junction shares: the thermal voltage, the temperature law of the saturation current,
  * an exponential that stays finite, the logarithmic step limiter, and the depletion capacitance.
  */
+import { invalidValue } from '../errors/messages.js';
 
 /** Boltzmann constant, J/K (SI 2019, exact). */
 export const BOLTZMANN = 1.380649e-23;
@@ -10,6 +11,9 @@ export const ELEMENTARY_CHARGE = 1.602176634e-19;
 
 /** The thermal voltage k·T/q in volts at temperature T in kelvin. */
 export function thermalVoltage(temperature: number): number {
+  if (typeof temperature !== 'number' || !(temperature > 0) || !Number.isFinite(temperature)) {
+    throw invalidValue(['temperature'], temperature, 'a finite temperature above 0 K');
+  }
   return (BOLTZMANN * temperature) / ELEMENTARY_CHARGE;
 }
 

@@ -4,6 +4,7 @@
  */
 import { invalidCircuit, invalidValue } from '../errors/messages.js';
 import { parseValue, type Unit } from '../values/index.js';
+import { checkMagnitude } from '../values/magnitude.js';
 
 /** The admissible range of a parameter. */
 export type ParameterRange =
@@ -100,6 +101,7 @@ export function parseParameters<K extends string>(
       throw invalidValue([...path, key], raw, RANGE_WORDS[spec.range]);
     }
     if (!inRange(value, spec.range)) throw invalidValue([...path, key], raw, RANGE_WORDS[spec.range]);
+    checkMagnitude(value, [...path, key], raw);
     out[k] = value;
   }
   return out;

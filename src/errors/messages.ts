@@ -32,6 +32,35 @@ export function invalidValue(
   );
 }
 
+/** How a value given where another was expected reads in a message: its class, or its kind. */
+function kindOf(value: unknown): string {
+  if (value === null) return 'null';
+  if (Array.isArray(value)) return 'an array';
+  if (typeof value === 'object') {
+    const name = (Object.getPrototypeOf(value) as { constructor?: { name?: unknown } } | null)?.constructor
+      ?.name;
+    if (typeof name !== 'string' || name === 'Object' || name === '') return 'a plain object';
+    return `${/^[AEIOU]/.test(name) ? 'an' : 'a'} ${name}`;
+  }
+  return show(value);
+}
+
+/**
+ * A public function was handed the wrong kind of argument: `invalid-circuit` for a circuit
+ * argument, `invalid-value` for any other, with the argument's name as the path.
+ */
+export function wrongArgument(
+  argument: string,
+  value: unknown,
+  expected: string,
+  code: 'invalid-circuit' | 'invalid-value' = 'invalid-value',
+): QuiescentError {
+  const message = `${argument}: expected ${expected}, got ${kindOf(value)}`;
+  return code === 'invalid-circuit'
+    ? new QuiescentError({ code, path: [argument] }, message)
+    : new QuiescentError({ code, path: [argument], value }, message);
+}
+
 /** An element name is used twice. */
 export function duplicateName(name: string): QuiescentError {
   return new QuiescentError(
@@ -62,11 +91,15 @@ export function unknownElement(
   return new QuiescentError({ code: 'unknown-element', element, path }, `${at(path)}'${element}': ${why}`);
 }
 
-/** Nothing connects to ground. */
-export function noGround(): QuiescentError {
+/** Nothing connects to ground; `groundLikeNodes` are nodes named as if they were meant to be it. */
+export function noGround(groundLikeNodes: readonly string[] = []): QuiescentError {
+  const hint =
+    groundLikeNodes.length > 0
+      ? `; node ${listNames(groundLikeNodes)} looks meant as ground: name it 'gnd' (or use the GROUND constant)`
+      : '';
   return new QuiescentError(
-    { code: 'no-ground' },
-    "no element connects to ground (node 'gnd'); every circuit needs a reference node",
+    { code: 'no-ground', groundLikeNodes },
+    `no element connects to ground (node 'gnd'); every circuit needs a reference node${hint}`,
   );
 }
 
@@ -95,13 +128,73 @@ export function singularMatrix(
   elements: readonly string[],
   nodes: readonly string[],
   context: string,
+  valueRange?: number,
 ): QuiescentError {
   const parts: string[] = [];
   if (nodes.length > 0) parts.push(`node${nodes.length > 1 ? 's' : ''} ${listNames(nodes)}`);
   if (elements.length > 0) parts.push(`element${elements.length > 1 ? 's' : ''} ${listNames(elements)}`);
+  // Entries more than about 1e16 apart lose the smaller when added: the dependence may be rounding.
+  const hint =
+    valueRange !== undefined && valueRange > 1e15
+      ? `; the matrix entries span ${valueRange.toExponential(0)}, beyond the 16 digits of double precision, ` +
+        'so a conductance or gain that small beside one that large is lost when they are added: ' +
+        'the dependence may come from the values, not the topology'
+      : '';
   return new QuiescentError(
-    { code: 'singular', elements, nodes, reason: 'matrix' },
-    `the circuit equations have no unique solution ${context}; the trouble involves ${parts.join(' and ')}`,
+    valueRange === undefined
+      ? { code: 'singular', elements, nodes, reason: 'matrix' }
+      : { code: 'singular', elements, nodes, reason: 'matrix', valueRange },
+    `the circuit equations have no unique solution ${context}; the trouble involves ${parts.join(' and ')}${hint}`,
+  );
+}
+
+/** The equations cannot be regular whatever the values: an equation or unknown has no partner. */
+export function structurallySingular(d: {
+  equations: readonly string[];
+  equationKinds: readonly ('node' | 'branch')[];
+  unknowns: readonly string[];
+  unknownKinds: readonly ('node' | 'branch')[];
+  elements: readonly string[];
+  context: string;
+}): QuiescentError {
+  const equations = d.equations.map((name, i) =>
+    d.equationKinds[i] === 'node'
+      ? `the current balance at node '${name}'`
+      : `the branch equation of '${name}'`,
+  );
+  const unknowns = d.unknowns.map((name, i) =>
+    d.unknownKinds[i] === 'node' ? `the voltage of node '${name}'` : `the current of '${name}'`,
+  );
+  const nodes = d.unknowns.filter((_, i) => d.unknownKinds[i] === 'node');
+  return new QuiescentError(
+    { code: 'singular', elements: d.elements, nodes, reason: 'structural' },
+    `the circuit equations have no unique solution ${d.context}, whatever the element values: ` +
+      `${equations.join(', ')} ${equations.length === 1 ? 'determines' : 'determine'} nothing that is not already fixed, ` +
+      `leaving ${unknowns.join(', ')} undetermined (for a branch equation: a controlled source or amplifier ` +
+      `whose output is its own input says 0 = 0); elements involved: ${listNames(d.elements)}`,
+  );
+}
+
+/** The equations are regular in structure but too ill-conditioned for double precision. */
+export function illConditioned(d: {
+  elements: readonly string[];
+  nodes: readonly string[];
+  conditionEstimate: number;
+  context: string;
+}): QuiescentError {
+  const where = d.nodes.length > 0 ? ` at node${d.nodes.length > 1 ? 's' : ''} ${listNames(d.nodes)}` : '';
+  return new QuiescentError(
+    {
+      code: 'singular',
+      elements: d.elements,
+      nodes: d.nodes,
+      reason: 'ill-conditioned',
+      conditionEstimate: d.conditionEstimate,
+    },
+    `the circuit equations ${d.context} are sound in structure but too ill-conditioned for double precision ` +
+      `(condition number about ${d.conditionEstimate.toExponential(1)}; double precision carries about ` +
+      `16 digits, so fewer than 3 would be left)${where}; look for gains or conductance ratios beyond about 1e13 among ${listNames(d.elements)}: ` +
+      'this is not a fault of the topology',
   );
 }
 
@@ -112,15 +205,19 @@ export function noConvergence(details: {
   devices: readonly string[];
   lastUpdateNorm: number;
   lastResidualNorm: number;
+  residualsWithinTolerance: boolean;
 }): QuiescentError {
   const tried = details.strategies.map((s) => `${s.strategy} (${s.iterations} iterations)`).join(', ');
   const worst = details.worstResiduals
     .map((r) => `${r.kind} '${r.name}' (${r.residual.toExponential(2)} ${r.kind === 'node' ? 'A' : 'V'})`)
     .join(', ');
+  const where = details.residualsWithinTolerance
+    ? `every residual is within tolerance but the updates never settled; closest to their limit: ${worst}`
+    : `largest residuals at ${worst}`;
   const devices = details.devices.length > 0 ? `; devices still moving: ${listNames(details.devices)}` : '';
   return new QuiescentError(
     { code: 'no-convergence', ...details },
-    `the operating point could not be found after ${tried}; largest residuals at ${worst || 'no node'}${devices}`,
+    `the operating point could not be found after ${tried}; ${where}${devices}`,
   );
 }
 

@@ -69,6 +69,8 @@ export type ErrorDetails =
   | {
       /** Nothing connects to ground. */
       readonly code: 'no-ground';
+      /** Nodes named like a ground ('0', 'GND', 'ground' …), which were probably meant to be it. */
+      readonly groundLikeNodes?: readonly string[];
     }
   | {
       /** Some nodes have no DC path to ground. */
@@ -83,8 +85,17 @@ export type ErrorDetails =
       readonly elements: readonly string[];
       /** The nodes involved. */
       readonly nodes: readonly string[];
-      /** A loop of voltage sources, a cut set of current sources, or a singular matrix found while solving. */
-      readonly reason: 'voltage-loop' | 'current-cut-set' | 'matrix';
+      /**
+       * A loop of voltage sources, a cut set of current sources, equations that no values could
+       * make regular (`'structural'`: some equation or unknown has no partner in any arrangement),
+       * equations whose values make them exactly dependent (`'matrix'`), or equations too
+       * ill-conditioned for double precision (`'ill-conditioned'`, with `conditionEstimate`).
+       */
+      readonly reason: 'voltage-loop' | 'current-cut-set' | 'matrix' | 'structural' | 'ill-conditioned';
+      /** For `'ill-conditioned'`: the estimated 1-norm condition number of the row-equilibrated equations. */
+      readonly conditionEstimate?: number;
+      /** For `'matrix'` found while solving: the ratio of the largest to the smallest non-zero matrix entry. */
+      readonly valueRange?: number;
     }
   | {
       /** The operating point could not be found. */
@@ -99,6 +110,11 @@ export type ErrorDetails =
       readonly lastUpdateNorm: number;
       /** The norm of the last residual. */
       readonly lastResidualNorm: number;
+      /**
+       * Whether every residual was within tolerance at the point reached (only the updates failed
+       * to settle); `worstResiduals` then lists the rows closest to their tolerance.
+       */
+      readonly residualsWithinTolerance: boolean;
     }
   | {
       /** A JSON document or builder call is malformed in another way. */

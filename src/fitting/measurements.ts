@@ -2,8 +2,9 @@
  * Measured curves, given as arrays or as CSV text: columns by name, checked for length, and the
  * points that cannot be used (a value missing or not a finite number) set aside and listed.
  */
+
 import Papa from 'papaparse';
-import { invalidValue } from '../errors/messages.js';
+import { invalidValue, wrongArgument } from '../errors/messages.js';
 
 /**
  * Measured data: an object of equally long arrays by column name (`K` required, `O` optional), or CSV
@@ -45,6 +46,8 @@ export function readMeasurements<K extends string, O extends string = never>(
   optional: readonly O[] = [],
   path: readonly (string | number)[] = ['measurements'],
 ): MeasuredColumns<K, O> {
+  if (!Array.isArray(required)) throw wrongArgument('required', required, 'a list of column names');
+  if (!Array.isArray(optional)) throw wrongArgument('optional', optional, 'a list of column names');
   const raw: Record<string, ArrayLike<number>> = {};
   if (typeof data === 'string') {
     const parsed = Papa.parse<Record<string, string>>(data.trim(), {

@@ -5,6 +5,7 @@
 import type { AcAnalysis, Probe } from '../analysis/ac-analysis.js';
 import { probeLabel, ratioLabel } from '../analysis/probe-label.js';
 import { GROUND } from '../circuit/elements.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import type { Unit } from '../values/units.js';
 import {
   cell,
@@ -47,6 +48,12 @@ function decibels(value: number): string {
  * @throws QuiescentError `unknown-node`, `unknown-element`, or `invalid-value` for a zero input
  */
 export function acTable(ac: AcAnalysis, options: AcReportOptions = {}): TextTable {
+  requireShape(ac, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))', [
+    'operatingPoint',
+    'frequencies',
+    're',
+  ]);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const outputs = options.outputs ?? ac.operatingPoint.nodes.filter((n) => n !== GROUND);
   const input = options.input;

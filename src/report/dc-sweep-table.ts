@@ -2,6 +2,7 @@
 import type { DcSweep, SweptQuantity } from '../analysis/dc-sweep.js';
 import { probeLabel } from '../analysis/probe-label.js';
 import { GROUND } from '../circuit/elements.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import type { Unit } from '../values/units.js';
 import {
   cell,
@@ -45,6 +46,12 @@ function sweptLabel(sweep: DcSweep): { header: string; unit: Unit | undefined } 
  * @throws QuiescentError `unknown-node`, `unknown-element` for names the circuit lacks
  */
 export function dcSweepTable(sweep: DcSweep, options: DcSweepReportOptions = {}): TextTable {
+  requireShape(sweep, 'sweep', 'a DcSweep (the result of dcSweep(circuit, options))', [
+    'points',
+    'swept',
+    'values',
+  ]);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const nodes = options.nodes ?? (sweep.points[0]?.nodes ?? []).filter((n) => n !== GROUND);
   const elements = options.elements ?? [];

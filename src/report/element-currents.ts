@@ -3,6 +3,7 @@
  * tables and the JSON form.
  */
 import type { ElementRecord } from '../circuit/elements.js';
+import { requireShape } from '../errors/arguments.js';
 
 /**
  * The direction in which an element's current is counted, in words: `'a → b'` for a two-terminal
@@ -13,6 +14,7 @@ import type { ElementRecord } from '../circuit/elements.js';
  * @returns the direction, or undefined
  */
 export function currentDirection(record: ElementRecord): string | undefined {
+  requireShape(record, 'record', 'an element record (circuit.element(name))', ['kind', 'name']);
   switch (record.kind) {
     case 'resistor':
     case 'capacitor':

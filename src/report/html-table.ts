@@ -2,10 +2,13 @@
  * Result tables as HTML, for a web page or a notebook: the same title, headings and cells as the text
  * tables ({@link renderTable}), in a `<table>` with the title as its caption.
  */
+import { requireShape } from '../errors/arguments.js';
+import { wrongArgument } from '../errors/messages.js';
 import type { TextTable } from './table.js';
 
 /** Escape text for HTML element content and attribute values. */
 export function escapeHtml(text: string): string {
+  if (typeof text !== 'string') throw wrongArgument('text', text, 'a string');
   return text.replace(/[<>&"']/g, (c) => `&#${c.charCodeAt(0)};`);
 }
 
@@ -21,6 +24,7 @@ export function escapeHtml(text: string): string {
  * ```
  */
 export function htmlTable(table: TextTable): string {
+  requireShape(table, 'table', 'a text table { title, columns, rows }', ['columns', 'rows']);
   const align = table.columns.map((column) => (column.align === 'right' ? ' style="text-align:right"' : ''));
   const head = table.columns.map((column, c) => `<th${align[c]}>${escapeHtml(column.header)}</th>`).join('');
   const body = table.rows

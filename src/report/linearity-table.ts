@@ -9,6 +9,7 @@ import type { Probe } from '../analysis/ac-analysis.js';
 import type { DistortionEstimate, DistortionPoint } from '../analysis/distortion.js';
 import type { JunctionLinearity, LinearityReport, OutputLinearity } from '../analysis/linearity.js';
 import type { QuasiStaticHarmonics } from '../analysis/quasi-static.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import { invalidValue } from '../errors/messages.js';
 import { cell, DEFAULT_REPORT_DIGITS, type ReportOptions, renderTable, type TextTable } from './table.js';
 
@@ -71,6 +72,12 @@ function worstPoint(estimate: DistortionEstimate): DistortionPoint | undefined {
  * @throws QuiescentError `invalid-value` for digits that are not a whole number from 1 to 101
  */
 export function linearityTables(report: LinearityReport, options: LinearityReportOptions = {}): TextTable[] {
+  requireShape(report, 'report', 'a LinearityReport (the result of linearity(ac))', [
+    'junctions',
+    'worst',
+    'budget',
+  ]);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   if (!Number.isInteger(digits) || digits < 1 || digits > 101) {
     throw invalidValue(['digits'], digits, 'a whole number of significant digits from 1 to 101');
@@ -201,6 +208,11 @@ export function linearityTables(report: LinearityReport, options: LinearityRepor
  * @returns the sentence
  */
 export function linearityVerdict(report: LinearityReport, digits: number = DEFAULT_REPORT_DIGITS): string {
+  requireShape(report, 'report', 'a LinearityReport (the result of linearity(ac))', [
+    'junctions',
+    'worst',
+    'budget',
+  ]);
   if (report.output !== undefined) return outputVerdict(report, report.output, digits);
   const worst = report.worst;
   const reverse = report.junctions.filter((j) => !j.forwardBiased);

@@ -3,7 +3,9 @@
  * margin as a bar from −180° up to the phase at the crossover, and the gain margin as a bar from the
  * magnitude at the phase crossover up to 0 dB. Drawn with the plain line plots of svg-plot.ts.
  */
+
 import type { LoopGain } from '../analysis/loop-gain.js';
+import { requireShape } from '../errors/arguments.js';
 import { type PlotSeries, svgPlot } from './svg-plot.js';
 
 const MARKS = '#c2452d';
@@ -22,7 +24,13 @@ function short(value: number): string {
  * @returns the SVG text
  * @throws QuiescentError `invalid-value` when no frequency of the sweep is above 0
  */
-export function loopGainPlotSvg(loop: LoopGain, title = `Loop gain at '${loop.probe}'`): string {
+export function loopGainPlotSvg(loop: LoopGain, title?: string): string {
+  requireShape(loop, 'loop', 'a LoopGain (the result of loopGain(op, options))', [
+    'frequencies',
+    'gain',
+    'probe',
+  ]);
+  title ??= `Loop gain at '${loop.probe}'`;
   const f = loop.frequencies;
   const ends = [f[0]!, f[f.length - 1]!];
   const magnitude: PlotSeries[] = [

@@ -3,9 +3,11 @@
  * arrays become arrays; an infinite noise figure (a source resistor that does not reach the output)
  * becomes `null`, as `JSON.stringify` writes it.
  */
+
 import type { Probe } from '../analysis/ac-analysis.js';
 import type { Noise } from '../analysis/noise.js';
 import type { NoiseMechanism } from '../devices/device.js';
+import { requireShape } from '../errors/arguments.js';
 
 /** One contribution as JSON. */
 export interface NoiseContributionJson {
@@ -55,6 +57,11 @@ export interface NoiseJson {
 
 /** The plain-data form of a noise analysis; `JSON.stringify(nz)` writes it through `Noise.toJSON`. */
 export function noiseToJson(nz: Noise): NoiseJson {
+  requireShape(nz, 'nz', 'a Noise (the result of noise(op, options))', [
+    'frequencies',
+    'outputDensity',
+    'contributions',
+  ]);
   return {
     output: typeof nz.output === 'string' ? nz.output : { ...nz.output },
     temperature: nz.operatingPoint.temperature,

@@ -2,7 +2,9 @@
  * The noise spectrum as an SVG figure: the total density against frequency on log-log axes, with the
  * largest contributors drawn beside it, referred to the output or to the input source.
  */
+
 import type { Noise } from '../analysis/noise.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import { invalidValue } from '../errors/messages.js';
 import { contributionLabel, noiseInputUnit, noiseOutputUnit } from './noise-table.js';
 import { type PlotSeries, svgPlot } from './svg-plot.js';
@@ -40,6 +42,12 @@ function positiveOrGap(values: Float64Array): Float64Array {
  * ```
  */
 export function noisePlotSvg(nz: Noise, options: NoisePlotOptions = {}): string {
+  requireShape(nz, 'nz', 'a Noise (the result of noise(op, options))', [
+    'frequencies',
+    'outputDensity',
+    'contributions',
+  ]);
+  requireOptions(options);
   const referred = options.referred ?? 'output';
   const top = options.top ?? 4;
   if (!Number.isInteger(top) || top < 0) throw invalidValue(['top'], top, 'a whole number of 0 or more');

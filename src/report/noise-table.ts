@@ -2,7 +2,9 @@
  * The noise analysis as text: the density at every decade of the analysed range, and the generators
  * that matter most with their share of the total noise power over that range.
  */
+
 import type { Noise } from '../analysis/noise.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import { invalidValue } from '../errors/messages.js';
 import type { Unit } from '../values/units.js';
 import {
@@ -78,6 +80,12 @@ function densityAt(nz: Noise, density: Float64Array, f: number): number {
  * @throws QuiescentError `invalid-value` for a `top` that is not a whole number of 1 or more
  */
 export function noiseTables(nz: Noise, options: NoiseReportOptions = {}): TextTable[] {
+  requireShape(nz, 'nz', 'a Noise (the result of noise(op, options))', [
+    'frequencies',
+    'outputDensity',
+    'contributions',
+  ]);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const top = options.top ?? 5;
   if (!Number.isInteger(top) || top < 1) throw invalidValue(['top'], top, 'a whole number of 1 or more');
@@ -158,5 +166,11 @@ function outputName(nz: Noise): string {
  * ```
  */
 export function formatNoise(nz: Noise, options: NoiseReportOptions = {}): string {
+  requireShape(nz, 'nz', 'a Noise (the result of noise(op, options))', [
+    'frequencies',
+    'outputDensity',
+    'contributions',
+  ]);
+  requireOptions(options);
   return noiseTables(nz, options).map(renderTable).join('\n\n');
 }

@@ -1,6 +1,7 @@
 /** The plain-data form of an operating point, for storage, other languages and snapshot tests. */
 import type { OperatingPoint } from '../analysis/operating-point.js';
 import { GROUND } from '../circuit/elements.js';
+import { requireShape } from '../errors/arguments.js';
 import { currentDirection, hasDeviceReport } from './element-currents.js';
 
 /** A device report as JSON: every number of the report, with `null` where the value is infinite. */
@@ -41,6 +42,11 @@ export interface OperatingPointJson {
  * ```
  */
 export function operatingPointToJson(op: OperatingPoint): OperatingPointJson {
+  requireShape(op, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))', [
+    'system',
+    'x',
+    'voltage',
+  ]);
   const nodes: Record<string, number> = {};
   for (const node of op.nodes) if (node !== GROUND) nodes[node] = op.voltage(node);
   const currents: Record<string, number> = {};

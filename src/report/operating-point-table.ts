@@ -5,6 +5,7 @@
 import type { OperatingPoint } from '../analysis/operating-point.js';
 import type { BjtReport, DiodeReport, MosfetReport } from '../analysis/reports.js';
 import { GROUND } from '../circuit/elements.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import { formatValue } from '../values/format.js';
 import type { Unit } from '../values/units.js';
 import { currentDirection } from './element-currents.js';
@@ -69,6 +70,12 @@ const MOSFET_COLUMNS: readonly FieldColumn<MosfetReport>[] = [
  * @returns the tables, in print order
  */
 export function operatingPointTables(op: OperatingPoint, options: ReportOptions = {}): TextTable[] {
+  requireShape(op, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))', [
+    'system',
+    'x',
+    'voltage',
+  ]);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const records = op.system.records;
   const tables: TextTable[] = [
@@ -127,6 +134,12 @@ export function operatingPointTables(op: OperatingPoint, options: ReportOptions 
  * ```
  */
 export function formatOperatingPoint(op: OperatingPoint, options: ReportOptions = {}): string {
+  requireShape(op, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))', [
+    'system',
+    'x',
+    'voltage',
+  ]);
+  requireOptions(options);
   const digits = options.digits ?? DEFAULT_REPORT_DIGITS;
   const heading =
     `Operating point at ${formatValue(op.temperature, 'K', TEMPERATURE_DIGITS)} (Vt = ${formatValue(op.thermalVoltage, 'V', { digits })}), ` +

@@ -2,9 +2,11 @@
  * Results as rich output for web pages and notebooks: the operating point's and the AC analysis's
  * tables as HTML, and a Bode plot as SVG, each a {@link RichOutput} that a notebook shows as it is.
  */
+
 import type { AcAnalysis, Probe } from '../analysis/ac-analysis.js';
 import type { OperatingPoint } from '../analysis/operating-point.js';
 import { ratioLabel } from '../analysis/probe-label.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
 import { type AcReportOptions, acTable, formatAcAnalysis } from './ac-table.js';
 import { htmlTable } from './html-table.js';
 import { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
@@ -54,6 +56,10 @@ export function acAnalysisHtml(ac: AcAnalysis, options: AcReportOptions = {}): R
  *   frequency above 0
  */
 export function bodePlot(ac: AcAnalysis, output: Probe, input?: Probe, title?: string): RichOutput {
+  requireShape(ac, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))', ['frequencies', 'bode']);
+  if (output === null || (typeof output !== 'string' && typeof output !== 'object')) {
+    requireOptions(output, 'output', false);
+  }
   const label = ratioLabel(output, input);
   const svg = bodePlotSvg(ac.bode(output, input), title ?? `Bode plot of ${label}`, label);
   return new RichOutput('image/svg+xml', svg, `${title ?? `Bode plot of ${label}`} (an SVG image)`);

@@ -8,6 +8,7 @@ import type { DcSweep, SweptQuantity } from '../analysis/dc-sweep.js';
 import type { LinearityReport } from '../analysis/linearity.js';
 import { GROUND } from '../circuit/elements.js';
 import type { JunctionProbe } from '../devices/device.js';
+import { requireShape } from '../errors/arguments.js';
 import { currentDirection } from './element-currents.js';
 
 /** A number as JSON: itself when finite, otherwise `null`. */
@@ -29,6 +30,11 @@ export interface DcSweepJson {
 
 /** The plain-data form of a DC sweep; `JSON.stringify(sweep)` writes it through `DcSweep.toJSON`. */
 export function dcSweepToJson(sweep: DcSweep): DcSweepJson {
+  requireShape(sweep, 'sweep', 'a DcSweep (the result of dcSweep(circuit, options))', [
+    'points',
+    'swept',
+    'values',
+  ]);
   const first = sweep.points[0]!;
   const nodes: Record<string, number[]> = {};
   for (const node of first.nodes) if (node !== GROUND) nodes[node] = Array.from(sweep.voltage(node));
@@ -60,6 +66,11 @@ export interface AcAnalysisJson {
 
 /** The plain-data form of an AC analysis; `JSON.stringify(ac)` writes it through `AcAnalysis.toJSON`. */
 export function acAnalysisToJson(ac: AcAnalysis): AcAnalysisJson {
+  requireShape(ac, 'ac', 'an AcAnalysis (the result of acAnalysis(op, options))', [
+    'operatingPoint',
+    'frequencies',
+    're',
+  ]);
   const split = (values: readonly { re: number; im: number }[]): PhasorsJson => ({
     re: values.map((v) => v.re),
     im: values.map((v) => v.im),
@@ -166,6 +177,11 @@ export interface LinearityReportJson {
 
 /** The plain-data form of a linearity report; `JSON.stringify(report)` writes it. */
 export function linearityToJson(report: LinearityReport): LinearityReportJson {
+  requireShape(report, 'report', 'a LinearityReport (the result of linearity(ac))', [
+    'junctions',
+    'worst',
+    'budget',
+  ]);
   return {
     budget: report.budget,
     frequencies: Array.from(report.frequencies),

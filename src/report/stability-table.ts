@@ -2,9 +2,11 @@
  * The stability report as text: the margins, the poles (right-half-plane poles flagged), and the
  * verdict in words.
  */
+
 import type { Root } from '../analysis/natural-frequencies.js';
 import { isRightHalfPlane, PHASE_MARGIN_TARGET, type StabilityReport } from '../analysis/stability.js';
-import { invalidValue } from '../errors/messages.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
+import { invalidValue, wrongArgument } from '../errors/messages.js';
 import { cell, DEFAULT_REPORT_DIGITS, type ReportOptions, renderTable, type TextTable } from './table.js';
 
 /** A dimensionless number with `digits` significant digits; `∞` for an infinite one. */
@@ -25,6 +27,16 @@ function plain(value: number, digits: number): string {
  * @returns the table as data
  */
 export function rootsTable(title: string, roots: readonly Root[], options: ReportOptions = {}): TextTable {
+  if (!Array.isArray(roots)) throw wrongArgument('roots', roots, 'a list of roots');
+  for (const [k, root] of roots.entries()) {
+    requireShape(root, `roots[${k}]`, 'a root { real, imaginary, frequency, q, dampingRatio }', [
+      'real',
+      'imaginary',
+      'frequency',
+      'q',
+    ]);
+  }
+  requireOptions(options);
   const digits = checkDigits(options);
   return {
     title,
@@ -65,6 +77,11 @@ function checkDigits(options: ReportOptions): number {
  * @throws QuiescentError `invalid-value` for digits that are not a whole number from 1 to 101
  */
 export function stabilityTables(report: StabilityReport, options: ReportOptions = {}): TextTable[] {
+  requireShape(report, 'report', 'a StabilityReport (the result of stabilityReport(op, options))', [
+    'loop',
+    'verdict',
+  ]);
+  requireOptions(options);
   const digits = checkDigits(options);
   const { loop } = report;
   const none = 'none in the sweep';
@@ -118,6 +135,11 @@ function verdictText(report: StabilityReport, digits: number): string {
  * @throws QuiescentError `invalid-value` for digits that are not a whole number from 1 to 101
  */
 export function formatStabilityReport(report: StabilityReport, options: ReportOptions = {}): string {
+  requireShape(report, 'report', 'a StabilityReport (the result of stabilityReport(op, options))', [
+    'loop',
+    'verdict',
+  ]);
+  requireOptions(options);
   const digits = checkDigits(options);
   const parts = stabilityTables(report, options).map(renderTable);
   if (!report.allPolesExamined) {

@@ -6,7 +6,8 @@
  * its label). Enough for a Bode plot or a DC-sweep curve in a report or a notebook.
  */
 import type { BodeTable } from '../analysis/ac-analysis.js';
-import { invalidValue } from '../errors/messages.js';
+import { requireOptions, requireShape } from '../errors/arguments.js';
+import { invalidValue, wrongArgument } from '../errors/messages.js';
 import { formatValue } from '../values/format.js';
 import type { Unit } from '../values/units.js';
 
@@ -205,6 +206,9 @@ function seriesColours(panels: readonly PlotPanel[]): Map<string, string> {
  * ```
  */
 export function svgPlot(options: PlotOptions): string {
+  requireOptions(options, 'options', false);
+  if (!Array.isArray(options.panels as unknown))
+    throw wrongArgument('options.panels', options.panels, 'an array of panels');
   const width = options.width ?? 720;
   const panelHeight = options.panelHeight ?? 240;
   const panels = options.panels;
@@ -373,6 +377,14 @@ export function bodePlotSvg(
   const curves: readonly BodeCurve[] = Array.isArray(responses)
     ? (responses as readonly BodeCurve[])
     : [{ label, bode: responses as BodeTable }];
+  for (const [k, curve] of curves.entries()) {
+    requireShape(curve, `responses[${k}]`, 'a curve { label, bode, color? }', ['label', 'bode']);
+    requireShape(curve.bode, `responses[${k}].bode`, 'a BodeTable (the result of ac.bode(output))', [
+      'frequencies',
+      'magnitudeDb',
+      'phaseDegrees',
+    ]);
+  }
   if (curves.length === 0) throw invalidValue(['responses'], 'an empty list', 'one response or more');
   const series = (pick: (bode: BodeTable) => Float64Array): PlotSeries[] =>
     curves.map((curve) => ({

@@ -2,6 +2,8 @@
  * Plain-text tables for a terminal or a notebook: a title, a header row, a rule and aligned columns.
  * Every result table of the library is drawn by {@link renderTable}, so they all look alike.
  */
+
+import { requireShape } from '../errors/arguments.js';
 import { DEFAULT_DIGITS, formatValue } from '../values/format.js';
 import type { Unit } from '../values/units.js';
 
@@ -51,6 +53,11 @@ const GAP = '  ';
  * ```
  */
 export function renderTable(table: TextTable): string {
+  requireShape(table, 'table', 'a TextTable (of operatingPointTables, acTable …)', [
+    'title',
+    'columns',
+    'rows',
+  ]);
   const widths = table.columns.map((column, c) =>
     table.rows.reduce((w, row) => Math.max(w, textWidth(row[c] ?? '')), textWidth(column.header)),
   );

@@ -118,7 +118,10 @@ export function formatValue(value: number, unit?: Unit, options?: FormatOptions 
   const significand = mantissa.replace('.', '');
 
   if (unit !== undefined && !unitTakesPrefix(unit)) {
-    return join(sign + String(Number(`${mantissa}e${exponent}`)), '', unit);
+    const plain = Number(`${mantissa}e${exponent}`);
+    // A value that rounds past the largest double keeps its digits (parseValue reads it back).
+    if (Number.isFinite(plain)) return join(sign + String(plain), '', unit);
+    return join(`${sign}${placePoint(significand, 1)}e${exponent}`, '', unit);
   }
   const prefixExponent = 3 * Math.floor(exponent / 3);
   if (prefixExponent < MIN_PREFIX_EXPONENT || prefixExponent > MAX_PREFIX_EXPONENT) {

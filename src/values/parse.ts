@@ -27,6 +27,7 @@ import {
   type Unit,
   unitHasSymbol,
   unitOfSymbol,
+  unitTakesPrefix,
 } from './units.js';
 
 /** Sign and mantissa (group 1), then the exponent digits with their sign (group 2). */
@@ -43,6 +44,20 @@ const NON_FINITE_WORD = /^[+-]?(?:nan|inf)/i;
  * larger exponent to matter: the result is already 0 or infinite.
  */
 const EXPONENT_CLAMP = 1e9;
+
+/**
+ * Whether the lower end of the interval that a decimal `mantissa`·10^`exponent` stands for (half a
+ * unit of its last digit below it) is a finite double: then the largest double rounds to the text.
+ */
+function roundsFromBelowLargest(mantissa: string, exponent: number): boolean {
+  const unsigned = mantissa.replace(/^[+-]/, '');
+  const point = unsigned.indexOf('.');
+  const fractionDigits = point < 0 ? 0 : unsigned.length - point - 1;
+  const digits = BigInt(unsigned.replace('.', '') || '0');
+  // (digits − ½)·10^(exponent − fractionDigits) = (2·digits − 1)·5·10^(exponent − fractionDigits − 1)
+  const lower = Number(`${(2n * digits - 1n) * 5n}e${exponent - fractionDigits - 1}`);
+  return Number.isFinite(lower);
+}
 
 /** A prefix and unit read from the text after the number. */
 interface Suffix {
@@ -61,7 +76,9 @@ function readSuffix(text: string): Suffix | undefined {
   const prefix = prefixExponent(text.charAt(0));
   const symbol = text.slice(1);
   const unit = unitOfSymbol(symbol);
-  if (prefix !== undefined && unit !== undefined) return { exponent: prefix, symbol, unit };
+  // A prefix before 1/V or V^½ would be ambiguous (milli of the quantity, or of the volt inside it).
+  if (prefix !== undefined && unit !== undefined && unitTakesPrefix(unit))
+    return { exponent: prefix, symbol, unit };
   return undefined;
 }
 
@@ -105,8 +122,10 @@ function reject(
  * exponent), optionally one space, an optional SI prefix (`f p n u µ m k M G T`, case-sensitive;
  * micro also as U+03BC or `u`) and an optional unit symbol, with no space between prefix and
  * symbol. When `unit` is given, a symbol in the text must be that unit or an alias of it (Ω also as
- * U+2126, `ohm`, `ohms`, `Ohm`); `'A/V²'`, `'1/V'` and `'V^½'` accept no symbol. Without `unit`,
- * any known symbol is accepted and ignored.
+ * U+2126, `ohm`, `ohms`, `Ohm`); the compound units as `formatValue` writes them (`"2 mA/V²"`,
+ * also `A/V^2`; `"0.02 1/V"` and `"0.5 V^½"`, also `V^0.5`, without a prefix). Without `unit`, any
+ * known symbol is accepted and ignored. Text whose magnitude rounds to a number beyond the largest
+ * double but includes it within its printed digits (`"1.8e308"`) reads as the largest double.
  *
  * @param text - the value: a finite number in SI base units, or text such as `"4.7k"` or `"10 µF"`
  * @param unit - the unit the value is expected in; a symbol in the text must match it
@@ -176,6 +195,10 @@ export function parseValue(
   exponent = Math.max(-EXPONENT_CLAMP, Math.min(EXPONENT_CLAMP, exponent));
   const value = Number(`${mantissa}e${exponent}`);
   if (!Number.isFinite(value)) {
+    // The text stands for every number that rounds to it: '1.8e308' (two digits) includes the
+    // largest double, 1.7976931348623157e308, which it then reads as.
+    if (roundsFromBelowLargest(mantissa, exponent))
+      return mantissa.startsWith('-') ? -Number.MAX_VALUE : Number.MAX_VALUE;
     throw reject(path, text, unit, 'its magnitude is too large for a double-precision number');
   }
   return value;

@@ -5,6 +5,7 @@
  * 9th edition, 2019, Table 7; symbols are case-sensitive (§3: "m" is milli, "M" is mega). Only the
  * prefixes from femto to tera are used: smaller and larger values are written with an exponent.
  */
+import { invalidValue } from '../errors/messages.js';
 
 /**
  * A unit symbol. The first ten are the units of the quantities a value may carry; `'A/V²'` (the
@@ -71,6 +72,7 @@ const QUANTITIES: Readonly<Record<Unit, string>> = {
  * ```
  */
 export function quantityName(unit: Unit): string {
+  if (!isUnit(unit)) throw invalidValue(['unit'], unit, `a unit symbol (one of ${UNITS.join(', ')})`);
   return QUANTITIES[unit];
 }
 
@@ -91,7 +93,7 @@ export function isUnit(value: unknown): value is Unit {
 
 /**
  * The symbols accepted in text for each unit. Ω also has the OHM SIGN U+2126 and spelled-out forms;
- * the last three units have none (they are spelled for formatting only).
+ * the compound units are read as formatValue writes them (`1/V` and `V^½` without a prefix).
  */
 const UNIT_SYMBOLS = new Map<string, Unit>([
   ['Ω', 'Ω'], // U+03A9 GREEK CAPITAL LETTER OMEGA, the form the SI Brochure prints
@@ -109,6 +111,12 @@ const UNIT_SYMBOLS = new Map<string, Unit>([
   ['S', 'S'],
   ['K', 'K'],
   ['eV', 'eV'],
+  // The compound units, as formatValue writes them, so that every formatted value reads back.
+  ['A/V²', 'A/V²'],
+  ['A/V^2', 'A/V²'],
+  ['1/V', '1/V'],
+  ['V^½', 'V^½'],
+  ['V^0.5', 'V^½'],
 ]);
 
 /**
@@ -127,14 +135,15 @@ export function unitOfSymbol(symbol: string): Unit | undefined {
 }
 
 /**
- * Whether text may carry a symbol for `unit`; false for `'A/V²'`, `'1/V'` and `'V^½'`.
+ * Whether text may carry a symbol for `unit` (every unit does: the compound ones as `formatValue`
+ * writes them, `A/V²` also as `A/V^2`, `V^½` also as `V^0.5`).
  *
  * @param unit - a unit symbol
  * @returns true when some symbol in text stands for `unit`
  * @example
  * ```ts
  * unitHasSymbol('Ω');    // true
- * unitHasSymbol('A/V²'); // false
+ * unitHasSymbol('A/V²'); // true
  * ```
  */
 export function unitHasSymbol(unit: Unit): boolean {

@@ -179,6 +179,7 @@ describe('operatingPoint when it truly cannot converge', () => {
       'newton',
       'conductance-stepping',
       'source-ramping',
+      'pseudo-transient',
     ]);
     expect(e.details.strategies.every((s) => !s.converged)).toBe(true);
     expect(e.details.devices).toContain('D1');

@@ -17,6 +17,9 @@ import {
 import { compileCount } from '../../src/mna/system.js';
 import { expectQuiescentError } from '../support/quiescent-error.js';
 
+/** Element values below 1e-60 are refused at the boundary (docs/analyses.md, "Arguments"): draw 0 instead. */
+const noSubnormal = (v: number): number => (Math.abs(v) < 1e-30 ? 0 : v);
+
 /** A sensor bridge's reference arm: a supply, two resistors and a diode clamp across the lower one. */
 function referenceArm(): Circuit {
   return new Circuit()
@@ -131,7 +134,7 @@ describe('prepareCircuit', () => {
 describe('value changes on a prepared circuit', () => {
   /** A ladder of resistors with a diode at every rung: random values, one topology. */
   const ladderValues = fc.record({
-    supply: fc.double({ min: -10, max: 10, noNaN: true }),
+    supply: fc.double({ min: -10, max: 10, noNaN: true }).map(noSubnormal),
     series: fc.array(fc.double({ min: 10, max: 1e5, noNaN: true }), { minLength: 4, maxLength: 4 }),
     shunt: fc.array(fc.double({ min: 10, max: 1e5, noNaN: true }), { minLength: 4, maxLength: 4 }),
     saturation: fc.array(fc.double({ min: 1e-15, max: 1e-9, noNaN: true }), { minLength: 4, maxLength: 4 }),

@@ -4,6 +4,9 @@ import { acAnalysis, Circuit, GROUND, linearity, type MosfetModel, operatingPoin
 import reference from '../reference/mosfet-charge.json';
 import { expectRelativelyClose } from '../support/close.js';
 
+/** Element values below 1e-60 are refused at the boundary (docs/analyses.md, "Arguments"): draw 0 instead. */
+const noSubnormal = (v: number): number => (Math.abs(v) < 1e-30 ? 0 : v);
+
 const T = 300.15;
 const BARE = { temperature: T, junctionConductance: 1e-30 };
 const MODEL = {
@@ -155,9 +158,9 @@ describe('the charge-based channel at any bias (properties)', () => {
     // = −id(vgs − vds, −vds, vbs − vds).
     fc.assert(
       fc.property(
-        fc.double({ min: -0.5, max: 2.5, noNaN: true }),
-        fc.double({ min: 0, max: 3, noNaN: true }),
-        fc.double({ min: -1, max: 0, noNaN: true }),
+        fc.double({ min: -0.5, max: 2.5, noNaN: true }).map(noSubnormal),
+        fc.double({ min: 0, max: 3, noNaN: true }).map(noSubnormal),
+        fc.double({ min: -1, max: 0, noNaN: true }).map(noSubnormal),
         (vgs, vds, vbs) => {
           const forward = operatingPoint(biased(vgs, vds, vbs), BARE).mosfet('M1');
           const swapped = operatingPoint(biased(vgs - vds, -vds, vbs - vds), BARE).mosfet('M1');

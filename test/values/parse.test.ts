@@ -311,14 +311,26 @@ describe('parseValue rejects what it cannot read', () => {
     expectRejected('1mS', 's', 'S is the unit of conductance', 'case-sensitive');
   });
 
-  it('accepts no symbol for units spelled for formatting only', () => {
+  it('reads the compound units as formatValue writes them, so that every formatted value reads back', () => {
     expect(parseValue('2m', 'A/V²')).toBe(0.002);
     expect(parseValue('20m', '1/V')).toBe(0.02);
     expect(parseValue('0.5', 'V^½')).toBe(0.5);
-    expectRejected('2mA/V²', 'A/V²', 'a gain factor in A/V²', 'expected only an optional SI prefix');
-    expectRejected('0.02 1/V', '1/V', 'a reciprocal voltage in 1/V');
-    expectRejected('0.5 V^½', 'V^½', 'a square root of voltage in V^½');
+    expect(parseValue('2 mA/V²', 'A/V²')).toBe(0.002);
+    expect(parseValue('2 mA/V^2', 'A/V²')).toBe(0.002);
+    expect(parseValue('0.02 1/V', '1/V')).toBe(0.02);
+    expect(parseValue('0.5 V^½', 'V^½')).toBe(0.5);
+    expect(parseValue('0.5 V^0.5', 'V^½')).toBe(0.5);
+    // A prefix before 1/V would be ambiguous: milli of the quantity, or per millivolt.
+    expectRejected('20 m1/V', '1/V', 'a reciprocal voltage in 1/V');
     expectRejected('2V', '1/V', 'V is the unit of voltage');
+    expectRejected('2 mF', 'A/V²', 'F is the unit of capacitance');
+  });
+
+  it('reads text that rounds to the largest double within its printed digits as that double', () => {
+    // 1.8e308 with two digits stands for [1.75e308, 1.85e308), which holds 1.7976931348623157e308.
+    expect(parseValue('1.8e308 V', 'V')).toBe(Number.MAX_VALUE);
+    expect(parseValue('-1.8e308')).toBe(-Number.MAX_VALUE);
+    expectRejected('1.9e308', undefined, 'a valid value', 'too large');
   });
 
   it('rejects values that are neither numbers nor strings', () => {
