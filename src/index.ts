@@ -152,6 +152,27 @@ export {
   linearityVerdict,
 } from './report/linearity-table.js';
 export {
+  type AcMeasureForm,
+  type Distribution,
+  type JobHooks,
+  type Measure,
+  type MeasureSummary,
+  MonteCarlo,
+  type MonteCarloFailure,
+  type MonteCarloJob,
+  type MonteCarloJobOptions,
+  type MonteCarloJson,
+  type MonteCarloOptions,
+  mergeMonteCarlo,
+  monteCarlo,
+  monteCarloJob,
+  runMonteCarloJob,
+  type SpecLimits,
+  type Tolerance,
+  WILSON_Z,
+  type YieldEstimate,
+} from './statistics/index.js';
+export {
   type FormatOptions,
   formatValue,
   parseValue,

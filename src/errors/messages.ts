@@ -123,3 +123,11 @@ export function noConvergence(details: {
     `the operating point could not be found after ${tried}; largest residuals at ${worst || 'no node'}${devices}`,
   );
 }
+
+/** A long run was stopped through its AbortSignal. */
+export function cancelled(run: string, done: number, total: number): QuiescentError {
+  return new QuiescentError(
+    { code: 'cancelled', run },
+    `the ${run} run was stopped through its AbortSignal after ${done} of ${total} samples`,
+  );
+}

@@ -13,7 +13,8 @@ export type ErrorCode =
   | 'floating-node'
   | 'singular'
   | 'no-convergence'
-  | 'invalid-circuit';
+  | 'invalid-circuit'
+  | 'cancelled';
 
 /** One fallback strategy of the operating-point search and how it ended. */
 export interface StrategyAttempt {
@@ -104,6 +105,12 @@ export type ErrorDetails =
       readonly code: 'invalid-circuit';
       /** Where the problem is, such as `['elements', 3, 'kind']`. */
       readonly path: readonly (string | number)[];
+    }
+  | {
+      /** A long run was stopped through its AbortSignal. */
+      readonly code: 'cancelled';
+      /** What was stopped, such as `'monte-carlo'`. */
+      readonly run: string;
     };
 
 /** The details type that belongs to one code. */
