@@ -170,6 +170,10 @@ export {
   type SpecLimits,
   type Tolerance,
   WILSON_Z,
+  type WorstCase,
+  type WorstCaseExtreme,
+  type WorstCaseOptions,
+  worstCase,
   type YieldEstimate,
 } from './statistics/index.js';
 export {

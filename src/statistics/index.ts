@@ -16,3 +16,11 @@ export {
 } from './monte-carlo-result.js';
 export { type MeasureSummary, WILSON_Z, type YieldEstimate } from './summary.js';
 export type { Distribution, Tolerance } from './tolerances.js';
+export {
+  DEFAULT_VERTEX_LIMIT,
+  MAX_VERTEX_PARAMETERS,
+  type WorstCase,
+  type WorstCaseExtreme,
+  type WorstCaseOptions,
+  worstCase,
+} from './worst-case.js';

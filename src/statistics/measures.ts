@@ -29,7 +29,7 @@ export type Measure =
     };
 
 /** A measure sorted by what it needs: the operating point alone, or an AC solve too. */
-type Checked =
+export type CheckedMeasure =
   | { readonly type: 'probe'; readonly probe: Probe }
   | { readonly type: 'device'; readonly device: string; readonly field: string }
   | { readonly type: 'ac'; readonly output: Probe; readonly frequency: number; readonly form: AcMeasureForm };
@@ -38,7 +38,8 @@ type Checked =
 export class MeasureSet {
   /** The measure names, in the order given. */
   readonly names: readonly string[];
-  readonly #checked: readonly Checked[];
+  /** The measures, checked, in the order of {@link MeasureSet.names}. */
+  readonly checked: readonly CheckedMeasure[];
   /** The distinct AC frequencies, and each AC measure's index among them. */
   readonly #frequencies: Float64Array;
   readonly #frequencyIndex: Int32Array;
@@ -50,10 +51,10 @@ export class MeasureSet {
     const entries = Object.entries(measures as Record<string, unknown>);
     if (entries.length === 0) throw invalidValue(['options', 'measures'], '{}', 'at least one measure');
     this.names = entries.map(([name]) => name);
-    this.#checked = entries.map(([name, m]) => check(m, ['options', 'measures', name]));
+    this.checked = entries.map(([name, m]) => check(m, ['options', 'measures', name]));
     const frequencies: number[] = [];
     this.#frequencyIndex = new Int32Array(entries.length).fill(-1);
-    this.#checked.forEach((m, k) => {
+    this.checked.forEach((m, k) => {
       if (m.type !== 'ac') return;
       let at = frequencies.indexOf(m.frequency);
       if (at < 0) at = frequencies.push(m.frequency) - 1;
@@ -66,8 +67,8 @@ export class MeasureSet {
   read(op: OperatingPoint, out: Float64Array): void {
     let ac: AcAnalysis | null = null;
     if (this.#frequencies.length > 0) ac = acAnalysis(op, { frequencies: this.#frequencies });
-    for (let k = 0; k < this.#checked.length; k++) {
-      const m = this.#checked[k]!;
+    for (let k = 0; k < this.checked.length; k++) {
+      const m = this.checked[k]!;
       let value: number;
       if (m.type === 'probe') value = readProbe(op, m.probe);
       else if (m.type === 'device') value = readField(op, m.device, m.field, this.names[k]!);
@@ -80,7 +81,7 @@ export class MeasureSet {
   }
 }
 
-function check(m: unknown, path: (string | number)[]): Checked {
+function check(m: unknown, path: (string | number)[]): CheckedMeasure {
   if (typeof m === 'string') return { type: 'probe', probe: m };
   if (m !== null && typeof m === 'object') {
     const o = m as Record<string, unknown>;
@@ -125,7 +126,7 @@ function readField(op: OperatingPoint, device: string, field: string, name: stri
   return value;
 }
 
-function readAc(ac: AcAnalysis, m: Extract<Checked, { type: 'ac' }>, at: number): number {
+function readAc(ac: AcAnalysis, m: Extract<CheckedMeasure, { type: 'ac' }>, at: number): number {
   const y = ac.response(m.output)[at]!;
   if (m.form === 'phase-degrees') return (Math.atan2(y.im, y.re) * 180) / Math.PI;
   const magnitude = Math.hypot(y.re, y.im);

@@ -58,7 +58,7 @@ export interface VariedParameter {
   /** The relative tolerance r, or null for a tolerance given by its ends. */
   readonly relative: number | null;
   readonly distribution: Distribution;
-  /** The two ends of the range (a relative tolerance: p·(1 − r) and p·(1 + r)). */
+  /** The two ends of the range, low ≤ high (a relative tolerance: p·(1 ∓ r)). */
   readonly low: number;
   readonly high: number;
 }
@@ -188,8 +188,9 @@ function spread(
       nominal,
       relative: r,
       distribution,
-      low: nominal * (1 - r),
-      high: nominal * (1 + r),
+      // For a negative nominal value p·(1 + r) is the lower end.
+      low: Math.min(nominal * (1 - r), nominal * (1 + r)),
+      high: Math.max(nominal * (1 - r), nominal * (1 + r)),
     };
   }
   if (!hasRange) throw invalidValue(path, key, 'a tolerance with relative, or with min and max');
