@@ -1,6 +1,14 @@
 export { type AcReportOptions, acTable, formatAcAnalysis, probeLabel } from './ac-table.js';
 export { type DcSweepReportOptions, dcSweepTable, formatDcSweep } from './dc-sweep-table.js';
 export { currentDirection } from './element-currents.js';
+export { type HistogramOptions, histogramSvg } from './histogram-svg.js';
+export {
+  formatMonteCarlo,
+  formatWorstCase,
+  monteCarloTable,
+  type ToleranceReportOptions,
+  worstCaseTable,
+} from './monte-carlo-table.js';
 export { type DeviceJson, type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
 export { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
 export {
