@@ -18,8 +18,9 @@ export interface HistogramOptions {
   readonly spec?: SpecLimits;
   /** The number of bins (default √n, between 5 and 60). */
   readonly bins?: number;
-  /** Width and height in px (default 720 × 360). */
+  /** Width in px (default 720). */
   readonly width?: number;
+  /** Height in px (default 360). */
   readonly height?: number;
 }
 

@@ -19,12 +19,15 @@ export interface MonteCarloFailure {
 
 /** Specification limits of one measure (either or both; inclusive). */
 export interface SpecLimits {
+  /** The lowest value within specification. */
   readonly min?: number;
+  /** The highest value within specification. */
   readonly max?: number;
 }
 
 /** A Monte Carlo result as plain JSON: what a worker sends back and what {@link mergeMonteCarlo} joins. */
 export interface MonteCarloJson {
+  /** Always `'quiescent-monte-carlo'`. */
   readonly format: 'quiescent-monte-carlo';
   /** The seed of the run. */
   readonly seed: number;
@@ -40,6 +43,7 @@ export interface MonteCarloJson {
   readonly values: Readonly<Record<string, readonly number[]>>;
   /** The sample number of each entry of `values`. */
   readonly sampleIndex: readonly number[];
+  /** The samples whose analysis failed, with their reasons. */
   readonly failures: readonly MonteCarloFailure[];
 }
 

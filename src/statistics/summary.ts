@@ -8,16 +8,23 @@
 export interface MeasureSummary {
   /** How many samples solved (the entries the statistics are taken over). */
   readonly count: number;
+  /** The arithmetic mean. */
   readonly mean: number;
   /** The sample standard deviation, with n − 1 (NaN below two samples). */
   readonly standardDeviation: number;
+  /** The smallest value. */
   readonly min: number;
+  /** The largest value. */
   readonly max: number;
-  /** Percentiles: linear interpolation between sorted values at (n − 1)·p/100, zero-based. */
+  /** The 1st percentile: linear interpolation between sorted values at (n − 1)·p/100, zero-based. */
   readonly p1: number;
+  /** The 5th percentile. */
   readonly p5: number;
+  /** The median. */
   readonly p50: number;
+  /** The 95th percentile. */
   readonly p95: number;
+  /** The 99th percentile. */
   readonly p99: number;
 }
 

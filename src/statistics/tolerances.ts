@@ -23,7 +23,12 @@ export type Distribution = 'uniform' | 'normal';
 export type Tolerance =
   | {
       /** The element's name, or `{ kind }` for every element of that kind, each varied independently. */
-      readonly element: string | { readonly kind: ElementKind };
+      readonly element:
+        | string
+        | {
+            /** Every element of this kind (`'resistor'`, `'bjt'`, …). */
+            readonly kind: ElementKind;
+          };
       /** The parameter: `resistance`, `dc`, `forwardBeta`, … (the names of `PreparedCircuit.setValue`). */
       readonly parameter: string;
       /** The tolerance relative to the nominal value (0.01 for ±1 %). */

@@ -41,7 +41,15 @@ export interface WorstCaseExtreme {
 
 /** The worst case of every measure, by measure name. */
 export type WorstCase = Readonly<
-  Record<string, { readonly min: WorstCaseExtreme; readonly max: WorstCaseExtreme }>
+  Record<
+    string,
+    {
+      /** The lowest value and where it is reached. */
+      readonly min: WorstCaseExtreme;
+      /** The highest value and where it is reached. */
+      readonly max: WorstCaseExtreme;
+    }
+  >
 >;
 
 /** The most varied parameters vertex enumeration takes (2¹⁶ solves). */
