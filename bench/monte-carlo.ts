@@ -74,9 +74,13 @@ console.log(
   `dcSweep point ${(perPoint * 1e6).toFixed(1)} µs, Monte Carlo sample ${(perSample * 1e6).toFixed(1)} µs: ratio ${(perSample / perPoint).toFixed(2)}`,
 );
 
+// Start-up: a pool of 2 workers that each solve one sample (loading the module, the nominal solve).
+const startUp = await seconds(() => monteCarlo(circuit, { ...options, samples: 2, workers: 2 }));
 const two = await seconds(() => monteCarlo(circuit, { ...options, samples, workers: 2 }));
 console.log(
-  `${samples} samples: calling thread ${here.toFixed(2)} s, 2 workers ${two.toFixed(2)} s (start-up included): throughput ×${(here / two).toFixed(2)}; load ${load()}`,
+  `${samples} samples: calling thread ${here.toFixed(2)} s, 2 workers ${two.toFixed(2)} s ` +
+    `(start-up ${startUp.toFixed(2)} s): throughput ×${(here / two).toFixed(2)} end to end, ` +
+    `×${(here / Math.max(1e-9, two - startUp)).toFixed(2)} past start-up; load ${load()}`,
 );
 
 let total = 0;
@@ -96,6 +100,7 @@ console.log(
     samples,
     oneThreadSeconds: here,
     twoWorkersSeconds: two,
+    workerStartUpSeconds: startUp,
     throughputRatio: here / two,
     totalSamples: args['skip-total'] ? 0 : totalSamples,
     totalSeconds: total,

@@ -13,6 +13,7 @@ const BENCHMARKS: readonly (readonly string[])[] = [
   ['ac-analysis.ts'],
   ['pipeline.ts', '--sizes', '1000,10000'],
   ['small-circuit.ts'],
+  ['monte-carlo.ts', '--samples', '4000', '--skip-total'],
 ];
 
 const here = dirname(fileURLToPath(import.meta.url));
