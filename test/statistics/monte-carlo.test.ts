@@ -152,6 +152,25 @@ describe('monteCarlo on a divider', () => {
     expect(before.code).toBe('cancelled');
   });
 
+  it('stops its workers with cancelled when its signal aborts', async () => {
+    const controller = new AbortController();
+    const started = Date.now();
+    const error = await rejection(
+      monteCarlo(divider(), {
+        samples: 2_000_000,
+        seed: 1,
+        tolerances: [{ element: 'upper', parameter: 'resistance', relative: 0.01 }],
+        measures: { out: 'out' },
+        workers: 2,
+        signal: controller.signal,
+        onProgress: () => controller.abort(),
+      }),
+    );
+    expect(error.code).toBe('cancelled');
+    // Two million samples would take minutes; the abort ends the run at the first progress report.
+    expect(Date.now() - started).toBeLessThan(30_000);
+  });
+
   it('names what is wrong in its options', async () => {
     const base: MonteCarloOptions = {
       samples: 10,
