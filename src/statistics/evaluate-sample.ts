@@ -67,6 +67,22 @@ export class SampleEvaluator {
   }
 
   /**
+   * Read the measures at the nominal point, so that a measure naming a node or element the circuit
+   * lacks (or a device field that is not a number) stops the run at once instead of failing every
+   * sample. Skipped when the nominal point did not solve.
+   *
+   * @throws QuiescentError `unknown-node`, `unknown-element`, `invalid-value`
+   */
+  checkMeasures(): void {
+    if (this.nominal instanceof QuiescentError) return;
+    try {
+      this.#measures.read(this.nominal, new Float64Array(this.#measures.names.length));
+    } catch (e) {
+      if (e instanceof QuiescentError && e.code !== 'singular' && e.code !== 'no-convergence') throw e;
+    }
+  }
+
+  /**
    * Solve with `values` (one per varied parameter, in order) and write the measures into `out`.
    * Returns null on success, or the failure (a value out of range, no convergence, …).
    */

@@ -148,6 +148,7 @@ export class JobRun {
     this.#measures = new MeasureSet(job.options.measures);
     this.#draws = new Draws(job.options.seed);
     this.#evaluator = new SampleEvaluator(circuit.elements, opOptions, this.#varied, this.#measures);
+    this.#evaluator.checkMeasures();
     const count = end - start;
     this.#drawn = this.#varied.map(() => new Float64Array(count));
     this.#values = this.#measures.names.map(() => new Float64Array(count));

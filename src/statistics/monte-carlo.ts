@@ -66,6 +66,8 @@ export async function monteCarlo(circuit: Circuit, options: MonteCarloOptions): 
   const [start, end] = rangeOf(job.options);
   if (options.signal?.aborted === true) throw cancelled('Monte Carlo', 0, end - start);
   if (workers === 1) return runHere(new JobRun(job), options);
+  // The measures are checked here once (a nominal solve), so a wrong name fails before any worker starts.
+  new JobRun({ ...job, options: { ...job.options, range: [start, start + 1] } });
   return runOnWorkers(job.document, job.options, [start, end], workers, options);
 }
 

@@ -88,6 +88,7 @@ export function worstCase(circuit: Circuit, options: WorstCaseOptions): WorstCas
     throw invalidValue(['options', 'method'], method, "'vertices' or 'sensitivity'");
   }
   const evaluator = new SampleEvaluator(circuit.elements, opOptions, varied, measures);
+  evaluator.checkMeasures();
   const corner = new Corner(evaluator, varied, measures);
   return method === 'vertices' ? byVertices(corner) : bySensitivity(corner, evaluator);
 }

@@ -202,6 +202,15 @@ describe('monteCarlo on a divider', () => {
       }),
     ).toBe('invalid-value');
     expect(await code({ ...base, measures: {} })).toBe('invalid-value');
+    expect(await code({ ...base, measures: { nowhere: 'nowhere' } })).toBe('unknown-node');
+    expect(await code({ ...base, measures: { nowhere: 'nowhere' }, workers: 2 })).toBe('unknown-node');
+    expect(await code({ ...base, measures: { ghost: { element: 'ghost' } } })).toBe('unknown-element');
+    expect(
+      await code({
+        ...base,
+        measures: { out: { output: 'out', frequency: 1e3, form: 'loudness' as 'magnitude' } },
+      }),
+    ).toBe('invalid-value');
   });
 });
 
