@@ -214,15 +214,22 @@ function spread(
   };
 }
 
-/** The value of varied parameter `p` (draw stream `stream`) in sample `sample`. */
+/**
+ * The value of varied parameter `p` (draw stream `stream`) in sample `sample`, kept within [low, high]
+ * (the formulas stay inside it but for the rounding of their last bit).
+ */
 export function drawValue(p: VariedParameter, draws: Draws, sample: number, stream: number): number {
   const r = p.relative;
+  let v: number;
   if (p.distribution === 'uniform') {
     const u = draws.uniform(sample, stream);
-    return r === null ? p.low + (p.high - p.low) * u : p.nominal * (1 + r * (2 * u - 1));
+    v = r === null ? p.low + (p.high - p.low) * u : p.nominal * (1 + r * (2 * u - 1));
+  } else {
+    const z = draws.normal(sample, stream);
+    v =
+      r === null
+        ? (p.low + p.high) / 2 + ((p.high - p.low) / (2 * NORMAL_LIMIT)) * z
+        : p.nominal * (1 + (r / NORMAL_LIMIT) * z);
   }
-  const z = draws.normal(sample, stream);
-  return r === null
-    ? (p.low + p.high) / 2 + ((p.high - p.low) / (2 * NORMAL_LIMIT)) * z
-    : p.nominal * (1 + (r / NORMAL_LIMIT) * z);
+  return Math.min(p.high, Math.max(p.low, v));
 }

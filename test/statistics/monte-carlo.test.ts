@@ -1,4 +1,5 @@
 import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
   Circuit,
@@ -250,6 +251,63 @@ describe('reproducibility', () => {
         expect(bytes(other.parameters[key]!)).toEqual(bytes(one.parameters[key]!));
       }
     }
+  });
+
+  it('gives the same result for any split into ranges, merged in any order (property)', () => {
+    // Common practice, no source: the definition of the draws (docs/tolerances.md, "Seeds and reproducibility").
+    const job = monteCarloJob(divider(), { ...options, samples: 40 });
+    const whole = JSON.stringify(runMonteCarloJob(job));
+    fc.assert(
+      fc.property(
+        fc.uniqueArray(fc.integer({ min: 1, max: 39 }), { maxLength: 6 }),
+        fc.boolean(),
+        (cuts, reverse) => {
+          const edges = [0, ...cuts.sort((a, b) => a - b), 40];
+          const parts = edges
+            .slice(1)
+            .map((end, k) =>
+              runMonteCarloJob({ ...job, options: { ...job.options, range: [edges[k]!, end] } }),
+            );
+          if (reverse) parts.reverse();
+          expect(JSON.stringify(mergeMonteCarlo(parts))).toBe(whole);
+        },
+      ),
+      { seed: 40, numRuns: 15 },
+    );
+  });
+
+  it('draws every value within its tolerance (property)', () => {
+    // The definitions of docs/tolerances.md, "Tolerances": p·(1 ± r), or [min, max].
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0, max: 0.5, noNaN: true }),
+        fc.double({ min: 1, max: 20, noNaN: true }),
+        fc.double({ min: 0, max: 5, noNaN: true }),
+        fc.constantFrom('uniform' as const, 'normal' as const),
+        (relative, low, width, distribution) => {
+          const mc = runMonteCarloJob(
+            monteCarloJob(divider(), {
+              samples: 25,
+              seed: 3,
+              tolerances: [
+                { element: 'upper', parameter: 'resistance', relative, distribution },
+                { element: 'supply', parameter: 'dc', min: low, max: low + width, distribution },
+              ],
+              measures: { out: 'out' },
+            }),
+          );
+          for (const r of mc.parameters['upper.resistance']!) {
+            expect(r).toBeGreaterThanOrEqual(3000 * (1 - relative) * (1 - 1e-15));
+            expect(r).toBeLessThanOrEqual(3000 * (1 + relative) * (1 + 1e-15));
+          }
+          for (const v of mc.parameters['supply.dc']!) {
+            expect(v).toBeGreaterThanOrEqual(low);
+            expect(v).toBeLessThanOrEqual(low + width);
+          }
+        },
+      ),
+      { seed: 41, numRuns: 30 },
+    );
   });
 
   it('refuses to merge parts of different runs or overlapping ranges', () => {
