@@ -65,7 +65,9 @@ const load = () => loadavg()[0]!.toFixed(2);
 await monteCarlo(circuit, { ...options, samples: 300 });
 dcSweep(circuit, { source: 'drive', values: linearSweep(7.9, 8.1, 300) });
 const sweepPoints = samples;
-const sweep = await seconds(() => dcSweep(circuit, { source: 'drive', values: linearSweep(7.9, 8.1, sweepPoints) }));
+const sweep = await seconds(() =>
+  dcSweep(circuit, { source: 'drive', values: linearSweep(7.9, 8.1, sweepPoints) }),
+);
 const here = await seconds(() => monteCarlo(circuit, { ...options, samples }));
 const perPoint = sweep / sweepPoints;
 const perSample = here / samples;
