@@ -89,6 +89,40 @@ describe('monteCarlo on a divider', () => {
     expect(y.high).toBeGreaterThan(reference.yield.probability);
   });
 
+  it('reads AC measures of every sample as the closed form of its drawn values', async () => {
+    // First-order RC low-pass: H = 1/(1 + jωRC), |H| = 1/√(1 + (ωRC)²), arg H = −atan(ωRC)
+    // (common practice, no source).
+    const filter = new Circuit()
+      .voltageSource('source', 'in', GROUND, { ac: 1 })
+      .resistor('series', 'in', 'out', '10k')
+      .capacitor('shunt', 'out', GROUND, '15.9n');
+    const mc = await monteCarlo(filter, {
+      samples: 50,
+      seed: 8,
+      tolerances: [
+        { element: 'series', parameter: 'resistance', relative: 0.01 },
+        { element: 'shunt', parameter: 'capacitance', relative: 0.1, distribution: 'normal' },
+      ],
+      measures: {
+        level: { output: 'out', frequency: 1000, form: 'magnitude-db' },
+        size: { output: 'out', frequency: 1000, form: 'magnitude' },
+        phase: { output: 'out', frequency: 1000, form: 'phase-degrees' },
+      },
+    });
+    expect(mc.sampleIndex).toHaveLength(50);
+    for (let k = 0; k < 50; k++) {
+      const wrc =
+        2 *
+        Math.PI *
+        1000 *
+        mc.parameters['series.resistance']![k]! *
+        mc.parameters['shunt.capacitance']![k]!;
+      expect(mc.values.size![k]).toBeCloseTo(1 / Math.sqrt(1 + wrc * wrc), 12);
+      expect(mc.values.level![k]).toBeCloseTo(-10 * Math.log10(1 + wrc * wrc), 10);
+      expect(mc.values.phase![k]).toBeCloseTo((-Math.atan(wrc) * 180) / Math.PI, 10);
+    }
+  });
+
   it('keeps a sample whose draw makes a resistance 0 or less as a failure, and goes on', async () => {
     // Common practice, no source: a resistance must be positive (docs/tolerances.md, "Failures").
     const mc = await monteCarlo(divider(), {
