@@ -11,6 +11,7 @@ import {
   QuiescentError,
   runMonteCarloJob,
 } from '../../src/index.js';
+import { compileCount } from '../../src/mna/system.js';
 
 const reference = JSON.parse(
   readFileSync(new URL('../reference/monte-carlo-moments.json', import.meta.url), 'utf8'),
@@ -141,6 +142,18 @@ describe('monteCarlo on a divider', () => {
     expect(mc.parameters['lower.resistance']![failure.sample]!).toBeLessThanOrEqual(0);
     // Failures count as out of specification.
     expect(mc.yield({ out: { min: -1, max: 100 } }).passed).toBe(200 - negative);
+  });
+
+  it('compiles the circuit once per run, not once per sample', async () => {
+    // The prepared circuit takes each sample's values without compiling (docs/analyses.md, prepared circuits).
+    const before = compileCount();
+    await monteCarlo(divider(), {
+      samples: 100,
+      seed: 2,
+      tolerances: [{ element: { kind: 'resistor' }, parameter: 'resistance', relative: 0.05 }],
+      measures: { out: 'out' },
+    });
+    expect(compileCount() - before).toBe(1);
   });
 
   it('reports progress as samples finish, up to the total', async () => {
