@@ -17,6 +17,7 @@ const BENCHMARKS: readonly (readonly string[])[] = [
   ['linearity.ts'],
   ['stability.ts'],
   ['convergence.ts'],
+  ['monte-carlo.ts', '--samples', '4000', '--skip-total'],
 ];
 
 const here = dirname(fileURLToPath(import.meta.url));

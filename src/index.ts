@@ -207,12 +207,17 @@ export {
   escapeHtml,
   formatAcAnalysis,
   formatDcSweep,
+  formatMonteCarlo,
   formatOperatingPoint,
+  formatWorstCase,
+  type HistogramOptions,
+  histogramSvg,
   htmlTable,
   type JunctionLinearityJson,
   type LinearityReportJson,
   linearityToJson,
   type MimeBundle,
+  monteCarloTable,
   NOTEBOOK_DISPLAY,
   type OperatingPointJson,
   type OutputLinearityJson,
@@ -232,6 +237,8 @@ export {
   svgPlot,
   type TableColumn,
   type TextTable,
+  type ToleranceReportOptions,
+  worstCaseTable,
 } from './report/index.js';
 export {
   formatLinearity,
@@ -250,6 +257,31 @@ export {
 export { type NoisePlotOptions, noisePlotSvg } from './report/noise-plot.js';
 export { formatNoise, type NoiseReportOptions, noiseTables } from './report/noise-table.js';
 export { formatStabilityReport, rootsTable, stabilityTables } from './report/stability-table.js';
+export {
+  type AcMeasureForm,
+  type Distribution,
+  type JobHooks,
+  type Measure,
+  type MeasureSummary,
+  MonteCarlo,
+  type MonteCarloFailure,
+  type MonteCarloJob,
+  type MonteCarloJobOptions,
+  type MonteCarloJson,
+  type MonteCarloOptions,
+  mergeMonteCarlo,
+  monteCarlo,
+  monteCarloJob,
+  runMonteCarloJob,
+  type SpecLimits,
+  type Tolerance,
+  WILSON_Z,
+  type WorstCase,
+  type WorstCaseExtreme,
+  type WorstCaseOptions,
+  worstCase,
+  type YieldEstimate,
+} from './statistics/index.js';
 export {
   DEFAULT_DIGITS,
   type FormatOptions,

@@ -234,3 +234,11 @@ export function noSignal(output: string, frequencies: readonly number[], why: st
     `the output ${output} carries no signal${where} (${why}), so no ratio to its fundamental exists`,
   );
 }
+
+/** A long run was stopped through its AbortSignal. */
+export function cancelled(run: string, done: number, total: number): QuiescentError {
+  return new QuiescentError(
+    { code: 'cancelled', run },
+    `the ${run} run was stopped through its AbortSignal after ${done} of ${total} samples`,
+  );
+}

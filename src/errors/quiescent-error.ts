@@ -14,7 +14,8 @@ export type ErrorCode =
   | 'singular'
   | 'no-convergence'
   | 'invalid-circuit'
-  | 'no-signal';
+  | 'no-signal'
+  | 'cancelled';
 
 /** One fallback strategy of the operating-point search and how it ended. */
 export interface StrategyAttempt {
@@ -129,6 +130,12 @@ export type ErrorDetails =
       readonly output: string;
       /** The frequencies looked at, in Hz (empty for the large-signal check, which has none). */
       readonly frequencies: readonly number[];
+    }
+  | {
+      /** A long run was stopped through its AbortSignal. */
+      readonly code: 'cancelled';
+      /** What was stopped, such as `'monte-carlo'`. */
+      readonly run: string;
     };
 
 /** The details type that belongs to one code. */

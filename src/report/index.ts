@@ -2,7 +2,15 @@ export { probeLabel, ratioLabel } from '../analysis/probe-label.js';
 export { type AcReportOptions, acTable, formatAcAnalysis } from './ac-table.js';
 export { type DcSweepReportOptions, dcSweepTable, formatDcSweep } from './dc-sweep-table.js';
 export { currentDirection } from './element-currents.js';
+export { type HistogramOptions, histogramSvg } from './histogram-svg.js';
 export { escapeHtml, htmlTable } from './html-table.js';
+export {
+  formatMonteCarlo,
+  formatWorstCase,
+  monteCarloTable,
+  type ToleranceReportOptions,
+  worstCaseTable,
+} from './monte-carlo-table.js';
 export { type DeviceJson, type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
 export { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
 export { acAnalysisHtml, bodePlot, operatingPointHtml } from './result-html.js';

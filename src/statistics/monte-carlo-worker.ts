@@ -1,0 +1,29 @@
+/**
+ * The worker side of a Monte Carlo pool: runs one job (a range of samples) and returns its result as
+ * plain JSON, reporting progress as samples finish (at most every 20 ms, and at the end).
+ */
+import workerpool from 'workerpool';
+import { type MonteCarloJob, runMonteCarloJob } from './job.js';
+import type { MonteCarloJson } from './monte-carlo-result.js';
+
+const PROGRESS_INTERVAL_MS = 20;
+
+function runRange(job: MonteCarloJob): MonteCarloJson {
+  let last = Date.now();
+  let reported = 0;
+  const result = runMonteCarloJob(job, {
+    onSample(done) {
+      const now = Date.now();
+      if (now - last >= PROGRESS_INTERVAL_MS) {
+        workerpool.workerEmit({ done: done - reported });
+        reported = done;
+        last = now;
+      }
+    },
+  });
+  const total = result.range[1] - result.range[0];
+  if (total > reported) workerpool.workerEmit({ done: total - reported });
+  return result.toJSON();
+}
+
+workerpool.worker({ runRange });
