@@ -86,11 +86,11 @@ export {
   type VoltageSourceRecord,
 } from './circuit/elements.js';
 export { type CircuitDocument, DOCUMENT_FORMAT, DOCUMENT_VERSION } from './circuit/json.js';
-export type { BjtModel } from './devices/bjt-model.js';
-export type { DiodeModel } from './devices/diode-model.js';
+export type { BjtModel } from './devices/bjt/bjt-model.js';
+export type { DiodeModel } from './devices/diode/diode-model.js';
 export { BOLTZMANN, ELEMENTARY_CHARGE, thermalVoltage } from './devices/junction.js';
-export type { MosfetModel } from './devices/mosfet-model.js';
-export type { OpAmpOptions } from './devices/op-amp-model.js';
+export type { MosfetModel } from './devices/mosfet/mosfet-model.js';
+export type { OpAmpOptions } from './devices/op-amp/op-amp-model.js';
 export {
   type DetailsOf,
   type ErrorCode,

@@ -8,10 +8,10 @@
  */
 import type { Circuit } from '../circuit/circuit.js';
 import { type ElementRecord, GROUND } from '../circuit/elements.js';
-import { BJT_PARAMETERS } from '../devices/bjt-model.js';
-import { DIODE_PARAMETERS } from '../devices/diode-model.js';
-import { MOSFET_PARAMETERS } from '../devices/mosfet-model.js';
-import { OP_AMP_PARAMETERS } from '../devices/op-amp-model.js';
+import { BJT_PARAMETERS } from '../devices/bjt/bjt-model.js';
+import { DIODE_PARAMETERS } from '../devices/diode/diode-model.js';
+import { MOSFET_PARAMETERS } from '../devices/mosfet/mosfet-model.js';
+import { OP_AMP_PARAMETERS } from '../devices/op-amp/op-amp-model.js';
 import { type ParameterTable, parseParameters } from '../devices/parameters.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';

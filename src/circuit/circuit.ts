@@ -2,10 +2,11 @@
  * The circuit builder. Each method checks its own arguments at once and appends one element record;
  * checks that need the whole circuit run when an analysis starts (see topology.ts).
  */
-import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt-model.js';
-import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode-model.js';
-import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet-model.js';
-import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp-model.js';
+import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt/bjt-model.js';
+import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode/diode-model.js';
+import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet/mosfet-model.js';
+import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
+import type { ElementBuilder } from '../devices/descriptor.js';
 import { parseParameters } from '../devices/parameters.js';
 import { duplicateName, invalidCircuit, invalidValue } from '../errors/messages.js';
 import { parseValue, type Unit } from '../values/index.js';
@@ -69,7 +70,7 @@ export interface MosfetTerminals {
  *   .diode('D1', 'out', GROUND);
  * ```
  */
-export class Circuit {
+export class Circuit implements ElementBuilder {
   #elements: ElementRecord[] = [];
   #byName = new Map<string, ElementRecord>();
   #revision = 0;

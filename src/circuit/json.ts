@@ -5,6 +5,7 @@
 import { invalidCircuit } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
 import type { Circuit } from './circuit.js';
+import { ELEMENT_KINDS, isElementKind, KINDS } from '../devices/registry.js';
 import type { ElementKind, ElementRecord } from './elements.js';
 
 /** The name that marks a circuit document. */
@@ -43,50 +44,12 @@ export function circuitToJson(elements: readonly ElementRecord[]): CircuitDocume
   return { format: DOCUMENT_FORMAT, version: DOCUMENT_VERSION, elements: out };
 }
 
-type FieldType = 'string' | 'number' | 'ac' | 'object' | 'polarity';
-
-/** The fields of each kind of record, with their JSON types; optional fields end in '?'. */
-const FIELDS: Readonly<Record<ElementKind, Readonly<Record<string, FieldType>>>> = {
-  resistor: { a: 'string', b: 'string', resistance: 'number' },
-  capacitor: { a: 'string', b: 'string', capacitance: 'number' },
-  inductor: { a: 'string', b: 'string', inductance: 'number' },
-  'voltage-source': { plus: 'string', minus: 'string', 'dc?': 'number', 'ac?': 'ac' },
-  'current-source': { from: 'string', to: 'string', 'dc?': 'number', 'ac?': 'ac' },
-  vcvs: {
-    outPlus: 'string',
-    outMinus: 'string',
-    controlPlus: 'string',
-    controlMinus: 'string',
-    gain: 'number',
-  },
-  vccs: {
-    outFrom: 'string',
-    outTo: 'string',
-    controlPlus: 'string',
-    controlMinus: 'string',
-    transconductance: 'number',
-  },
-  ccvs: { outPlus: 'string', outMinus: 'string', control: 'string', transresistance: 'number' },
-  cccs: { outFrom: 'string', outTo: 'string', control: 'string', gain: 'number' },
-  'op-amp': { plus: 'string', minus: 'string', output: 'string', 'options?': 'object' },
-  diode: { anode: 'string', cathode: 'string', 'model?': 'object' },
-  bjt: { collector: 'string', base: 'string', emitter: 'string', polarity: 'polarity', 'model?': 'object' },
-  mosfet: {
-    drain: 'string',
-    gate: 'string',
-    source: 'string',
-    'body?': 'string',
-    polarity: 'polarity',
-    'model?': 'object',
-  },
-};
-
 function isPlainObject(x: unknown): x is Record<string, unknown> {
   return x !== null && typeof x === 'object' && !Array.isArray(x);
 }
 
 function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (string | number)[]): void {
-  const fields = FIELDS[kind];
+  const fields = KINDS[kind].json;
   const allowed = new Set(['kind', 'name']);
   for (const [spec, type] of Object.entries(fields)) {
     const optional = spec.endsWith('?');
@@ -162,10 +125,10 @@ export function circuitFromJson(json: unknown, circuit: Circuit): void {
     const path: (string | number)[] = ['elements', i];
     if (!isPlainObject(raw)) throw invalidCircuit(path, 'must be an object');
     const kind = raw.kind;
-    if (typeof kind !== 'string' || !Object.hasOwn(FIELDS, kind)) {
+    if (typeof kind !== 'string' || !isElementKind(kind)) {
       throw invalidCircuit(
         [...path, 'kind'],
-        `${JSON.stringify(kind)} is not a kind of element (${Object.keys(FIELDS).join(', ')})`,
+        `${JSON.stringify(kind)} is not a kind of element (${ELEMENT_KINDS.join(', ')})`,
       );
     }
     if (typeof raw.name !== 'string') throw invalidCircuit([...path, 'name'], 'must be a string');
@@ -186,62 +149,5 @@ export function circuitFromJson(json: unknown, circuit: Circuit): void {
 }
 
 function replay(c: Circuit, kind: ElementKind, r: Record<string, unknown>): void {
-  const s = (k: string) => r[k] as string;
-  const n = (k: string) => r[k] as number;
-  const name = s('name');
-  switch (kind) {
-    case 'resistor':
-      c.resistor(name, s('a'), s('b'), n('resistance'));
-      return;
-    case 'capacitor':
-      c.capacitor(name, s('a'), s('b'), n('capacitance'));
-      return;
-    case 'inductor':
-      c.inductor(name, s('a'), s('b'), n('inductance'));
-      return;
-    case 'voltage-source':
-    case 'current-source': {
-      const spec: { dc?: number; ac?: number | { magnitude: number; phase?: number } } = {};
-      if (r.dc !== undefined) spec.dc = n('dc');
-      if (r.ac !== undefined) spec.ac = r.ac as number | { magnitude: number; phase?: number };
-      if (kind === 'voltage-source') c.voltageSource(name, s('plus'), s('minus'), spec);
-      else c.currentSource(name, s('from'), s('to'), spec);
-      return;
-    }
-    case 'vcvs':
-      c.vcvs(name, [s('outPlus'), s('outMinus')], [s('controlPlus'), s('controlMinus')], n('gain'));
-      return;
-    case 'vccs':
-      c.vccs(name, [s('outFrom'), s('outTo')], [s('controlPlus'), s('controlMinus')], n('transconductance'));
-      return;
-    case 'ccvs':
-      c.ccvs(name, [s('outPlus'), s('outMinus')], s('control'), n('transresistance'));
-      return;
-    case 'cccs':
-      c.cccs(name, [s('outFrom'), s('outTo')], s('control'), n('gain'));
-      return;
-    case 'op-amp':
-      if (r.options === undefined) c.opAmp(name, { plus: s('plus'), minus: s('minus'), output: s('output') });
-      else c.opAmp(name, { plus: s('plus'), minus: s('minus'), output: s('output') }, r.options as object);
-      return;
-    case 'diode':
-      c.diode(name, s('anode'), s('cathode'), (r.model ?? {}) as object);
-      return;
-    case 'bjt':
-      c.bjt(name, { collector: s('collector'), base: s('base'), emitter: s('emitter') }, {
-        ...(r.model as object | undefined),
-        polarity: s('polarity'),
-      } as never);
-      return;
-    case 'mosfet': {
-      const terminals: { drain: string; gate: string; source: string; body?: string } = {
-        drain: s('drain'),
-        gate: s('gate'),
-        source: s('source'),
-      };
-      if (r.body !== undefined) terminals.body = s('body');
-      c.mosfet(name, terminals, { ...(r.model as object | undefined), polarity: s('polarity') } as never);
-      return;
-    }
-  }
+  KINDS[kind].replay(c, r.name as string, r);
 }

@@ -114,3 +114,6 @@ export function withDefaults<K extends string>(
 function article(kindName: string): string {
   return /^[aeiou]/i.test(kindName) ? `an ${kindName}` : `a ${kindName}`;
 }
+
+/** Numeric parameters of a model, as given (the polarity is a field of the element, not a parameter). */
+export type GivenParameters<M> = { readonly [K in Exclude<keyof M, 'polarity'>]?: number };

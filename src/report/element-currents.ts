@@ -3,6 +3,7 @@
  * tables and the JSON form.
  */
 import type { ElementRecord } from '../circuit/elements.js';
+import { descriptorOf } from '../devices/registry.js';
 
 /**
  * The direction in which an element's current is counted, in words: `'a → b'` for a two-terminal
@@ -13,32 +14,10 @@ import type { ElementRecord } from '../circuit/elements.js';
  * @returns the direction, or undefined
  */
 export function currentDirection(record: ElementRecord): string | undefined {
-  switch (record.kind) {
-    case 'resistor':
-    case 'capacitor':
-    case 'inductor':
-      return `${record.a} → ${record.b}`;
-    case 'voltage-source':
-      return `${record.plus} → ${record.minus}`;
-    case 'current-source':
-      return `${record.from} → ${record.to}`;
-    case 'vcvs':
-    case 'ccvs':
-      return `${record.outPlus} → ${record.outMinus}`;
-    case 'vccs':
-    case 'cccs':
-      return `${record.outFrom} → ${record.outTo}`;
-    case 'op-amp':
-      return `out of ${record.output}`;
-    case 'diode':
-      return `${record.anode} → ${record.cathode}`;
-    case 'bjt':
-    case 'mosfet':
-      return undefined;
-  }
+  return descriptorOf(record).currentDirection(record);
 }
 
 /** Whether an element has a device report (a diode or a transistor). */
 export function hasDeviceReport(record: ElementRecord): boolean {
-  return record.kind === 'diode' || record.kind === 'bjt' || record.kind === 'mosfet';
+  return descriptorOf(record).report !== null;
 }

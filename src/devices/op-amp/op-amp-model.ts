@@ -1,6 +1,6 @@
 /** The op-amp's options: ideal without them, single-pole with them. */
-import type { Value } from '../values/value.js';
-import type { ParameterTable } from './parameters.js';
+import type { Value } from '../../values/value.js';
+import type { ParameterTable } from '../parameters.js';
 
 /**
  * Options of a non-ideal op-amp. With none of them the op-amp is ideal (infinite gain, no input

@@ -1,6 +1,6 @@
 /** The diode's parameters: what a data sheet of a small silicon diode would list. */
-import type { Value } from '../values/value.js';
-import type { ParameterTable } from './parameters.js';
+import type { Value } from '../../values/value.js';
+import type { ParameterTable } from '../parameters.js';
 
 /**
  * Parameters of a junction diode (all optional; numbers in SI units or SI strings such as `'10f'`).

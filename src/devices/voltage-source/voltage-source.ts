@@ -1,6 +1,6 @@
 /** The independent voltage source: v(plus) − v(minus) = E; its current (plus → minus through it) is an unknown. */
-import type { VoltageSourceRecord } from '../circuit/elements.js';
-import { addBranchIncidence, branchSlots } from '../mna/stamp.js';
+import type { VoltageSourceRecord } from './record.js';
+import { addBranchIncidence, branchSlots } from '../stamp.js';
 import type {
   AcLoadContext,
   AllocationContext,
@@ -8,7 +8,7 @@ import type {
   Conditions,
   DcLoadContext,
   Device,
-} from './device.js';
+} from '../device.js';
 
 /** A compiled voltage source. Its DC value can be replaced through the analysis conditions (a sweep). */
 export class VoltageSource implements Device {

@@ -4,7 +4,7 @@
  *
  * Row r of the equations says "the currents leaving node r sum to the injected current b[r]".
  */
-import type { BindContext } from '../devices/device.js';
+import type { BindContext } from './device.js';
 
 /** Slots of a conductance between unknowns a and b: [aa, ab, ba, bb]. */
 export function conductanceSlots(ctx: BindContext, a: number, b: number): Int32Array {

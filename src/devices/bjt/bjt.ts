@@ -8,8 +8,8 @@
  * A pnp obeys the same equations in the mirrored voltages (veb, vcb), its currents flowing out of the
  * terminals. A small conductance sits across each junction.
  */
-import type { BjtRecord } from '../circuit/elements.js';
-import { addConductance, conductanceSlots } from '../mna/stamp.js';
+import type { BjtRecord } from './record.js';
+import { addConductance, conductanceSlots } from '../stamp.js';
 import { BJT_PARAMETERS } from './bjt-model.js';
 import type {
   AcLoadContext,
@@ -20,7 +20,7 @@ import type {
   DeviceReport,
   JunctionProbe,
   NonlinearCurrent,
-} from './device.js';
+} from '../device.js';
 import {
   boundedExp,
   boundedExpCurvature,
@@ -31,8 +31,8 @@ import {
   EXP_SLOPE_ABOVE_LIMIT,
   limitJunctionStep,
   saturationCurrentAt,
-} from './junction.js';
-import { withDefaults } from './parameters.js';
+} from '../junction.js';
+import { withDefaults } from '../parameters.js';
 
 /** A junction counts as forward-biased above this many n·Vt (about 0.41 V for n = 1 at 300 K). */
 export const FORWARD_BIAS_THRESHOLD = 16;

@@ -1,7 +1,7 @@
 /** The capacitor: open at DC, admittance jωC at angular frequency ω. */
-import type { CapacitorRecord } from '../circuit/elements.js';
-import { addConductance, conductanceSlots } from '../mna/stamp.js';
-import type { AcLoadContext, BindContext, DcLoadContext, Device } from './device.js';
+import type { CapacitorRecord } from './record.js';
+import { addConductance, conductanceSlots } from '../stamp.js';
+import type { AcLoadContext, BindContext, DcLoadContext, Device } from '../device.js';
 
 /** A compiled capacitor. */
 export class Capacitor implements Device {

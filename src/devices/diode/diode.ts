@@ -6,8 +6,8 @@
  *   i(v) = Is·(e^(v/nVt) − 1) − Is·e^(−(v + BV)/nVt) + g_j·v (g_j: the junction conductance)
  * The breakdown term is e-fold steeper per nVt below −BV, mirroring the forward knee.
  */
-import type { DiodeRecord } from '../circuit/elements.js';
-import { addConductance, addCurrent, conductanceSlots } from '../mna/stamp.js';
+import type { DiodeRecord } from './record.js';
+import { addConductance, addCurrent, conductanceSlots } from '../stamp.js';
 import type {
   AcLoadContext,
   AllocationContext,
@@ -18,7 +18,7 @@ import type {
   DeviceReport,
   JunctionProbe,
   NonlinearCurrent,
-} from './device.js';
+} from '../device.js';
 import { DIODE_PARAMETERS } from './diode-model.js';
 import {
   boundedExp,
@@ -29,8 +29,8 @@ import {
   EXP_SLOPE_ABOVE_LIMIT,
   limitJunctionStep,
   saturationCurrentAt,
-} from './junction.js';
-import { withDefaults } from './parameters.js';
+} from '../junction.js';
+import { withDefaults } from '../parameters.js';
 
 /** A compiled diode. */
 export class Diode implements Device {

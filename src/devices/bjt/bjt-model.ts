@@ -1,6 +1,6 @@
 /** The bipolar transistor's parameters (transport Ebers-Moll model with the forward Early effect). */
-import type { Value } from '../values/value.js';
-import type { ParameterTable } from './parameters.js';
+import type { Value } from '../../values/value.js';
+import type { ParameterTable } from '../parameters.js';
 
 /** Parameters of a bipolar junction transistor. Only `polarity` is required. */
 export interface BjtModel {

@@ -1,6 +1,6 @@
 /** The MOSFET's parameters (square law of Shichman and Hodges with channel-length modulation and body effect). */
-import type { Value } from '../values/value.js';
-import type { ParameterTable } from './parameters.js';
+import type { Value } from '../../values/value.js';
+import type { ParameterTable } from '../parameters.js';
 
 /** Parameters of a MOSFET. Only `polarity` is required. */
 export interface MosfetModel {

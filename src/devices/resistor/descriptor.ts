@@ -1,0 +1,27 @@
+/** The resistor, described once: terminals, DC paths, JSON fields, currents and its compiled device. */
+import type { KindDescriptor } from '../descriptor.js';
+import { Resistor } from './resistor.js';
+
+/** The resistor kind. */
+export const RESISTOR: KindDescriptor<'resistor'> = {
+  kind: 'resistor',
+  noun: 'a resistor',
+  terminals: [
+    { field: 'a', role: 'first terminal (positive current flows from a to b)' },
+    { field: 'b', role: 'second terminal' },
+  ],
+  internalNodes: [],
+  currentUnknown: false,
+  controlField: null,
+  dcPaths: (r) => [[r.a, r.b]],
+  voltageBranch: () => undefined,
+  parameters: null,
+  json: { a: 'string', b: 'string', resistance: 'number' },
+  documentPaths: {},
+  replay: (builder, name, f) => builder.resistor(name, f.a as string, f.b as string, f.resistance as number),
+  currentDirection: (r) => `${r.a} → ${r.b}`,
+  report: null,
+  frequencyAffine: true,
+  mirrored: () => false,
+  create: (record) => new Resistor(record),
+};
