@@ -1,0 +1,42 @@
+/**
+ * The registry of element kinds is typed so that a kind left out, or a descriptor with a part left
+ * out, does not compile (DEVELOPERS.md, "Adding a device kind"). `npm test` runs `tsc --noEmit`
+ * first, so each `@ts-expect-error` below fails the run if the error it expects goes away.
+ */
+import { describe, expect, it } from 'vitest';
+import type { KindDescriptor, KindRegistry } from '../../src/devices/descriptor.js';
+import { RESISTOR } from '../../src/devices/resistor/descriptor.js';
+import { ELEMENT_KINDS, KINDS } from '../../src/devices/registry.js';
+
+// A descriptor without its table of DC paths is not a descriptor.
+const { dcPaths: _dropped, ...withoutDcPaths } = RESISTOR;
+// @ts-expect-error dcPaths is missing
+export const incomplete: KindDescriptor<'resistor'> = withoutDcPaths;
+
+// A registry that forgets a kind is not a registry.
+const { mosfet: _forgotten, ...withoutMosfet } = KINDS;
+// @ts-expect-error the mosfet kind is missing
+export const forgetful: KindRegistry = withoutMosfet;
+
+// A descriptor filed under another kind's name is not accepted either.
+// @ts-expect-error a resistor's descriptor is not a capacitor's
+export const misfiled: KindRegistry = { ...KINDS, capacitor: RESISTOR };
+
+describe('the registry of element kinds', () => {
+  it('holds one descriptor per kind, each under its own name', () => {
+    for (const kind of ELEMENT_KINDS) expect(KINDS[kind].kind).toBe(kind);
+    expect(ELEMENT_KINDS).toHaveLength(13);
+  });
+
+  it('names every terminal field of a kind in its JSON fields', () => {
+    for (const kind of ELEMENT_KINDS) {
+      const fields = Object.keys(KINDS[kind].json).map((f) => f.replace(/\?$/, ''));
+      for (const t of KINDS[kind].terminals) expect(fields).toContain(t.field);
+    }
+  });
+
+  it('gives a controlling-element field only to kinds that read another element’s current', () => {
+    const controlled = ELEMENT_KINDS.filter((k) => KINDS[k].controlField !== null);
+    expect(controlled).toEqual(['ccvs', 'cccs']);
+  });
+});
