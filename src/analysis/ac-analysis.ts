@@ -7,12 +7,12 @@
 import Complex from 'complex.js';
 import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
-import { type AcAnalysisJson, acAnalysisToJson } from '../report/result-json.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { currentReader, type ProbeReader, probeReader, voltageReader } from './distortion-probe.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { checkAscending, crossings, decibels, unwrappedPhase } from './frequency-response.js';
 import { nodeAt, type OperatingPoint } from './operating-point.js';
+import { type AcAnalysisJson, acAnalysisToJson } from './result-json.js';
 
 /** Options of {@link acAnalysis}. */
 export interface AcAnalysisOptions {

@@ -8,8 +8,9 @@
  * once, at ω = 0 and ω = 1, and each frequency only forms G + jωC and restamps the few devices whose
  * admittance is not of that form (the op-amp's pole). The nonlinear models are evaluated once per sweep.
  */
-import { KINDS } from '../devices/registry.js';
+
 import type { AcLoadContext, Device } from '../devices/device.js';
+import { KINDS } from '../devices/registry.js';
 import { type ComplexLinearSolver, createComplexSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import { singularAt } from './newton.js';

@@ -15,7 +15,6 @@ import { OP_AMP_PARAMETERS } from '../devices/op-amp/op-amp-model.js';
 import { type ParameterTable, parseParameters } from '../devices/parameters.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
-import { type DcSweepJson, dcSweepToJson } from '../report/result-json.js';
 import {
   conditionsAt,
   type OperatingPoint,
@@ -26,6 +25,7 @@ import {
 } from './operating-point.js';
 import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
 import type { DeviceReport } from './reports.js';
+import { type DcSweepJson, dcSweepToJson } from './result-json.js';
 
 /** The values a sweep steps through, in the order given: any finite numbers. */
 export type SweepValues = readonly number[] | Float64Array;

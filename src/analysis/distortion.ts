@@ -35,8 +35,8 @@
 import Complex from 'complex.js';
 import type { ElementKind } from '../circuit/elements.js';
 import type { JunctionProbe, NonlinearCurrent } from '../devices/device.js';
-import { invalidValue } from '../errors/messages.js';
 import { addCurrent } from '../devices/stamp.js';
+import { invalidValue } from '../errors/messages.js';
 import type { AcAnalysis, Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { describeProbe, type ProbeReader, probeReader } from './distortion-probe.js';

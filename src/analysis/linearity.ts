@@ -20,10 +20,10 @@ import {
   junctionAmplitudeForBound,
   junctionNonlinearity,
 } from '../math/junction-nonlinearity.js';
-import { type LinearityReportJson, linearityToJson } from '../report/result-json.js';
 import type { AcAnalysis } from './ac-analysis.js';
 import { forwardBias } from './junction-bias.js';
 import { prepareDevices } from './newton.js';
+import { type LinearityReportJson, linearityToJson } from './result-json.js';
 
 /** Default budget of the first-order error bound: 10 % of the linear term. */
 export const DEFAULT_LINEARITY_BUDGET = 0.1;

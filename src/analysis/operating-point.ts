@@ -9,7 +9,6 @@ import { EXP_LIMIT, thermalVoltage } from '../devices/junction.js';
 import { noConvergence, unknownElement, unknownNode } from '../errors/messages.js';
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
 import { type CompiledSystem, compileCircuit } from '../mna/system.js';
-import { type OperatingPointJson, operatingPointToJson } from '../report/operating-point-json.js';
 import { forwardBias } from './junction-bias.js';
 import {
   measureResidual,
@@ -23,6 +22,7 @@ import {
   solveLinear,
   worstResidualExcess,
 } from './newton.js';
+import { type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
 import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
 import type { BjtReport, DeviceReport, DiodeReport, MosfetReport } from './reports.js';
 

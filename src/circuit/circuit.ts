@@ -3,10 +3,10 @@
  * checks that need the whole circuit run when an analysis starts (see topology.ts).
  */
 import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt/bjt-model.js';
+import type { ElementBuilder } from '../devices/descriptor.js';
 import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode/diode-model.js';
 import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet/mosfet-model.js';
 import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
-import type { ElementBuilder } from '../devices/descriptor.js';
 import { parseParameters } from '../devices/parameters.js';
 import { duplicateName, invalidCircuit, invalidValue } from '../errors/messages.js';
 import { parseValue, type Unit } from '../values/index.js';

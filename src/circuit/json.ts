@@ -2,10 +2,11 @@
  * The JSON form of a circuit: a versioned document of element records. Reading validates every
  * field and replays the builder, so a document is held to exactly the checks a program is.
  */
+
+import { ELEMENT_KINDS, isElementKind, KINDS } from '../devices/registry.js';
 import { invalidCircuit } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
 import type { Circuit } from './circuit.js';
-import { ELEMENT_KINDS, isElementKind, KINDS } from '../devices/registry.js';
 import type { ElementKind, ElementRecord } from './elements.js';
 
 /** The name that marks a circuit document. */

@@ -3,8 +3,9 @@
  * current unknown, something touches ground, every node has a DC path to ground, and no loop is made
  * of voltage-defined branches alone. Each failure names the nodes and elements involved.
  */
-import { floatingNodes, noGround, unknownElement, voltageLoop } from '../errors/messages.js';
+
 import { descriptorOf } from '../devices/registry.js';
+import { floatingNodes, noGround, unknownElement, voltageLoop } from '../errors/messages.js';
 import { type ElementRecord, GROUND, hasCurrentUnknown, terminalsOf } from './elements.js';
 
 /** A disjoint-set forest over node indices (union by size, path halving). */

@@ -8,8 +8,8 @@
 import type { Unit } from '../values/units.js';
 import type { Value } from '../values/value.js';
 import type { Device } from './device.js';
-import type { ElementKind, RecordOf } from './records.js';
 import type { ParameterTable } from './parameters.js';
+import type { ElementKind, RecordOf } from './records.js';
 
 /** One terminal of a kind: the record field that holds its node, and what it is, in words. */
 export interface TerminalSpec<R> {

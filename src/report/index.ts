@@ -1,8 +1,9 @@
-export { type AcReportOptions, acTable, formatAcAnalysis, probeLabel } from './ac-table.js';
-export { type DcSweepReportOptions, dcSweepTable, formatDcSweep } from './dc-sweep-table.js';
-export { currentDirection } from './element-currents.js';
-export { type DeviceJson, type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
-export { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
+export { currentDirection } from '../analysis/element-currents.js';
+export {
+  type DeviceJson,
+  type OperatingPointJson,
+  operatingPointToJson,
+} from '../analysis/operating-point-json.js';
 export {
   type AcAnalysisJson,
   acAnalysisToJson,
@@ -12,7 +13,10 @@ export {
   type LinearityReportJson,
   linearityToJson,
   type PhasorsJson,
-} from './result-json.js';
+} from '../analysis/result-json.js';
+export { type AcReportOptions, acTable, formatAcAnalysis, probeLabel } from './ac-table.js';
+export { type DcSweepReportOptions, dcSweepTable, formatDcSweep } from './dc-sweep-table.js';
+export { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
 export {
   bodePlotSvg,
   type PlotAxis,

@@ -2,12 +2,13 @@
  * The operating point as text: node voltages, element currents, then one table per device kind with
  * each device's operating values and small-signal parameters, all in engineering notation.
  */
+
+import { currentDirection } from '../analysis/element-currents.js';
 import type { OperatingPoint } from '../analysis/operating-point.js';
 import { GROUND } from '../circuit/elements.js';
-import { formatValue } from '../values/format.js';
 import type { ReportSpec } from '../devices/descriptor.js';
 import { ELEMENT_KINDS, KINDS } from '../devices/registry.js';
-import { currentDirection } from './element-currents.js';
+import { formatValue } from '../values/format.js';
 import {
   cell,
   DEFAULT_REPORT_DIGITS,

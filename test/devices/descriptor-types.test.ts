@@ -5,8 +5,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { KindDescriptor, KindRegistry } from '../../src/devices/descriptor.js';
-import { RESISTOR } from '../../src/devices/resistor/descriptor.js';
 import { ELEMENT_KINDS, KINDS } from '../../src/devices/registry.js';
+import { RESISTOR } from '../../src/devices/resistor/descriptor.js';
 
 // A descriptor without its table of DC paths is not a descriptor.
 const { dcPaths: _dropped, ...withoutDcPaths } = RESISTOR;

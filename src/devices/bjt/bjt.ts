@@ -8,9 +8,7 @@
  * A pnp obeys the same equations in the mirrored voltages (veb, vcb), its currents flowing out of the
  * terminals. A small conductance sits across each junction.
  */
-import type { BjtRecord } from './record.js';
-import { addConductance, conductanceSlots } from '../stamp.js';
-import { BJT_PARAMETERS } from './bjt-model.js';
+
 import type {
   AcLoadContext,
   BindContext,
@@ -33,6 +31,9 @@ import {
   saturationCurrentAt,
 } from '../junction.js';
 import { withDefaults } from '../parameters.js';
+import { addConductance, conductanceSlots } from '../stamp.js';
+import { BJT_PARAMETERS } from './bjt-model.js';
+import type { BjtRecord } from './record.js';
 
 /** A junction counts as forward-biased above this many n·Vt (about 0.41 V for n = 1 at 300 K). */
 export const FORWARD_BIAS_THRESHOLD = 16;

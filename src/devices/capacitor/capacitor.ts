@@ -1,7 +1,8 @@
 /** The capacitor: open at DC, admittance jωC at angular frequency ω. */
-import type { CapacitorRecord } from './record.js';
-import { addConductance, conductanceSlots } from '../stamp.js';
+
 import type { AcLoadContext, BindContext, DcLoadContext, Device } from '../device.js';
+import { addConductance, conductanceSlots } from '../stamp.js';
+import type { CapacitorRecord } from './record.js';
 
 /** A compiled capacitor. */
 export class Capacitor implements Device {

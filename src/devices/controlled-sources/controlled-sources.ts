@@ -2,9 +2,10 @@
  * The four linear controlled sources. Voltage-controlled ones read two nodes; current-controlled ones
  * read the branch-current unknown of their controlling element. Voltage outputs own a branch current.
  */
-import type { CccsRecord, CcvsRecord, VccsRecord, VcvsRecord } from './records.js';
-import { addBranchIncidence, addTransconductance, branchPairs, transconductanceSlots } from '../stamp.js';
+
 import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from '../device.js';
+import { addBranchIncidence, addTransconductance, branchPairs, transconductanceSlots } from '../stamp.js';
+import type { CccsRecord, CcvsRecord, VccsRecord, VcvsRecord } from './records.js';
 
 /** v(outPlus) − v(outMinus) = gain·(v(controlPlus) − v(controlMinus)); the output current is an unknown. */
 export class Vcvs implements Device {

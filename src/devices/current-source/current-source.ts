@@ -1,7 +1,8 @@
 /** The independent current source: its value flows from `from`, through the source, into `to`. */
-import type { CurrentSourceRecord } from './record.js';
-import { addCurrent } from '../stamp.js';
+
 import type { AcLoadContext, BindContext, Conditions, DcLoadContext, Device } from '../device.js';
+import { addCurrent } from '../stamp.js';
+import type { CurrentSourceRecord } from './record.js';
 
 /** A compiled current source. Its DC value can be replaced through the analysis conditions (a sweep). */
 export class CurrentSource implements Device {

@@ -6,8 +6,7 @@
  *   i(v) = Is·(e^(v/nVt) − 1) − Is·e^(−(v + BV)/nVt) + g_j·v (g_j: the junction conductance)
  * The breakdown term is e-fold steeper per nVt below −BV, mirroring the forward knee.
  */
-import type { DiodeRecord } from './record.js';
-import { addConductance, addCurrent, conductanceSlots } from '../stamp.js';
+
 import type {
   AcLoadContext,
   AllocationContext,
@@ -19,7 +18,6 @@ import type {
   JunctionProbe,
   NonlinearCurrent,
 } from '../device.js';
-import { DIODE_PARAMETERS } from './diode-model.js';
 import {
   boundedExp,
   boundedExpCurvature,
@@ -31,6 +29,9 @@ import {
   saturationCurrentAt,
 } from '../junction.js';
 import { withDefaults } from '../parameters.js';
+import { addConductance, addCurrent, conductanceSlots } from '../stamp.js';
+import { DIODE_PARAMETERS } from './diode-model.js';
+import type { DiodeRecord } from './record.js';
 
 /** A compiled diode. */
 export class Diode implements Device {

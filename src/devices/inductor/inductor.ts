@@ -1,7 +1,8 @@
 /** The inductor: a short at DC, v(a) − v(b) = jωL·i at angular frequency ω. Its current is an unknown. */
-import type { InductorRecord } from './record.js';
-import { addBranchIncidence, branchPairs } from '../stamp.js';
+
 import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from '../device.js';
+import { addBranchIncidence, branchPairs } from '../stamp.js';
+import type { InductorRecord } from './record.js';
 
 /** A compiled inductor. */
 export class Inductor implements Device {

@@ -8,8 +8,7 @@
  * When vds < 0 the drain and source exchange roles. A pmos obeys the same law in vsg, vsd, vsb with
  * |Vth0|. A small conductance sits across the channel and between body and source.
  */
-import type { MosfetRecord } from './record.js';
-import { addConductance, conductanceSlots } from '../stamp.js';
+
 import type {
   AcLoadContext,
   BindContext,
@@ -20,8 +19,10 @@ import type {
   JunctionProbe,
   NonlinearCurrent,
 } from '../device.js';
-import { defaultThreshold, MOSFET_PARAMETERS } from './mosfet-model.js';
 import { withDefaults } from '../parameters.js';
+import { addConductance, conductanceSlots } from '../stamp.js';
+import { defaultThreshold, MOSFET_PARAMETERS } from './mosfet-model.js';
+import type { MosfetRecord } from './record.js';
 
 /** The operating region of a MOSFET. */
 export type MosfetRegion = 'cutoff' | 'triode' | 'saturation';

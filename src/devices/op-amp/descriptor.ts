@@ -1,6 +1,7 @@
 /** The op-amp, described once: ideal without options, single-pole with them. */
+
+import { GROUND } from '../../values/ground.js';
 import type { KindDescriptor } from '../descriptor.js';
-import { GROUND as GROUND } from '../../values/ground.js';
 import { OpAmp } from './op-amp.js';
 import { OP_AMP_PARAMETERS } from './op-amp-model.js';
 

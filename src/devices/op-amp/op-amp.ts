@@ -4,10 +4,11 @@
  * that takes. Non-ideal: v(out) + R_out·i = H(jω)·(v(plus) − v(minus)) with the single-pole gain
  * H(jω) = A0/(1 + jω/ω_p) and ω_p = 2π·GBW/A0. The inputs draw no current.
  */
-import type { OpAmpRecord } from './record.js';
+
 import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from '../device.js';
-import { OP_AMP_PARAMETERS } from './op-amp-model.js';
 import { withDefaults } from '../parameters.js';
+import { OP_AMP_PARAMETERS } from './op-amp-model.js';
+import type { OpAmpRecord } from './record.js';
 
 /** A compiled op-amp. */
 export class OpAmp implements Device {

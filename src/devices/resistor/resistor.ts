@@ -1,7 +1,8 @@
 /** The resistor: i = (v(a) − v(b))/R at DC and at every frequency. */
-import type { ResistorRecord } from './record.js';
-import { addConductance, conductanceSlots } from '../stamp.js';
+
 import type { AcLoadContext, BindContext, DcLoadContext, Device } from '../device.js';
+import { addConductance, conductanceSlots } from '../stamp.js';
+import type { ResistorRecord } from './record.js';
 
 /** A compiled resistor. */
 export class Resistor implements Device {

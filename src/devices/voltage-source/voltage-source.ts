@@ -1,6 +1,5 @@
 /** The independent voltage source: v(plus) − v(minus) = E; its current (plus → minus through it) is an unknown. */
-import type { VoltageSourceRecord } from './record.js';
-import { addBranchIncidence, branchSlots } from '../stamp.js';
+
 import type {
   AcLoadContext,
   AllocationContext,
@@ -9,6 +8,8 @@ import type {
   DcLoadContext,
   Device,
 } from '../device.js';
+import { addBranchIncidence, branchSlots } from '../stamp.js';
+import type { VoltageSourceRecord } from './record.js';
 
 /** A compiled voltage source. Its DC value can be replaced through the analysis conditions (a sweep). */
 export class VoltageSource implements Device {

@@ -3,12 +3,13 @@
  * tests. Typed arrays become arrays; JSON has no Infinity, so infinite values become `null` (as
  * `JSON.stringify` writes them).
  */
-import type { AcAnalysis } from '../analysis/ac-analysis.js';
-import type { DcSweep, SweptQuantity } from '../analysis/dc-sweep.js';
-import type { LinearityReport } from '../analysis/linearity.js';
+
 import { GROUND } from '../circuit/elements.js';
 import type { JunctionProbe } from '../devices/device.js';
+import type { AcAnalysis } from './ac-analysis.js';
+import type { DcSweep, SweptQuantity } from './dc-sweep.js';
 import { currentDirection } from './element-currents.js';
+import type { LinearityReport } from './linearity.js';
 
 /** A number as JSON: itself when finite, otherwise `null`. */
 function finiteOrNull(value: number): number | null {

@@ -1,7 +1,8 @@
 /** The plain-data form of an operating point, for storage, other languages and snapshot tests. */
-import type { OperatingPoint } from '../analysis/operating-point.js';
+
 import { GROUND } from '../circuit/elements.js';
 import { currentDirection, hasDeviceReport } from './element-currents.js';
+import type { OperatingPoint } from './operating-point.js';
 
 /** A device report as JSON: every number of the report, with `null` where the value is infinite. */
 export type DeviceJson = Readonly<Record<string, string | number | null>>;
