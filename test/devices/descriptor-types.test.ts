@@ -8,21 +8,24 @@ import type { KindDescriptor, KindRegistry } from '../../src/devices/descriptor.
 import { ELEMENT_KINDS, KINDS } from '../../src/devices/registry.js';
 import { RESISTOR } from '../../src/devices/resistor/descriptor.js';
 
-// A descriptor without its table of DC paths is not a descriptor.
-const { dcPaths: _dropped, ...withoutDcPaths } = RESISTOR;
-// @ts-expect-error dcPaths is missing
-export const incomplete: KindDescriptor<'resistor'> = withoutDcPaths;
-
-// A registry that forgets a kind is not a registry.
-const { mosfet: _forgotten, ...withoutMosfet } = KINDS;
-// @ts-expect-error the mosfet kind is missing
-export const forgetful: KindRegistry = withoutMosfet;
-
-// A descriptor filed under another kind's name is not accepted either.
-// @ts-expect-error a resistor's descriptor is not a capacitor's
-export const misfiled: KindRegistry = { ...KINDS, capacitor: RESISTOR };
-
 describe('the registry of element kinds', () => {
+  it('does not type-check with a part of a descriptor or a kind left out', () => {
+    // A descriptor without its DC paths is not a descriptor.
+    const { dcPaths: _dropped, ...withoutDcPaths } = RESISTOR;
+    // @ts-expect-error dcPaths is missing
+    const incomplete: KindDescriptor<'resistor'> = withoutDcPaths;
+    // A registry that forgets a kind is not a registry.
+    const { mosfet: _forgotten, ...withoutMosfet } = KINDS;
+    // @ts-expect-error the mosfet kind is missing
+    const forgetful: KindRegistry = withoutMosfet;
+    // A descriptor filed under another kind's name is not accepted either.
+    // @ts-expect-error a resistor's descriptor is not a capacitor's
+    const misfiled: KindRegistry = { ...KINDS, capacitor: RESISTOR };
+    expect('dcPaths' in incomplete).toBe(false);
+    expect('mosfet' in forgetful).toBe(false);
+    expect(misfiled.capacitor.kind).toBe('resistor');
+  });
+
   it('holds one descriptor per kind, each under its own name', () => {
     for (const kind of ELEMENT_KINDS) expect(KINDS[kind].kind).toBe(kind);
     expect(ELEMENT_KINDS).toHaveLength(13);
