@@ -98,6 +98,7 @@ export {
   QuiescentError,
   type ResidualEntry,
   type StrategyAttempt,
+  type ValueRange,
 } from './errors/quiescent-error.js';
 export {
   type AcAnalysisJson,

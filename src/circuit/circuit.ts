@@ -9,7 +9,8 @@ import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet/mosfet-mo
 import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
 import { parseParameters } from '../devices/parameters.js';
 import { duplicateName, invalidCircuit, invalidValue } from '../errors/messages.js';
-import { parseValue, type Unit } from '../values/index.js';
+import type { Unit } from '../values/index.js';
+import { readValue } from '../values/parse.js';
 import type { Value } from '../values/value.js';
 import { type AcExcitation, type ElementRecord, terminalsOf } from './elements.js';
 import { type CircuitDocument, circuitFromJson, circuitToJson } from './json.js';
@@ -181,7 +182,7 @@ export class Circuit implements ElementBuilder {
       outMinus,
       controlPlus,
       controlMinus,
-      gain: finite(gain, undefined, [...path, 'gain']),
+      gain: finite(gain, 'none', [...path, 'gain']),
     });
   }
 
@@ -233,7 +234,7 @@ export class Circuit implements ElementBuilder {
       outFrom,
       outTo,
       control: elementName(control, [...path, 'control']),
-      gain: finite(gain, undefined, [...path, 'gain']),
+      gain: finite(gain, 'none', [...path, 'gain']),
     });
   }
 
@@ -399,22 +400,21 @@ function polarityOf<P extends string>(
   return p as P;
 }
 
-function finite(v: unknown, unit: Unit | undefined, path: readonly (string | number)[]): number {
-  if (typeof v !== 'number' && typeof v !== 'string')
-    throw invalidValue(path, v, 'a number or a value string');
+function finite(v: unknown, unit: Unit | 'none', path: readonly (string | number)[]): number {
+  if (typeof v !== 'number' && typeof v !== 'string') throw invalidValue(path, v, { range: 'any', unit });
   // −0 becomes 0: JSON cannot carry the sign of zero, and a round trip must give the same record.
-  return parseValue(v, unit, path) || 0;
+  return readValue(v, unit, path) || 0;
 }
 
 function positive(v: unknown, unit: Unit, path: readonly (string | number)[]): number {
   const x = finite(v, unit, path);
-  if (!(x > 0)) throw invalidValue(path, v, `a positive value in ${unit}`);
+  if (!(x > 0)) throw invalidValue(path, v, { range: 'positive', unit });
   return x;
 }
 
 function nonNegative(v: unknown, unit: Unit, path: readonly (string | number)[]): number {
   const x = finite(v, unit, path);
-  if (!(x >= 0)) throw invalidValue(path, v, `a value of 0 or more in ${unit}`);
+  if (!(x >= 0)) throw invalidValue(path, v, { range: 'non-negative', unit });
   return x;
 }
 

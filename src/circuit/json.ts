@@ -6,6 +6,7 @@
 import { ELEMENT_KINDS, isElementKind, KINDS } from '../devices/registry.js';
 import { invalidCircuit } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
+import { formatPath } from '../errors/wording.js';
 import type { Circuit } from './circuit.js';
 import type { ElementKind, ElementRecord } from './elements.js';
 
@@ -84,24 +85,24 @@ function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (str
 }
 
 /**
- * Prefix the path of an error raised by the builder with the element's place in the document. The
- * builder's paths start with the element name (except when the name itself is bad) and keep the
- * polarity inside the model, where the document has it as a field of the element.
+ * Move an error raised by the builder to the element's place in the document. The builder's paths
+ * start with the element name (except when the name itself is bad); the kind's descriptor maps its
+ * argument paths to document fields (`out[0]` of a controlled source is `outPlus`), and the
+ * polarity, inside the model for the builder, is a field of the element in the document. The
+ * message is worded again from the moved details, so the path appears once.
  */
-function relocate(error: unknown, path: (string | number)[], name: string): never {
+function relocate(error: unknown, path: (string | number)[], name: string, kind: ElementKind): never {
   if (!(error instanceof QuiescentError)) throw error;
   const d = error.details;
-  const builderPath = 'path' in d && d.path !== undefined ? d.path : [];
-  let inner = builderPath[0] === name ? builderPath.slice(1) : builderPath;
+  if (d.code !== 'invalid-value' && d.code !== 'invalid-circuit' && d.code !== 'unknown-element') throw error;
+  const builderPath = d.path ?? [];
+  let inner: readonly (string | number)[] = builderPath[0] === name ? builderPath.slice(1) : builderPath;
   if (inner.length === 2 && inner[0] === 'model' && inner[1] === 'polarity') inner = ['polarity'];
+  const mapped = KINDS[kind].documentPaths[formatPath(inner)];
+  if (mapped !== undefined) inner = mapped;
   const where = [...path, ...inner];
-  const message = `${where
-    .map((p) => (typeof p === 'number' ? `[${p}]` : `.${p}`))
-    .join('')
-    .slice(1)}: ${error.message}`;
-  if (d.code === 'invalid-value') throw new QuiescentError({ ...d, path: where }, message);
-  if (d.code === 'invalid-circuit') throw new QuiescentError({ ...d, path: where }, message);
-  throw error;
+  if (d.code === 'unknown-element') throw new QuiescentError({ ...d, path: where });
+  throw new QuiescentError({ ...d, path: where, element: name });
 }
 
 /** Validate a document field by field and replay it into `circuit`. */
@@ -144,7 +145,7 @@ export function circuitFromJson(json: unknown, circuit: Circuit): void {
     try {
       replay(circuit, kind as ElementKind, raw);
     } catch (error) {
-      relocate(error, path, raw.name);
+      relocate(error, path, raw.name, kind as ElementKind);
     }
   });
 }

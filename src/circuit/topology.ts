@@ -4,9 +4,14 @@
  * of voltage-defined branches alone. Each failure names the nodes and elements involved.
  */
 
-import { descriptorOf } from '../devices/registry.js';
+import { descriptorOf, ELEMENT_KINDS, KINDS } from '../devices/registry.js';
 import { floatingNodes, noGround, unknownElement, voltageLoop } from '../errors/messages.js';
 import { type ElementRecord, GROUND, hasCurrentUnknown, terminalsOf } from './elements.js';
+
+/** The kinds whose current is an unknown, in words: 'an inductor, a voltage source, a vcvs or a ccvs'. */
+const CURRENT_UNKNOWN_KINDS = ((nouns: string[]) => `${nouns.slice(0, -1).join(', ')} or ${nouns.at(-1)}`)(
+  ELEMENT_KINDS.filter((k) => KINDS[k].currentUnknown).map((k) => KINDS[k].noun),
+);
 
 /** A disjoint-set forest over node indices (union by size, path halving). */
 class DisjointSets {
@@ -64,7 +69,7 @@ export function checkTopology(elements: readonly ElementRecord[]): void {
       if (!hasCurrentUnknown(control)) {
         throw unknownElement(
           controlName,
-          `cannot control '${e.name}': only a voltage source, inductor, vcvs or ccvs has a current unknown`,
+          `cannot control '${e.name}': only ${CURRENT_UNKNOWN_KINDS} has a current unknown`,
           [e.name, field],
         );
       }

@@ -3,9 +3,9 @@ export {
   type DetailsOf,
   type ErrorCode,
   type ErrorDetails,
-  formatPath,
-  listNames,
   QuiescentError,
   type ResidualEntry,
   type StrategyAttempt,
+  type ValueRange,
 } from './quiescent-error.js';
+export { describeError, formatPath, listNames } from './wording.js';

@@ -1,108 +1,100 @@
 /**
- * The English of every error, in one place. Checks build details as data and call these at the
- * boundary, so that wording stays consistent and can be reviewed at a glance.
+ * The constructors of every error: each takes what a check found, as data, and returns the error;
+ * the words come from `describeError` (wording.ts), so call sites never write a message.
  */
 import {
-  formatPath,
-  listNames,
   QuiescentError,
   type ResidualEntry,
   type StrategyAttempt,
+  type ValueRange,
 } from './quiescent-error.js';
+import { rangeWords } from './wording.js';
 
-const at = (path: readonly (string | number)[]): string => (path.length > 0 ? `${formatPath(path)}: ` : '');
+/** What a value was expected to be: a shared range with its unit, or a phrase for a one-off rule. */
+export type Expectation =
+  | string
+  | {
+      /** The admissible range. */
+      readonly range: ValueRange;
+      /** The unit, `'none'` for a pure number; left out when the value has no unit rule. */
+      readonly unit?: string;
+    }
+  | {
+      /** What was expected, in words, without the unit (`'a resistance'`). */
+      readonly expected: string;
+      /** The unit, `'none'` for a pure number. */
+      readonly unit?: string;
+      /** Why the value was rejected (a wrong unit symbol, say). */
+      readonly reason?: string;
+    };
 
-function show(value: unknown): string {
-  if (typeof value === 'string') return JSON.stringify(value);
-  if (typeof value === 'number') return String(value);
-  if (value === undefined) return 'undefined';
-  if (value === null) return 'null';
-  return typeof value;
-}
-
-/** A value is missing, mistyped or out of range. */
+/** A value is missing, mistyped, in a wrong unit or out of range. */
 export function invalidValue(
   path: readonly (string | number)[],
   value: unknown,
-  expected: string,
+  expected: Expectation,
 ): QuiescentError {
-  return new QuiescentError(
-    { code: 'invalid-value', path, value },
-    `${at(path)}${show(value)} is not ${expected}`,
-  );
+  if (typeof expected === 'string') return new QuiescentError({ code: 'invalid-value', path, value, expected });
+  if ('range' in expected) {
+    const { range, unit } = expected;
+    return new QuiescentError({
+      code: 'invalid-value',
+      path,
+      value,
+      expected: rangeWords(range),
+      range,
+      ...(unit === undefined ? {} : { unit }),
+    });
+  }
+  return new QuiescentError({ code: 'invalid-value', path, value, ...expected });
 }
 
 /** An element name is used twice. */
 export function duplicateName(name: string): QuiescentError {
-  return new QuiescentError(
-    { code: 'duplicate-name', name },
-    `an element named '${name}' already exists; element names must be unique`,
-  );
+  return new QuiescentError({ code: 'duplicate-name', name });
 }
 
 /** A builder call or JSON document is malformed. */
 export function invalidCircuit(path: readonly (string | number)[], problem: string): QuiescentError {
-  return new QuiescentError({ code: 'invalid-circuit', path }, `${at(path)}${problem}`);
+  return new QuiescentError({ code: 'invalid-circuit', path, problem });
 }
 
 /** An analysis names a node the circuit lacks. */
 export function unknownNode(node: string, path: readonly (string | number)[] = []): QuiescentError {
-  return new QuiescentError(
-    { code: 'unknown-node', node },
-    `${at(path)}the circuit has no node named '${node}'`,
-  );
+  return new QuiescentError(path.length > 0 ? { code: 'unknown-node', node, path } : { code: 'unknown-node', node });
 }
 
 /** An analysis or controlled source names an element the circuit lacks, or one without the needed quantity. */
 export function unknownElement(
   element: string,
-  why = 'the circuit has no element of that name',
+  reason = 'the circuit has no element of that name',
   path: readonly (string | number)[] = [],
 ): QuiescentError {
-  return new QuiescentError({ code: 'unknown-element', element, path }, `${at(path)}'${element}': ${why}`);
+  return new QuiescentError({ code: 'unknown-element', element, path, reason });
 }
 
 /** Nothing connects to ground. */
 export function noGround(): QuiescentError {
-  return new QuiescentError(
-    { code: 'no-ground' },
-    "no element connects to ground (node 'gnd'); every circuit needs a reference node",
-  );
+  return new QuiescentError({ code: 'no-ground' });
 }
 
 /** Some nodes have no DC path to ground. */
 export function floatingNodes(nodes: readonly string[]): QuiescentError {
-  const which = nodes.length === 1 ? `node ${listNames(nodes)} has` : `nodes ${listNames(nodes)} have`;
-  return new QuiescentError(
-    { code: 'floating-node', nodes },
-    `${which} no DC path to ground (capacitors, current sources and transistor gates carry no DC current); ` +
-      'add a resistor to ground or connect them to the rest of the circuit',
-  );
+  return new QuiescentError({ code: 'floating-node', nodes });
 }
 
 /** A loop of voltage-defined branches (voltage sources, inductors, controlled-source and op-amp outputs). */
 export function voltageLoop(elements: readonly string[], nodes: readonly string[]): QuiescentError {
-  return new QuiescentError(
-    { code: 'singular', elements, nodes, reason: 'voltage-loop' },
-    `${elements.length === 1 ? `element ${listNames(elements)} forms` : `elements ${listNames(elements)} form`} ` +
-      'a loop of voltage sources, inductors or driven outputs ' +
-      `through node${nodes.length === 1 ? '' : 's'} ${listNames(nodes)}, so ${elements.length === 1 ? 'its current is' : 'their currents are'} not determined`,
-  );
+  return new QuiescentError({ code: 'singular', elements, nodes, reason: 'voltage-loop' });
 }
 
-/** The matrix became singular while solving. */
+/** The matrix became singular while solving; `context` says where (`'at the operating point'`). */
 export function singularMatrix(
   elements: readonly string[],
   nodes: readonly string[],
   context: string,
 ): QuiescentError {
-  const parts: string[] = [];
-  if (nodes.length > 0) parts.push(`node${nodes.length > 1 ? 's' : ''} ${listNames(nodes)}`);
-  if (elements.length > 0) parts.push(`element${elements.length > 1 ? 's' : ''} ${listNames(elements)}`);
-  return new QuiescentError(
-    { code: 'singular', elements, nodes, reason: 'matrix' },
-    `the circuit equations have no unique solution ${context}; the trouble involves ${parts.join(' and ')}`,
-  );
+  return new QuiescentError({ code: 'singular', elements, nodes, reason: 'matrix', context });
 }
 
 /** The operating point could not be found. */
@@ -113,13 +105,17 @@ export function noConvergence(details: {
   lastUpdateNorm: number;
   lastResidualNorm: number;
 }): QuiescentError {
-  const tried = details.strategies.map((s) => `${s.strategy} (${s.iterations} iterations)`).join(', ');
-  const worst = details.worstResiduals
-    .map((r) => `${r.kind} '${r.name}' (${r.residual.toExponential(2)} ${r.kind === 'node' ? 'A' : 'V'})`)
-    .join(', ');
-  const devices = details.devices.length > 0 ? `; devices still moving: ${listNames(details.devices)}` : '';
+  return new QuiescentError({ code: 'no-convergence', ...details });
+}
+
+/** An output carries no signal where a ratio or level of it is asked for. */
+export function noSignal(output: string, frequency?: number): QuiescentError {
   return new QuiescentError(
-    { code: 'no-convergence', ...details },
-    `the operating point could not be found after ${tried}; largest residuals at ${worst || 'no node'}${devices}`,
+    frequency === undefined ? { code: 'no-signal', output } : { code: 'no-signal', output, frequency },
   );
+}
+
+/** A long computation was cancelled after `done` of `total` steps. */
+export function cancelled(done: number, total: number): QuiescentError {
+  return new QuiescentError({ code: 'cancelled', done, total });
 }

@@ -2,18 +2,7 @@
  * The one error type of the library. Every failure carries a `code` that programs switch on, a
  * message that names the elements and nodes involved, and `details` shaped by the code.
  */
-
-/** The codes a {@link QuiescentError} can carry, as listed in the public contract. */
-export type ErrorCode =
-  | 'invalid-value'
-  | 'duplicate-name'
-  | 'unknown-node'
-  | 'unknown-element'
-  | 'no-ground'
-  | 'floating-node'
-  | 'singular'
-  | 'no-convergence'
-  | 'invalid-circuit';
+import { describeError } from './wording.js';
 
 /** One fallback strategy of the operating-point search and how it ended. */
 export interface StrategyAttempt {
@@ -44,6 +33,16 @@ export type ErrorDetails =
       readonly path: readonly (string | number)[];
       /** The rejected value, as given. */
       readonly value: unknown;
+      /** What was expected, in words without the unit (`'a positive value'`, `'a resistance'`). */
+      readonly expected: string;
+      /** The admissible range, when the rule is one of the shared ranges. */
+      readonly range?: ValueRange;
+      /** The unit the value is expected in (`'Ω'`, `'A/V²'`; `'none'` for a pure number), when it has one. */
+      readonly unit?: string;
+      /** Why the value was rejected, when more than the range explains it (a wrong unit symbol, say). */
+      readonly reason?: string;
+      /** The element the value belongs to, when the path is a document's (`['elements', 3, 'resistance']`). */
+      readonly element?: string;
     }
   | {
       /** An element name is used twice. */
@@ -56,6 +55,8 @@ export type ErrorDetails =
       readonly code: 'unknown-node';
       /** The node asked for. */
       readonly node: string;
+      /** Where it was named, when that is known (an analysis option, say). */
+      readonly path?: readonly (string | number)[];
     }
   | {
       /** An element is missing, or has no current unknown where one is needed. */
@@ -64,6 +65,8 @@ export type ErrorDetails =
       readonly element: string;
       /** Where it was named, when it was named in a circuit (the controlling element of a ccvs, say). */
       readonly path?: readonly (string | number)[];
+      /** Why it cannot serve: missing, or lacking the quantity asked for. */
+      readonly reason: string;
     }
   | {
       /** Nothing connects to ground. */
@@ -84,6 +87,8 @@ export type ErrorDetails =
       readonly nodes: readonly string[];
       /** A loop of voltage sources, a cut set of current sources, or a singular matrix found while solving. */
       readonly reason: 'voltage-loop' | 'current-cut-set' | 'matrix';
+      /** When a singular matrix was met: where, in words (`'at the operating point'`, `'at 1 kHz'`). */
+      readonly context?: string;
     }
   | {
       /** The operating point could not be found. */
@@ -104,7 +109,37 @@ export type ErrorDetails =
       readonly code: 'invalid-circuit';
       /** Where the problem is, such as `['elements', 3, 'kind']`. */
       readonly path: readonly (string | number)[];
+      /** What is wrong there. */
+      readonly problem: string;
+      /** The element concerned, when the path is a document's (`['elements', 3, 'kind']`). */
+      readonly element?: string;
+    }
+  | {
+      /** An output carries no signal where a ratio or a level of it is asked for. */
+      readonly code: 'no-signal';
+      /** The output, in words (a node name, `'a − b'`, `'current in load'`). */
+      readonly output: string;
+      /** The frequency in Hz at which it is zero, when the question was about one frequency. */
+      readonly frequency?: number;
+    }
+  | {
+      /** A long computation was cancelled by its caller. */
+      readonly code: 'cancelled';
+      /** How many steps (samples, points) were done. */
+      readonly done: number;
+      /** How many steps there were to do. */
+      readonly total: number;
     };
+
+/** The codes a {@link QuiescentError} can carry: one per shape of {@link ErrorDetails}. */
+export type ErrorCode = ErrorDetails['code'];
+
+/**
+ * The shared ranges of numeric values: `'positive'` (> 0, finite), `'non-negative'` (≥ 0, finite),
+ * `'positive-or-infinite'` (> 0, Infinity allowed where it removes an effect), `'at-least-one'`
+ * (≥ 1), `'grading'` (strictly between 0 and 1) and `'any'` (any finite number).
+ */
+export type ValueRange = 'positive' | 'non-negative' | 'positive-or-infinite' | 'at-least-one' | 'grading' | 'any';
 
 /** The details type that belongs to one code. */
 export type DetailsOf<C extends ErrorCode> = Extract<
@@ -131,8 +166,11 @@ export class QuiescentError extends Error {
   /** Structured data about the failure; its shape depends on `code`. */
   readonly details: ErrorDetails;
 
-  /** Builds an error from its details and a message that names what is involved. */
-  constructor(details: ErrorDetails, message: string) {
+  /**
+   * Builds an error from its details; the message is worded from them (see `describeError`), or
+   * given when a caller adds context to an error it passes on.
+   */
+  constructor(details: ErrorDetails, message: string = describeError(details)) {
     super(message);
     this.name = 'QuiescentError';
     this.code = details.code;
@@ -140,19 +178,3 @@ export class QuiescentError extends Error {
   }
 }
 
-/** Formats a path such as `['Q1', 'model', 'forwardBeta']` as `Q1.model.forwardBeta`. */
-export function formatPath(path: readonly (string | number)[]): string {
-  let out = '';
-  for (const part of path) {
-    if (typeof part === 'number') out += `[${part}]`;
-    else out += out === '' ? part : `.${part}`;
-  }
-  return out;
-}
-
-/** Lists names in words: `a`, `a and b`, `a, b and c`. */
-export function listNames(names: readonly string[]): string {
-  const quoted = names.map((n) => `'${n}'`);
-  if (quoted.length <= 1) return quoted.join('');
-  return `${quoted.slice(0, -1).join(', ')} and ${quoted[quoted.length - 1]}`;
-}

@@ -410,6 +410,80 @@ describe('Circuit builder', () => {
   });
 
   describe('rejects bad model parameters', () => {
+    it.each([
+      [
+        'a MOSFET gain factor in farads',
+        () =>
+          new Circuit().mosfet(
+            'M1',
+            { drain: 'd', gate: 'g', source: GROUND },
+            { polarity: 'nmos', gainFactor: '2 mF' },
+          ),
+        'M1.model.gainFactor',
+        'A/V²',
+      ],
+      [
+        'a channel-length modulation in ohms',
+        () =>
+          new Circuit().mosfet(
+            'M1',
+            { drain: 'd', gate: 'g', source: GROUND },
+            { polarity: 'nmos', channelLengthModulation: '0.02 Ω' },
+          ),
+        'M1.model.channelLengthModulation',
+        '1/V',
+      ],
+      [
+        'a current gain in volts',
+        () =>
+          new Circuit().bjt(
+            'Q1',
+            { collector: 'c', base: 'b', emitter: GROUND },
+            { polarity: 'npn', forwardBeta: '100 V' },
+          ),
+        'Q1.model.forwardBeta',
+        'none',
+      ],
+      [
+        'a voltage gain in volts',
+        () => new Circuit().vcvs('amplifier', ['out', GROUND], ['in', GROUND], '10 V'),
+        'amplifier.gain',
+        'none',
+      ],
+    ] as const)('rejects a unit symbol on a quantity without that unit: %s', (_, build, path, unit) => {
+      // docs/devices.md, parameter tables: each parameter states its unit; a pure number has none
+      const error = expectRejected(build, 'invalid-value', path);
+      expect(error.details).toMatchObject({ code: 'invalid-value', unit });
+      if (unit !== 'none') expect(error.message).toContain(unit);
+      else expect(error.message).toContain('pure number');
+    });
+
+    it('accepts an SI prefix on a pure number and on a parameter whose unit has no symbol', () => {
+      // BIPM, SI Brochure, 9th ed., 2019, §5.4.7: prefixes apply to the unit one as well (common practice)
+      const c = new Circuit()
+        .vcvs('amplifier', ['out', GROUND], ['in', GROUND], '10k')
+        .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', gainFactor: '2m' });
+      expect(c.element('amplifier')).toMatchObject({ gain: 10000 });
+      expect(c.element('M1')).toMatchObject({ model: { gainFactor: 0.002 } });
+    });
+
+    it('carries the expected range and unit in the details of an out-of-range parameter', () => {
+      // common practice, no source: errors as data
+      const error = expectRejected(
+        () => new Circuit().diode('D1', 'a', 'b', { saturationCurrent: -1 }),
+        'invalid-value',
+      );
+      expect(error.details).toEqual({
+        code: 'invalid-value',
+        path: ['D1', 'model', 'saturationCurrent'],
+        value: -1,
+        expected: 'a positive value',
+        range: 'positive',
+        unit: 'A',
+      });
+      expect(error.message).toBe('D1.model.saturationCurrent: -1 is not a positive value in A');
+    });
+
     it('rejects a parameter the model does not have with invalid-circuit naming it', () => {
       // API.md, "Device models": the parameter names are fixed
       expectRejected(

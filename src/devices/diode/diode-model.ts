@@ -35,14 +35,14 @@ export interface DiodeModel {
 /** Parameter table of the diode: units, defaults and admissible ranges. */
 export const DIODE_PARAMETERS: ParameterTable<keyof DiodeModel> = {
   saturationCurrent: { unit: 'A', defaultValue: 1e-14, range: 'positive' },
-  emissionCoefficient: { defaultValue: 1, range: 'positive' },
+  emissionCoefficient: { unit: 'none', defaultValue: 1, range: 'positive' },
   seriesResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
   junctionCapacitance: { unit: 'F', defaultValue: 0, range: 'non-negative' },
   junctionPotential: { unit: 'V', defaultValue: 0.7, range: 'positive' },
-  gradingCoefficient: { defaultValue: 0.5, range: 'grading' },
+  gradingCoefficient: { unit: 'none', defaultValue: 0.5, range: 'grading' },
   transitTime: { unit: 's', defaultValue: 0, range: 'non-negative' },
   breakdownVoltage: { unit: 'V', defaultValue: Number.POSITIVE_INFINITY, range: 'positive-or-infinite' },
   bandgap: { unit: 'eV', defaultValue: 1.12, range: 'positive' },
-  saturationCurrentTemperatureExponent: { defaultValue: 3, range: 'any' },
+  saturationCurrentTemperatureExponent: { unit: 'none', defaultValue: 3, range: 'any' },
   referenceTemperature: { unit: 'K', defaultValue: 300.15, range: 'positive' },
 };

@@ -25,9 +25,9 @@ export interface MosfetModel {
 /** Parameter table of the MOSFET (polarity excluded; the threshold default depends on polarity). */
 export const MOSFET_PARAMETERS: ParameterTable<Exclude<keyof MosfetModel, 'polarity'>> = {
   thresholdVoltage: { unit: 'V', defaultValue: Number.NaN, range: 'any' },
-  gainFactor: { defaultValue: 1e-3, range: 'positive' },
-  channelLengthModulation: { defaultValue: 0, range: 'non-negative' },
-  bodyEffect: { defaultValue: 0, range: 'non-negative' },
+  gainFactor: { unit: 'A/V²', defaultValue: 1e-3, range: 'positive' },
+  channelLengthModulation: { unit: '1/V', defaultValue: 0, range: 'non-negative' },
+  bodyEffect: { unit: 'V^½', defaultValue: 0, range: 'non-negative' },
   surfacePotential: { unit: 'V', defaultValue: 0.7, range: 'positive' },
   gateSourceCapacitance: { unit: 'F', defaultValue: 0, range: 'non-negative' },
   gateDrainCapacitance: { unit: 'F', defaultValue: 0, range: 'non-negative' },

@@ -17,7 +17,7 @@ export interface OpAmpOptions {
 
 /** Parameter table of the op-amp options. */
 export const OP_AMP_PARAMETERS: ParameterTable<keyof OpAmpOptions> = {
-  openLoopGain: { defaultValue: 1e5, range: 'positive' },
+  openLoopGain: { unit: 'none', defaultValue: 1e5, range: 'positive' },
   gainBandwidth: { unit: 'Hz', defaultValue: Number.POSITIVE_INFINITY, range: 'positive-or-infinite' },
   outputResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
 };
