@@ -8,7 +8,7 @@ import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode/diode-model.
 import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet/mosfet-model.js';
 import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
 import { parseParameters } from '../devices/parameters.js';
-import { duplicateName, invalidCircuit, invalidValue } from '../errors/messages.js';
+import { duplicateName, invalidCircuit, invalidValue, unknownElement } from '../errors/messages.js';
 import type { Unit } from '../values/index.js';
 import { readValue } from '../values/parse.js';
 import type { Value } from '../values/value.js';
@@ -300,6 +300,65 @@ export class Circuit implements ElementBuilder {
     });
   }
 
+  /**
+   * Remove the element `name`. Nodes only it touched disappear with it; an element that still names
+   * it (a current-controlled source) is reported when an analysis starts.
+   *
+   * @throws QuiescentError `unknown-element` when the circuit has no element of that name
+   */
+  remove(name: string): this {
+    const index = this.#indexOf(name, ['remove']);
+    this.#elements.splice(index, 1);
+    this.#byName.delete(name);
+    this.#revision++;
+    return this;
+  }
+
+  /**
+   * Replace the element `name` with what `add` adds, in its place in the element order. `add`
+   * receives this circuit and calls its builder methods; the new element may keep the old name.
+   *
+   * @example
+   * ```ts
+   * const c = new Circuit().voltageSource('supply', 'in', GROUND, { dc: 5 }).resistor('load', 'in', GROUND, '1k');
+   * c.replace('load', (circuit) => circuit.resistor('load', 'in', GROUND, '2k'));
+   * ```
+   * @throws QuiescentError `unknown-element` when the circuit has no element of that name; any error
+   *   of the builder call, in which case the circuit is left as it was
+   */
+  replace(name: string, add: (circuit: this) => unknown): this {
+    const index = this.#indexOf(name, ['replace']);
+    const old = this.#elements[index]!;
+    const before = this.#elements.length;
+    this.#elements.splice(index, 1);
+    this.#byName.delete(name);
+    try {
+      add(this);
+    } catch (error) {
+      for (const added of this.#elements.splice(before - 1)) this.#byName.delete(added.name);
+      this.#elements.splice(index, 0, old);
+      this.#byName.set(name, old);
+      throw error;
+    }
+    const added = this.#elements.splice(before - 1);
+    this.#elements.splice(index, 0, ...added);
+    this.#revision++;
+    return this;
+  }
+
+  /**
+   * A copy of the circuit without the elements named (an open-circuited load, say); this circuit is
+   * unchanged. With no names, a plain copy.
+   *
+   * @throws QuiescentError `unknown-element` when a name is not an element of the circuit
+   */
+  without(...names: string[]): Circuit {
+    names.forEach((name, i) => this.#indexOf(name, ['without', i]));
+    const copy = new Circuit();
+    for (const record of this.#elements) if (!names.includes(record.name)) copy.#add(record);
+    return copy;
+  }
+
   /** The circuit as a plain JSON document (see {@link CircuitDocument}). */
   toJSON(): CircuitDocument {
     return circuitToJson(this.#elements);
@@ -318,6 +377,12 @@ export class Circuit implements ElementBuilder {
     }
     if (this.#byName.has(name)) throw duplicateName(name);
     return [name];
+  }
+
+  #indexOf(name: unknown, path: readonly (string | number)[]): number {
+    const index = typeof name === 'string' ? this.#elements.findIndex((e) => e.name === name) : -1;
+    if (index < 0) throw unknownElement(String(name), undefined, path);
+    return index;
   }
 
   #add(record: ElementRecord): this {
