@@ -78,7 +78,8 @@ export function parseParameters<K extends string>(
     } else {
       throw invalidValue([...path, key], raw, { range: spec.range, unit: spec.unit });
     }
-    if (!inRange(value, spec.range)) throw invalidValue([...path, key], raw, { range: spec.range, unit: spec.unit });
+    if (!inRange(value, spec.range))
+      throw invalidValue([...path, key], raw, { range: spec.range, unit: spec.unit });
     out[k] = value;
   }
   return out;

@@ -34,7 +34,8 @@ export function invalidValue(
   value: unknown,
   expected: Expectation,
 ): QuiescentError {
-  if (typeof expected === 'string') return new QuiescentError({ code: 'invalid-value', path, value, expected });
+  if (typeof expected === 'string')
+    return new QuiescentError({ code: 'invalid-value', path, value, expected });
   if ('range' in expected) {
     const { range, unit } = expected;
     return new QuiescentError({
@@ -61,7 +62,9 @@ export function invalidCircuit(path: readonly (string | number)[], problem: stri
 
 /** An analysis names a node the circuit lacks. */
 export function unknownNode(node: string, path: readonly (string | number)[] = []): QuiescentError {
-  return new QuiescentError(path.length > 0 ? { code: 'unknown-node', node, path } : { code: 'unknown-node', node });
+  return new QuiescentError(
+    path.length > 0 ? { code: 'unknown-node', node, path } : { code: 'unknown-node', node },
+  );
 }
 
 /** An analysis or controlled source names an element the circuit lacks, or one without the needed quantity. */

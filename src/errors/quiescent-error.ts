@@ -139,7 +139,13 @@ export type ErrorCode = ErrorDetails['code'];
  * `'positive-or-infinite'` (> 0, Infinity allowed where it removes an effect), `'at-least-one'`
  * (≥ 1), `'grading'` (strictly between 0 and 1) and `'any'` (any finite number).
  */
-export type ValueRange = 'positive' | 'non-negative' | 'positive-or-infinite' | 'at-least-one' | 'grading' | 'any';
+export type ValueRange =
+  | 'positive'
+  | 'non-negative'
+  | 'positive-or-infinite'
+  | 'at-least-one'
+  | 'grading'
+  | 'any';
 
 /** The details type that belongs to one code. */
 export type DetailsOf<C extends ErrorCode> = Extract<
@@ -177,4 +183,3 @@ export class QuiescentError extends Error {
     this.details = details;
   }
 }
-

@@ -101,7 +101,11 @@ function reject(
   unit: ExpectedUnit,
   reason: string,
 ): QuiescentError {
-  return invalidValue(path, value, { expected: expected(unit), ...(unit === undefined ? {} : { unit }), reason });
+  return invalidValue(path, value, {
+    expected: expected(unit),
+    ...(unit === undefined ? {} : { unit }),
+    reason,
+  });
 }
 
 /**
@@ -153,7 +157,11 @@ export function parseValue(
  * @returns the value in SI base units
  * @throws QuiescentError `'invalid-value'`, as {@link parseValue}; a unit symbol on a pure number too
  */
-export function readValue(text: string | number, unit: ExpectedUnit, path: readonly (string | number)[]): number {
+export function readValue(
+  text: string | number,
+  unit: ExpectedUnit,
+  path: readonly (string | number)[],
+): number {
   if (typeof text === 'number') {
     if (Number.isFinite(text)) return text;
     throw reject(path, text, unit, 'it must be a finite number');
