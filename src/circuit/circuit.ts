@@ -3,7 +3,6 @@
  * checks that need the whole circuit run when an analysis starts (see topology.ts).
  */
 import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt/bjt-model.js';
-import type { ElementBuilder } from '../devices/descriptor.js';
 import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode/diode-model.js';
 import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet/mosfet-model.js';
 import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
@@ -71,7 +70,7 @@ export interface MosfetTerminals {
  *   .diode('D1', 'out', GROUND);
  * ```
  */
-export class Circuit implements ElementBuilder {
+export class Circuit {
   #elements: ElementRecord[] = [];
   #byName = new Map<string, ElementRecord>();
   #revision = 0;
@@ -353,7 +352,7 @@ export class Circuit implements ElementBuilder {
    * @throws QuiescentError `unknown-element` when a name is not an element of the circuit
    */
   without(...names: string[]): Circuit {
-    names.forEach((name, i) => this.#indexOf(name, ['without', i]));
+    for (const [i, name] of names.entries()) this.#indexOf(name, ['without', i]);
     const copy = new Circuit();
     for (const record of this.#elements) if (!names.includes(record.name)) copy.#add(record);
     return copy;

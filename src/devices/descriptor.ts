@@ -43,8 +43,8 @@ export interface ReportSpec {
 }
 
 /**
- * The builder calls a document replays, as the circuit builder implements them (the circuit
- * class declares that it does, so the two cannot drift apart).
+ * The builder calls a document replays, as the circuit builder implements them (a type-level test
+ * assigns a circuit to it, so the two cannot drift apart).
  */
 export interface ElementBuilder {
   /** Adds a resistor. */

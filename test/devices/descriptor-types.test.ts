@@ -4,7 +4,8 @@
  * first, so each `@ts-expect-error` below fails the run if the error it expects goes away.
  */
 import { describe, expect, it } from 'vitest';
-import type { KindDescriptor, KindRegistry } from '../../src/devices/descriptor.js';
+import { Circuit } from '../../src/circuit/circuit.js';
+import type { ElementBuilder, KindDescriptor, KindRegistry } from '../../src/devices/descriptor.js';
 import { ELEMENT_KINDS, KINDS } from '../../src/devices/registry.js';
 import { RESISTOR } from '../../src/devices/resistor/descriptor.js';
 
@@ -24,6 +25,12 @@ describe('the registry of element kinds', () => {
     expect('dcPaths' in incomplete).toBe(false);
     expect('mosfet' in forgetful).toBe(false);
     expect(misfiled.capacitor.kind).toBe('resistor');
+  });
+
+  it('replays documents through the builder the circuit really has', () => {
+    // Compile-checked: the builder signatures that JSON replay calls are the circuit's own.
+    const builder: ElementBuilder = new Circuit();
+    expect(typeof builder.resistor).toBe('function');
   });
 
   it('holds one descriptor per kind, each under its own name', () => {
