@@ -3,10 +3,12 @@
  * checks that need the whole circuit run when an analysis starts (see topology.ts).
  */
 import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt/bjt-model.js';
+import type { ValueSpec } from '../devices/descriptor.js';
 import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode/diode-model.js';
 import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet/mosfet-model.js';
 import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
 import { parseParameters } from '../devices/parameters.js';
+import { KINDS } from '../devices/registry.js';
 import { duplicateName, invalidCircuit, invalidValue, unknownElement } from '../errors/messages.js';
 import type { Unit } from '../values/index.js';
 import { readValue } from '../values/parse.js';
@@ -110,7 +112,7 @@ export class Circuit {
       name,
       a: node(a, [...path, 'a']),
       b: node(b, [...path, 'b']),
-      resistance: positive(resistance, 'Ω', [...path, 'resistance']),
+      resistance: checked(KINDS.resistor.values.resistance, resistance, [...path, 'resistance']),
     });
   }
 
@@ -122,7 +124,7 @@ export class Circuit {
       name,
       a: node(a, [...path, 'a']),
       b: node(b, [...path, 'b']),
-      capacitance: nonNegative(capacitance, 'F', [...path, 'capacitance']),
+      capacitance: checked(KINDS.capacitor.values.capacitance, capacitance, [...path, 'capacitance']),
     });
   }
 
@@ -134,7 +136,7 @@ export class Circuit {
       name,
       a: node(a, [...path, 'a']),
       b: node(b, [...path, 'b']),
-      inductance: nonNegative(inductance, 'H', [...path, 'inductance']),
+      inductance: checked(KINDS.inductor.values.inductance, inductance, [...path, 'inductance']),
     });
   }
 
@@ -144,7 +146,7 @@ export class Circuit {
    */
   voltageSource(name: string, plus: string, minus: string, spec: SourceSpec = {}): this {
     const path = this.#start(name);
-    const { dc, ac } = sourceSpec(spec, 'V', path);
+    const { dc, ac } = sourceSpec(spec, KINDS['voltage-source'].values.dc, path);
     return this.#add({
       kind: 'voltage-source',
       name,
@@ -158,7 +160,7 @@ export class Circuit {
   /** Add an independent current source; its positive value flows from `from`, through the source, into `to`. */
   currentSource(name: string, from: string, to: string, spec: SourceSpec = {}): this {
     const path = this.#start(name);
-    const { dc, ac } = sourceSpec(spec, 'A', path);
+    const { dc, ac } = sourceSpec(spec, KINDS['current-source'].values.dc, path);
     return this.#add({
       kind: 'current-source',
       name,
@@ -181,7 +183,7 @@ export class Circuit {
       outMinus,
       controlPlus,
       controlMinus,
-      gain: finite(gain, 'none', [...path, 'gain']),
+      gain: checked(KINDS.vcvs.values.gain, gain, [...path, 'gain']),
     });
   }
 
@@ -202,7 +204,10 @@ export class Circuit {
       outTo,
       controlPlus,
       controlMinus,
-      transconductance: finite(transconductance, 'S', [...path, 'transconductance']),
+      transconductance: checked(KINDS.vccs.values.transconductance, transconductance, [
+        ...path,
+        'transconductance',
+      ]),
     });
   }
 
@@ -219,7 +224,10 @@ export class Circuit {
       outPlus,
       outMinus,
       control: elementName(control, [...path, 'control']),
-      transresistance: finite(transresistance, 'Ω', [...path, 'transresistance']),
+      transresistance: checked(KINDS.ccvs.values.transresistance, transresistance, [
+        ...path,
+        'transresistance',
+      ]),
     });
   }
 
@@ -233,7 +241,7 @@ export class Circuit {
       outFrom,
       outTo,
       control: elementName(control, [...path, 'control']),
-      gain: finite(gain, 'none', [...path, 'gain']),
+      gain: checked(KINDS.cccs.values.gain, gain, [...path, 'gain']),
     });
   }
 
@@ -470,19 +478,19 @@ function finite(v: unknown, unit: Unit | 'none', path: readonly (string | number
   return readValue(v, unit, path) || 0;
 }
 
-function positive(v: unknown, unit: Unit, path: readonly (string | number)[]): number {
-  const x = finite(v, unit, path);
-  if (!(x > 0)) throw invalidValue(path, v, { range: 'positive', unit });
+/** A value read in its unit and held to its range, as the kind's descriptor gives them. */
+function checked(spec: ValueSpec, v: unknown, path: readonly (string | number)[]): number {
+  const x = finite(v, spec.unit, path);
+  const ok = spec.range === 'positive' ? x > 0 : spec.range === 'non-negative' ? x >= 0 : true;
+  if (!ok) throw invalidValue(path, v, { range: spec.range, unit: spec.unit });
   return x;
 }
 
-function nonNegative(v: unknown, unit: Unit, path: readonly (string | number)[]): number {
-  const x = finite(v, unit, path);
-  if (!(x >= 0)) throw invalidValue(path, v, { range: 'non-negative', unit });
-  return x;
-}
-
-function sourceSpec(spec: unknown, unit: Unit, path: readonly string[]): { dc: number; ac: AcExcitation } {
+function sourceSpec(
+  spec: unknown,
+  value: ValueSpec,
+  path: readonly string[],
+): { dc: number; ac: AcExcitation } {
   if (spec === null || typeof spec !== 'object' || Array.isArray(spec)) {
     throw invalidCircuit(path, 'a source takes an object { dc?, ac? }');
   }
@@ -491,11 +499,12 @@ function sourceSpec(spec: unknown, unit: Unit, path: readonly string[]): { dc: n
     if (key !== 'dc' && key !== 'ac')
       throw invalidCircuit([...path, key], 'is not a source setting; use dc and ac');
   }
-  const dc = s.dc === undefined ? 0 : finite(s.dc, unit, [...path, 'dc']);
+  const dc = s.dc === undefined ? 0 : checked(value, s.dc, [...path, 'dc']);
+  const magnitude = { unit: value.unit, range: 'non-negative' } as const;
   let ac: AcExcitation = { magnitude: 0, phase: 0 };
   if (s.ac !== undefined) {
     if (typeof s.ac === 'number' || typeof s.ac === 'string') {
-      ac = { magnitude: nonNegative(s.ac, unit, [...path, 'ac']), phase: 0 };
+      ac = { magnitude: checked(magnitude, s.ac, [...path, 'ac']), phase: 0 };
     } else if (s.ac !== null && typeof s.ac === 'object' && !Array.isArray(s.ac)) {
       const a = s.ac as Record<string, unknown>;
       for (const key of Object.keys(a)) {
@@ -506,12 +515,12 @@ function sourceSpec(spec: unknown, unit: Unit, path: readonly string[]): { dc: n
           );
         }
       }
-      const magnitude = nonNegative(a.magnitude, unit, [...path, 'ac', 'magnitude']);
+      const peak = checked(magnitude, a.magnitude, [...path, 'ac', 'magnitude']);
       const phase = a.phase === undefined ? 0 : a.phase;
       if (typeof phase !== 'number' || !Number.isFinite(phase)) {
         throw invalidValue([...path, 'ac', 'phase'], phase, 'a finite phase in degrees');
       }
-      ac = { magnitude, phase: phase || 0 };
+      ac = { magnitude: peak, phase: phase || 0 };
     } else {
       throw invalidCircuit([...path, 'ac'], 'must be a magnitude or { magnitude, phase }');
     }

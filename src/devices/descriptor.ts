@@ -5,6 +5,7 @@
  * the element currents, the reports and the tables all read these descriptors, so a kind is
  * described once (see DEVELOPERS.md, "Adding a device kind").
  */
+import type { ValueRange } from '../errors/quiescent-error.js';
 import type { Unit } from '../values/units.js';
 import type { Value } from '../values/value.js';
 import type { Device } from './device.js';
@@ -18,6 +19,17 @@ export interface TerminalSpec<R> {
   /** What the terminal is, for docs and messages (`'collector'`, `'positive output'`). */
   readonly role: string;
 }
+
+/** The unit and range of one value field of a record (a resistance, a gain, a source's DC value). */
+export interface ValueSpec {
+  /** The unit, `'none'` for a pure number. */
+  readonly unit: Unit | 'none';
+  /** The admissible range. */
+  readonly range: ValueRange;
+}
+
+/** The fields of a record that hold a number. */
+export type NumberFields<R> = { [F in keyof R]: R[F] extends number ? F : never }[keyof R] & string;
 
 /** The JSON type of one document field. */
 export type FieldType = 'string' | 'number' | 'ac' | 'object' | 'polarity';
@@ -98,8 +110,12 @@ export interface KindDescriptor<K extends ElementKind> {
   dcPaths(record: RecordOf<K>): readonly (readonly [string, string])[];
   /** The branch whose voltage the element imposes (for the voltage-loop check), or undefined. */
   voltageBranch(record: RecordOf<K>): readonly [string, string] | undefined;
+  /** Every number field of the record with its unit and range; the builder checks values by these. */
+  readonly values: { readonly [F in NumberFields<RecordOf<K>>]: ValueSpec };
   /** The model parameter table (units, defaults, ranges), or null for a kind with none. */
   readonly parameters: ParameterTable<string> | null;
+  /** The record field holding the given model parameters (`'model'`, `'options'`), or null. */
+  readonly parameterField: (keyof RecordOf<K> & string) | null;
   /** The fields of its JSON document besides `kind` and `name`, with their types; optional ones end in `?`. */
   readonly json: Readonly<Record<string, FieldType>>;
   /**

@@ -22,7 +22,11 @@ describe('the registry of element kinds', () => {
     // A descriptor filed under another kind's name is not accepted either.
     // @ts-expect-error a resistor's descriptor is not a capacitor's
     const misfiled: KindRegistry = { ...KINDS, capacitor: RESISTOR };
+    // A descriptor that leaves a number field of its record without a unit and range is not either.
+    // @ts-expect-error values.resistance is missing
+    const unitless: KindDescriptor<'resistor'> = { ...RESISTOR, values: {} };
     expect('dcPaths' in incomplete).toBe(false);
+    expect(unitless.values).toEqual({});
     expect('mosfet' in forgetful).toBe(false);
     expect(misfiled.capacitor.kind).toBe('resistor');
   });

@@ -21,7 +21,9 @@ export const BJT: KindDescriptor<'bjt'> = {
     [r.base, r.collector],
   ],
   voltageBranch: () => undefined,
+  values: {},
   parameters: BJT_PARAMETERS,
+  parameterField: 'model',
   json: { collector: 'string', base: 'string', emitter: 'string', polarity: 'polarity', 'model?': 'object' },
   documentPaths: {},
   replay: (builder, name, f) =>

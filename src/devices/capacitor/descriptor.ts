@@ -15,7 +15,9 @@ export const CAPACITOR: KindDescriptor<'capacitor'> = {
   controlField: null,
   dcPaths: () => [],
   voltageBranch: () => undefined,
+  values: { capacitance: { unit: 'F', range: 'non-negative' } },
   parameters: null,
+  parameterField: null,
   json: { a: 'string', b: 'string', capacitance: 'number' },
   documentPaths: {},
   replay: (builder, name, f) =>

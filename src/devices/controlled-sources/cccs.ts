@@ -15,7 +15,9 @@ export const CCCS: KindDescriptor<'cccs'> = {
   controlField: 'control',
   dcPaths: () => [],
   voltageBranch: () => undefined,
+  values: { gain: { unit: 'none', range: 'any' } },
   parameters: null,
+  parameterField: null,
   json: { outFrom: 'string', outTo: 'string', control: 'string', gain: 'number' },
   documentPaths: { 'out[0]': ['outFrom'], 'out[1]': ['outTo'] },
   replay: (builder, name, f) =>

@@ -15,7 +15,9 @@ export const CCVS: KindDescriptor<'ccvs'> = {
   controlField: 'control',
   dcPaths: (r) => [[r.outPlus, r.outMinus]],
   voltageBranch: (r) => [r.outPlus, r.outMinus],
+  values: { transresistance: { unit: 'Ω', range: 'any' } },
   parameters: null,
+  parameterField: null,
   json: { outPlus: 'string', outMinus: 'string', control: 'string', transresistance: 'number' },
   documentPaths: { 'out[0]': ['outPlus'], 'out[1]': ['outMinus'] },
   replay: (builder, name, f) =>

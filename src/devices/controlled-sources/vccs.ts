@@ -17,7 +17,9 @@ export const VCCS: KindDescriptor<'vccs'> = {
   controlField: null,
   dcPaths: () => [],
   voltageBranch: () => undefined,
+  values: { transconductance: { unit: 'S', range: 'any' } },
   parameters: null,
+  parameterField: null,
   json: {
     outFrom: 'string',
     outTo: 'string',

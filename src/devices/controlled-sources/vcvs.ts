@@ -17,7 +17,9 @@ export const VCVS: KindDescriptor<'vcvs'> = {
   controlField: null,
   dcPaths: (r) => [[r.outPlus, r.outMinus]],
   voltageBranch: (r) => [r.outPlus, r.outMinus],
+  values: { gain: { unit: 'none', range: 'any' } },
   parameters: null,
+  parameterField: null,
   json: {
     outPlus: 'string',
     outMinus: 'string',

@@ -17,7 +17,9 @@ export const DIODE: KindDescriptor<'diode'> = {
   controlField: null,
   dcPaths: (r) => [[r.anode, r.cathode]],
   voltageBranch: () => undefined,
+  values: {},
   parameters: DIODE_PARAMETERS,
+  parameterField: 'model',
   json: { anode: 'string', cathode: 'string', 'model?': 'object' },
   documentPaths: {},
   replay: (builder, name, f) =>

@@ -22,7 +22,9 @@ export const MOSFET: KindDescriptor<'mosfet'> = {
     [r.body, r.source],
   ],
   voltageBranch: () => undefined,
+  values: {},
   parameters: MOSFET_PARAMETERS,
+  parameterField: 'model',
   json: {
     drain: 'string',
     gate: 'string',

@@ -20,7 +20,9 @@ export const OP_AMP: KindDescriptor<'op-amp'> = {
   dcPaths: (r) => [[r.output, GROUND]],
   // With an output resistance the output is no longer an imposed voltage.
   voltageBranch: (r) => (r.options?.outputResistance ? undefined : [r.output, GROUND]),
+  values: {},
   parameters: OP_AMP_PARAMETERS,
+  parameterField: 'options',
   json: { plus: 'string', minus: 'string', output: 'string', 'options?': 'object' },
   documentPaths: {},
   replay: (builder, name, f) => {

@@ -18,7 +18,9 @@ export const VOLTAGE_SOURCE: KindDescriptor<'voltage-source'> = {
   controlField: null,
   dcPaths: (r) => [[r.plus, r.minus]],
   voltageBranch: (r) => [r.plus, r.minus],
+  values: { dc: { unit: 'V', range: 'any' } },
   parameters: null,
+  parameterField: null,
   json: { plus: 'string', minus: 'string', 'dc?': 'number', 'ac?': 'ac' },
   documentPaths: {},
   replay: (builder, name, f) =>
