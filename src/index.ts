@@ -92,6 +92,7 @@ export { BOLTZMANN, ELEMENTARY_CHARGE, thermalVoltage } from './devices/junction
 export type { MosfetModel } from './devices/mosfet/mosfet-model.js';
 export type { OpAmpOptions } from './devices/op-amp/op-amp-model.js';
 export {
+  type CircuitProblem,
   type DetailsOf,
   type ErrorCode,
   type ErrorDetails,

@@ -10,6 +10,7 @@ import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-m
 import { parseParameters } from '../devices/parameters.js';
 import { KINDS } from '../devices/registry.js';
 import { duplicateName, invalidCircuit, invalidValue, unknownElement } from '../errors/messages.js';
+import { describeGiven } from '../errors/wording.js';
 import type { Unit } from '../values/index.js';
 import { readValue } from '../values/parse.js';
 import type { Value } from '../values/value.js';
@@ -380,7 +381,7 @@ export class Circuit {
 
   #start(name: unknown): string[] {
     if (typeof name !== 'string' || name.length === 0) {
-      throw invalidCircuit(['name'], `an element name must be a non-empty string, not ${describe(name)}`);
+      throw invalidCircuit(['name'], { kind: 'not-a-name', what: 'element', got: describeGiven(name) });
     }
     if (this.#byName.has(name)) throw duplicateName(name);
     return [name];
@@ -403,29 +404,23 @@ export class Circuit {
   }
 }
 
-function describe(x: unknown): string {
-  if (typeof x === 'string') return JSON.stringify(x);
-  if (x === null) return 'null';
-  return typeof x;
-}
-
 function node(x: unknown, path: readonly (string | number)[]): string {
   if (typeof x !== 'string' || x.length === 0) {
-    throw invalidCircuit(path, `a node name must be a non-empty string, not ${describe(x)}`);
+    throw invalidCircuit(path, { kind: 'not-a-name', what: 'node', got: describeGiven(x) });
   }
   return x;
 }
 
 function elementName(x: unknown, path: readonly (string | number)[]): string {
   if (typeof x !== 'string' || x.length === 0) {
-    throw invalidCircuit(path, `must name the controlling element, not ${describe(x)}`);
+    throw invalidCircuit(path, { kind: 'not-a-name', what: 'controlling element', got: describeGiven(x) });
   }
   return x;
 }
 
 function pair(x: unknown, path: readonly (string | number)[]): [string, string] {
   if (!Array.isArray(x) || x.length !== 2) {
-    throw invalidCircuit(path, 'must be a pair of node names [plus, minus]');
+    throw invalidCircuit(path, { kind: 'not-a-pair' });
   }
   return [node(x[0], [...path, 0]), node(x[1], [...path, 1])];
 }
@@ -437,15 +432,16 @@ function terminalObject<K extends string, O extends string = never>(
   optional: readonly O[] = [],
 ): Record<K, string> & Partial<Record<O, string>> {
   if (x === null || typeof x !== 'object' || Array.isArray(x)) {
-    throw invalidCircuit(path, `terminals must be an object with ${required.join(', ')}`);
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'terminals', keys: required });
   }
   const obj = x as Record<string, unknown>;
   for (const key of Object.keys(obj)) {
     if (!(required as readonly string[]).includes(key) && !(optional as readonly string[]).includes(key)) {
-      throw invalidCircuit(
-        [...path, key],
-        `is not a terminal; the terminals are ${[...required, ...optional].join(', ')}`,
-      );
+      throw invalidCircuit([...path, key], {
+        kind: 'unknown-key',
+        what: 'terminal',
+        known: [...required, ...optional],
+      });
     }
   }
   const out: Record<string, string> = {};
@@ -460,14 +456,16 @@ function polarityOf<P extends string>(
   path: readonly (string | number)[],
 ): P {
   if (model === null || typeof model !== 'object') {
-    throw invalidCircuit(path, `a model object with a polarity (${allowed.join(' or ')}) is required`);
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'model', keys: allowed });
   }
   const p = (model as { polarity?: unknown }).polarity;
   if (typeof p !== 'string' || !(allowed as readonly string[]).includes(p)) {
-    throw invalidCircuit(
-      [...path, 'polarity'],
-      `must be ${allowed.map((a) => `'${a}'`).join(' or ')}, not ${describe(p)}`,
-    );
+    throw invalidCircuit([...path, 'polarity'], {
+      kind: 'not-one-of',
+      what: 'polarity',
+      allowed,
+      got: describeGiven(p),
+    });
   }
   return p as P;
 }
@@ -492,12 +490,16 @@ function sourceSpec(
   path: readonly string[],
 ): { dc: number; ac: AcExcitation } {
   if (spec === null || typeof spec !== 'object' || Array.isArray(spec)) {
-    throw invalidCircuit(path, 'a source takes an object { dc?, ac? }');
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'source' });
   }
   const s = spec as Record<string, unknown>;
   for (const key of Object.keys(s)) {
     if (key !== 'dc' && key !== 'ac')
-      throw invalidCircuit([...path, key], 'is not a source setting; use dc and ac');
+      throw invalidCircuit([...path, key], {
+        kind: 'unknown-key',
+        what: 'source setting',
+        known: ['dc', 'ac'],
+      });
   }
   const dc = s.dc === undefined ? 0 : checked(value, s.dc, [...path, 'dc']);
   const magnitude = { unit: value.unit, range: 'non-negative' } as const;
@@ -509,10 +511,11 @@ function sourceSpec(
       const a = s.ac as Record<string, unknown>;
       for (const key of Object.keys(a)) {
         if (key !== 'magnitude' && key !== 'phase') {
-          throw invalidCircuit(
-            [...path, 'ac', key],
-            'is not an AC setting; use magnitude and phase (degrees)',
-          );
+          throw invalidCircuit([...path, 'ac', key], {
+            kind: 'unknown-key',
+            what: 'AC setting',
+            known: ['magnitude', 'phase'],
+          });
         }
       }
       const peak = checked(magnitude, a.magnitude, [...path, 'ac', 'magnitude']);
@@ -522,7 +525,7 @@ function sourceSpec(
       }
       ac = { magnitude: peak, phase: phase || 0 };
     } else {
-      throw invalidCircuit([...path, 'ac'], 'must be a magnitude or { magnitude, phase }');
+      throw invalidCircuit([...path, 'ac'], { kind: 'not-an-object', what: 'ac' });
     }
   }
   return { dc, ac };

@@ -6,7 +6,7 @@
 import { ELEMENT_KINDS, isElementKind, KINDS } from '../devices/registry.js';
 import { invalidCircuit } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
-import { formatPath } from '../errors/wording.js';
+import { describeGiven, formatPath } from '../errors/wording.js';
 import type { Circuit } from './circuit.js';
 import type { ElementKind, ElementRecord } from './elements.js';
 
@@ -60,7 +60,7 @@ function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (str
     const present = Object.hasOwn(raw, key);
     if (!present) {
       if (optional) continue;
-      throw invalidCircuit([...path, key], `is missing (a ${kind} needs ${key})`);
+      throw invalidCircuit([...path, key], { kind: 'missing', of: kind });
     }
     const v = raw[key];
     const ok =
@@ -74,13 +74,19 @@ function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (str
               ? typeof v === 'number' || isPlainObject(v)
               : isPlainObject(v);
     if (!ok)
-      throw invalidCircuit(
-        [...path, key],
-        `must be ${type === 'ac' ? 'a number or { magnitude, phase }' : `a ${type === 'polarity' ? 'string' : type}`}`,
-      );
+      throw invalidCircuit([...path, key], {
+        kind: 'wrong-type',
+        expected: type === 'polarity' ? 'string' : type,
+      });
   }
   for (const key of Object.keys(raw)) {
-    if (!allowed.has(key)) throw invalidCircuit([...path, key], `is not a field of a ${kind}`);
+    if (!allowed.has(key))
+      throw invalidCircuit([...path, key], {
+        kind: 'unknown-key',
+        what: 'field',
+        of: kind,
+        known: [...allowed],
+      });
   }
 }
 
@@ -107,40 +113,51 @@ function relocate(error: unknown, path: (string | number)[], name: string, kind:
 
 /** Validate a document field by field and replay it into `circuit`. */
 export function circuitFromJson(json: unknown, circuit: Circuit): void {
-  if (!isPlainObject(json)) throw invalidCircuit([], 'a circuit document must be a JSON object');
+  if (!isPlainObject(json)) throw invalidCircuit([], { kind: 'not-an-object', what: 'document' });
   for (const key of Object.keys(json)) {
     if (key !== 'format' && key !== 'version' && key !== 'elements') {
-      throw invalidCircuit([key], 'is not a field of a circuit document (format, version, elements)');
+      throw invalidCircuit([key], {
+        kind: 'unknown-key',
+        what: 'document field',
+        known: ['format', 'version', 'elements'],
+      });
     }
   }
   if (json.format !== DOCUMENT_FORMAT) {
-    throw invalidCircuit(['format'], `must be '${DOCUMENT_FORMAT}'`);
+    throw invalidCircuit(['format'], {
+      kind: 'not-one-of',
+      what: 'format',
+      allowed: [DOCUMENT_FORMAT],
+      got: describeGiven(json.format),
+    });
   }
   if (json.version !== DOCUMENT_VERSION) {
-    throw invalidCircuit(
-      ['version'],
-      `version ${String(json.version)} is not supported (this release reads ${DOCUMENT_VERSION})`,
-    );
+    throw invalidCircuit(['version'], {
+      kind: 'unsupported-version',
+      got: String(json.version),
+      supported: DOCUMENT_VERSION,
+    });
   }
-  if (!Array.isArray(json.elements)) throw invalidCircuit(['elements'], 'must be an array of elements');
+  if (!Array.isArray(json.elements))
+    throw invalidCircuit(['elements'], { kind: 'not-an-object', what: 'elements' });
   json.elements.forEach((raw: unknown, i: number) => {
     const path: (string | number)[] = ['elements', i];
-    if (!isPlainObject(raw)) throw invalidCircuit(path, 'must be an object');
+    if (!isPlainObject(raw)) throw invalidCircuit(path, { kind: 'not-an-object', what: 'element' });
     const kind = raw.kind;
     if (typeof kind !== 'string' || !isElementKind(kind)) {
-      throw invalidCircuit(
-        [...path, 'kind'],
-        `${JSON.stringify(kind)} is not a kind of element (${ELEMENT_KINDS.join(', ')})`,
-      );
+      throw invalidCircuit([...path, 'kind'], {
+        kind: 'not-one-of',
+        what: 'kind',
+        allowed: ELEMENT_KINDS,
+        got: String(JSON.stringify(kind)),
+      });
     }
-    if (typeof raw.name !== 'string') throw invalidCircuit([...path, 'name'], 'must be a string');
+    if (typeof raw.name !== 'string')
+      throw invalidCircuit([...path, 'name'], { kind: 'wrong-type', expected: 'string' });
     checkFields(raw, kind as ElementKind, path);
     if (isPlainObject(raw.model) && Object.hasOwn(raw.model, 'polarity')) {
       // The element's own polarity field would silently win over this one.
-      throw invalidCircuit(
-        [...path, 'model', 'polarity'],
-        `is not a model parameter of '${raw.name}'; polarity is a field of the element`,
-      );
+      throw invalidCircuit([...path, 'model', 'polarity'], { kind: 'polarity-in-model' }, raw.name);
     }
     try {
       replay(circuit, kind as ElementKind, raw);

@@ -50,17 +50,18 @@ export function parseParameters<K extends string>(
 ): Partial<Record<K, number>> {
   if (given === undefined) return {};
   if (given === null || typeof given !== 'object' || Array.isArray(given)) {
-    throw invalidCircuit(path, `the model of ${article(kindName)} must be an object of parameters`);
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'model', of: article(kindName) });
   }
   const out: Partial<Record<K, number>> = {};
   for (const key of Object.keys(given)) {
     if (skip.includes(key)) continue;
     if (!Object.hasOwn(table, key)) {
-      const known = Object.keys(table).join(', ');
-      throw invalidCircuit(
-        [...path, key],
-        `is not a parameter of ${article(kindName)}; the parameters are ${known}`,
-      );
+      throw invalidCircuit([...path, key], {
+        kind: 'unknown-key',
+        what: 'parameter',
+        of: article(kindName),
+        known: Object.keys(table),
+      });
     }
     const k = key as K;
     const spec = table[k];

@@ -1,5 +1,6 @@
 export * as messages from './messages.js';
 export {
+  type CircuitProblem,
   type DetailsOf,
   type ErrorCode,
   type ErrorDetails,
@@ -8,4 +9,4 @@ export {
   type StrategyAttempt,
   type ValueRange,
 } from './quiescent-error.js';
-export { describeError, formatPath, listNames } from './wording.js';
+export { describeError, describeGiven, formatPath, listNames } from './wording.js';

@@ -3,6 +3,7 @@
  * the words come from `describeError` (wording.ts), so call sites never write a message.
  */
 import {
+  type CircuitProblem,
   QuiescentError,
   type ResidualEntry,
   type StrategyAttempt,
@@ -55,9 +56,17 @@ export function duplicateName(name: string): QuiescentError {
   return new QuiescentError({ code: 'duplicate-name', name });
 }
 
-/** A builder call or JSON document is malformed. */
-export function invalidCircuit(path: readonly (string | number)[], problem: string): QuiescentError {
-  return new QuiescentError({ code: 'invalid-circuit', path, problem });
+/** A builder call or JSON document is malformed: `problem` says how, as data. */
+export function invalidCircuit(
+  path: readonly (string | number)[],
+  problem: CircuitProblem,
+  element?: string,
+): QuiescentError {
+  return new QuiescentError(
+    element === undefined
+      ? { code: 'invalid-circuit', path, problem }
+      : { code: 'invalid-circuit', path, problem, element },
+  );
 }
 
 /** An analysis names a node the circuit lacks. */

@@ -110,7 +110,7 @@ export type ErrorDetails =
       /** Where the problem is, such as `['elements', 3, 'kind']`. */
       readonly path: readonly (string | number)[];
       /** What is wrong there. */
-      readonly problem: string;
+      readonly problem: CircuitProblem;
       /** The element concerned, when the path is a document's (`['elements', 3, 'kind']`). */
       readonly element?: string;
     }
@@ -129,6 +129,75 @@ export type ErrorDetails =
       readonly done: number;
       /** How many steps there were to do. */
       readonly total: number;
+    };
+
+/** What is wrong with a builder call or a JSON document, as data; `what` says which part it concerns. */
+export type CircuitProblem =
+  | {
+      /** A name that is not a non-empty string. */
+      readonly kind: 'not-a-name';
+      /** Which name: an element's, a node's or a controlling element's. */
+      readonly what: 'element' | 'node' | 'controlling element';
+      /** What was given instead, described (`'5'`, `'null'`, `'""'`). */
+      readonly got: string;
+    }
+  | {
+      /** Not a pair of node names. */
+      readonly kind: 'not-a-pair';
+    }
+  | {
+      /** Not an object (or array) where one is needed. */
+      readonly kind: 'not-an-object';
+      /** Which part: terminals, model parameters, a source's settings, an AC setting, a document, its elements or one element. */
+      readonly what: 'terminals' | 'model' | 'source' | 'ac' | 'document' | 'elements' | 'element';
+      /** The kind in words for a model (`'a diode'`), or the keys expected for terminals. */
+      readonly of?: string;
+      /** The keys expected (terminals, model polarity values). */
+      readonly keys?: readonly string[];
+    }
+  | {
+      /** A key that is not one of those known. */
+      readonly kind: 'unknown-key';
+      /** What kind of key. */
+      readonly what: 'terminal' | 'parameter' | 'source setting' | 'AC setting' | 'field' | 'document field';
+      /** The owner in words (`'a diode'`, `'resistor'`), where it matters. */
+      readonly of?: string;
+      /** The known keys. */
+      readonly known: readonly string[];
+    }
+  | {
+      /** A value that is not one of the values allowed. */
+      readonly kind: 'not-one-of';
+      /** Which value. */
+      readonly what: 'polarity' | 'format' | 'kind';
+      /** The values allowed. */
+      readonly allowed: readonly string[];
+      /** What was given, described. */
+      readonly got: string;
+    }
+  | {
+      /** A required field is missing. */
+      readonly kind: 'missing';
+      /** The kind that needs it. */
+      readonly of: string;
+    }
+  | {
+      /** A field of the wrong JSON type. */
+      readonly kind: 'wrong-type';
+      /** The type expected. */
+      readonly expected: 'string' | 'number' | 'object' | 'ac';
+    }
+  | {
+      /** A document version this release does not read. */
+      readonly kind: 'unsupported-version';
+      /** The version given, described. */
+      readonly got: string;
+      /** The version this release reads. */
+      readonly supported: number;
+    }
+  | {
+      /** A polarity inside a document's model, where it would contradict the element's field. */
+      readonly kind: 'polarity-in-model';
     };
 
 /** The codes a {@link QuiescentError} can carry: one per shape of {@link ErrorDetails}. */

@@ -2,7 +2,7 @@
  * The English of every error, built from its details alone: a check says what it found as data,
  * and this module words it, so one rule reads one way everywhere and a path is printed once.
  */
-import type { ErrorDetails, ResidualEntry, ValueRange } from './quiescent-error.js';
+import type { CircuitProblem, ErrorDetails, ResidualEntry, ValueRange } from './quiescent-error.js';
 
 /** Formats a path such as `['Q1', 'model', 'forwardBeta']` as `Q1.model.forwardBeta`. */
 export function formatPath(path: readonly (string | number)[]): string {
@@ -77,7 +77,7 @@ export function describeError(d: ErrorDetails): string {
     case 'duplicate-name':
       return `an element named '${d.name}' already exists; element names must be unique`;
     case 'invalid-circuit':
-      return `${at(d.path, d.element)}${d.problem}`;
+      return `${at(d.path, d.element)}${problemWords(d.problem, d.path)}`;
     case 'unknown-node':
       return `${at(d.path)}the circuit has no node named '${d.node}'`;
     case 'unknown-element':
@@ -118,4 +118,85 @@ export function describeError(d: ErrorDetails): string {
     case 'cancelled':
       return `cancelled after ${d.done} of ${d.total} steps`;
   }
+}
+
+const quoted = (values: readonly string[]): string => values.map((v) => `'${v}'`).join(' or ');
+
+/** A circuit problem in words; `path` gives the field a missing or misplaced field is named by. */
+function problemWords(p: CircuitProblem, path: readonly (string | number)[]): string {
+  const field = String(path[path.length - 1] ?? '');
+  switch (p.kind) {
+    case 'not-a-name':
+      return p.what === 'controlling element'
+        ? `must name the controlling element, not ${p.got}`
+        : `${p.what === 'element' ? 'an element' : 'a node'} name must be a non-empty string, not ${p.got}`;
+    case 'not-a-pair':
+      return 'must be a pair of node names [plus, minus]';
+    case 'not-an-object':
+      switch (p.what) {
+        case 'terminals':
+          return `terminals must be an object with ${(p.keys ?? []).join(', ')}`;
+        case 'model':
+          return p.keys !== undefined
+            ? `a model object with a polarity (${p.keys.join(' or ')}) is required`
+            : `the model of ${p.of} must be an object of parameters`;
+        case 'source':
+          return 'a source takes an object { dc?, ac? }';
+        case 'ac':
+          return 'must be a magnitude or { magnitude, phase }';
+        case 'document':
+          return 'a circuit document must be a JSON object';
+        case 'elements':
+          return 'must be an array of elements';
+        case 'element':
+          return 'must be an object';
+      }
+      break;
+    case 'unknown-key':
+      switch (p.what) {
+        case 'terminal':
+          return `is not a terminal; the terminals are ${p.known.join(', ')}`;
+        case 'parameter':
+          return `is not a parameter of ${p.of}; the parameters are ${p.known.join(', ')}`;
+        case 'source setting':
+          return 'is not a source setting; use dc and ac';
+        case 'AC setting':
+          return 'is not an AC setting; use magnitude and phase (degrees)';
+        case 'field':
+          return `is not a field of a ${p.of}`;
+        case 'document field':
+          return `is not a field of a circuit document (${p.known.join(', ')})`;
+      }
+      break;
+    case 'not-one-of':
+      switch (p.what) {
+        case 'polarity':
+          return `must be ${quoted(p.allowed)}, not ${p.got}`;
+        case 'format':
+          return `must be ${quoted(p.allowed)}`;
+        case 'kind':
+          return `${p.got} is not a kind of element (${p.allowed.join(', ')})`;
+      }
+      break;
+    case 'missing':
+      return `is missing (a ${p.of} needs ${field})`;
+    case 'wrong-type':
+      return `must be ${p.expected === 'ac' ? 'a number or { magnitude, phase }' : `a ${p.expected}`}`;
+    case 'unsupported-version':
+      return `version ${p.got} is not supported (this release reads ${p.supported})`;
+    case 'polarity-in-model':
+      return 'is not a model parameter; polarity is a field of the element';
+  }
+}
+
+/**
+ * Describes a given value for a message: strings quoted, numbers as written, otherwise its type.
+ *
+ * @param value - anything
+ * @returns such as `'"NPN"'`, `'5'`, `'null'`, `'object'`
+ */
+export function describeGiven(value: unknown): string {
+  if (typeof value === 'string') return JSON.stringify(value);
+  if (value === null) return 'null';
+  return typeof value;
 }

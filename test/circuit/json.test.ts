@@ -303,6 +303,11 @@ describe('Circuit JSON documents', () => {
       };
       const error = expectRejected(doc, 'invalid-circuit', 'elements[0].polarity', 'Q1');
       expect(error.details).toMatchObject({ code: 'invalid-circuit', path: ['elements', 0, 'polarity'] });
+      // The details say what the message says: which values are allowed and what was given.
+      expect(error.details).toMatchObject({
+        element: 'Q1',
+        problem: { kind: 'not-one-of', what: 'polarity', allowed: ['npn', 'pnp'], got: '"NPN"' },
+      });
     });
 
     it('rejects a polarity inside the model, which would contradict the element field', () => {
