@@ -14,57 +14,22 @@ import { AcWorkspace } from '../src/analysis/ac-workspace.js';
 import { logSweep } from '../src/analysis/frequency-grid.js';
 import { Circuit, GROUND, type OperatingPoint, operatingPoint, renderTable } from '../src/index.js';
 import { createComplexSolver } from '../src/linalg/index.js';
+import { median, stageChain } from './stage-chain.js';
 
 const FREQUENCY_COUNT = 1000;
 
 /** A side × side RC mesh driven at one corner through a resistor. */
 function rcMesh(side: number): Circuit {
-  const c = new Circuit().voltageSource('Vin', 'in', GROUND, { ac: 1 }).resistor('Rin', 'in', 'n0_0', 50);
+  const c = new Circuit().voltageSource('drive', 'in', GROUND, { ac: 1 }).resistor('feed', 'in', 'n0_0', 50);
   for (let i = 0; i < side; i++) {
     for (let j = 0; j < side; j++) {
       const node = `n${i}_${j}`;
-      c.capacitor(`C${i}_${j}`, node, GROUND, 1e-9);
-      if (i + 1 < side) c.resistor(`Rv${i}_${j}`, node, `n${i + 1}_${j}`, 1e3);
-      if (j + 1 < side) c.resistor(`Rh${i}_${j}`, node, `n${i}_${j + 1}`, 1e3);
+      c.capacitor(`leak${i}_${j}`, node, GROUND, 1e-9);
+      if (i + 1 < side) c.resistor(`down${i}_${j}`, node, `n${i + 1}_${j}`, 1e3);
+      if (j + 1 < side) c.resistor(`across${i}_${j}`, node, `n${i}_${j + 1}`, 1e3);
     }
   }
   return c;
-}
-
-/**
- * `count` capacitor-coupled common-emitter stages (three nodes each) on one 12 V supply. Each stage has
- * an unbypassed emitter resistor and a gain near −1, so that a long chain neither overflows nor
- * underflows inside the sweep.
- */
-function cascadedStages(count: number): Circuit {
-  const model = {
-    polarity: 'npn',
-    forwardBeta: 150,
-    earlyVoltage: 90,
-    baseEmitterCapacitance: 8e-12,
-    baseCollectorCapacitance: 3e-12,
-    forwardTransitTime: 4e-10,
-  } as const;
-  const c = new Circuit()
-    .voltageSource('Vcc', 'vcc', GROUND, { dc: 12 })
-    .voltageSource('Vin', 'in', GROUND, { ac: 1e-3 })
-    .resistor('Rsig', 'in', 'src', 600);
-  for (let k = 0; k < count; k++) {
-    const from = k === 0 ? 'src' : `c${k - 1}`;
-    c.capacitor(`Cc${k}`, from, `b${k}`, 100e-6)
-      .resistor(`RB1_${k}`, 'vcc', `b${k}`, 68e3)
-      .resistor(`RB2_${k}`, `b${k}`, GROUND, 12e3)
-      .resistor(`RC${k}`, 'vcc', `c${k}`, 2.7e3)
-      .resistor(`RE${k}`, `e${k}`, GROUND, 2.2e3)
-      .bjt(`Q${k}`, { collector: `c${k}`, base: `b${k}`, emitter: `e${k}` }, model);
-  }
-  return c;
-}
-
-function median(samples: number[]): number {
-  const sorted = samples.slice().sort((a, b) => a - b);
-  const m = sorted.length >> 1;
-  return sorted.length % 2 === 1 ? sorted[m]! : (sorted[m - 1]! + sorted[m]!) / 2;
 }
 
 /**
@@ -138,8 +103,8 @@ function measure(name: string, circuit: Circuit, repeat: number): Row {
 const rows: Row[] = [
   measure('RC mesh 32×32', rcMesh(32), 3),
   measure('RC mesh 100×100', rcMesh(100), 1),
-  measure('CE stages ×333', cascadedStages(333), 3),
-  measure('CE stages ×3333', cascadedStages(3333), 1),
+  measure('CE stages ×333', stageChain(333), 3),
+  measure('CE stages ×3333', stageChain(3333), 1),
 ];
 
 if (process.argv.includes('--json')) {

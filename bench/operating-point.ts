@@ -17,12 +17,8 @@
  * Run: npx tsx bench/operating-point.ts   (prints a table; `--json` prints one JSON line per circuit)
  */
 import { performance } from 'node:perf_hooks';
-import {
-  conditionsAt,
-  prepareSolver,
-  solveFromCurrent,
-  startFromGuess,
-} from '../src/analysis/operating-point.js';
+import { conditionsAt, solveFromCurrent, startFromGuess } from '../src/analysis/operating-point.js';
+import { prepareSolver } from '../src/analysis/prepared.js';
 import { Circuit, GROUND } from '../src/index.js';
 
 /** `count` direct-coupled common-emitter stages on a 12 V supply. */

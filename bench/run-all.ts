@@ -11,6 +11,11 @@ const BENCHMARKS: readonly (readonly string[])[] = [
   ['lu-families.ts'],
   ['operating-point.ts'],
   ['ac-analysis.ts'],
+  ['pipeline.ts', '--sizes', '1000,10000'],
+  ['small-circuit.ts'],
+  ['noise.ts'],
+  ['linearity.ts'],
+  ['stability.ts'],
 ];
 
 const here = dirname(fileURLToPath(import.meta.url));

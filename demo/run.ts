@@ -2,7 +2,7 @@
  * The built-in example: the front end of an invented greenhouse leaf-wetness sensor. A common-emitter
  * stage amplifies the electrode signal; a diode, biased by a control current, sets the level that
  * reaches the detector. This script solves its operating point, its small-signal response over
- * frequency, the linearity of every junction at the signal applied, and the level against the control
+ * frequency, the linearity verdict at the detector at the signal applied, and the level against the control
  * current, and writes a Bode plot and a sweep plot as SVG files.
  *
  * Run with `npm run demo`; the plots go to out/demo (or the folder given as the first argument).
@@ -73,7 +73,7 @@ export interface DemoResult {
   readonly corners: readonly number[];
   /** The control currents swept, in A, and the gain to the detector at 1 kHz for each, in dB. */
   readonly sweep: { readonly current: Float64Array; readonly gainDb: Float64Array };
-  /** The largest factor the electrode signal could grow by with every junction within budget. */
+  /** The largest factor the electrode signal could grow by with the detector's verdict still holding. */
   readonly maxInputScale: number;
 }
 
@@ -96,7 +96,9 @@ export function runDemo(folder: string, print: (text: string) => void = console.
       corners.map((f) => formatValue(f, 'Hz', { digits: 3 })).join(' and '),
   );
 
-  const report = linearity(ac);
+  // The verdict is taken where the signal is read, the detector; each junction's share shows where the
+  // curvature comes from (the transistor's reverse-biased collector junction contributes nothing).
+  const report = linearity(ac, { output: 'detector' });
   print('');
   print(formatLinearity(report));
 

@@ -6,11 +6,22 @@
  * voltage drives the diode's bias current through 22 kΩ. The diode's dynamic resistance
  * r_d = n·Vt/I_D falls as the control rises, so the divider attenuates more. A DC sweep of the control
  * voltage gives the operating point at each setting, and an AC analysis at 1 kHz at each point gives
- * the attenuation there.
+ * the attenuation there, and the linearity verdict at the output: the diode is most curved where it
+ * barely conducts, yet there the series resistor sets the output and its curvature hardly reaches it,
+ * so the verdict is taken at the shunt node, not at the junction (docs/linearity.md).
  *
  * Run: npx tsx examples/voltage-controlled-attenuator.ts
  */
-import { acAnalysis, Circuit, dcSweep, formatValue, GROUND, linearSweep, renderTable } from '../src/index.js';
+import {
+  acAnalysis,
+  Circuit,
+  dcSweep,
+  formatValue,
+  GROUND,
+  linearity,
+  linearSweep,
+  renderTable,
+} from '../src/index.js';
 import { isMain } from './is-main.js';
 
 /** The attenuator's parts, exported for the checks. */
@@ -45,6 +56,11 @@ export interface AttenuatorSetting {
   readonly dynamicResistance: number;
   /** Output over input at 1 kHz, in dB (negative: attenuation). */
   readonly gainDb: number;
+  /** The output's 2nd harmonic over its fundamental at 1 kHz (method of nonlinear currents). */
+  readonly secondHarmonic: number;
+  /** The output's error bound at 1 kHz, and whether it is within the default budget of 0.1. */
+  readonly errorBound: number;
+  readonly linear: boolean;
 }
 
 /** Sweep the control from 0.5 V to 10 V and take the 1 kHz gain at each setting. */
@@ -54,11 +70,15 @@ export function attenuationCurve(count = 20): AttenuatorSetting[] {
   return sweep.points.map((op, k) => {
     const diode = op.diode('Dshunt');
     const ac = acAnalysis(op, { frequencies: [1e3] });
+    const verdict = linearity(ac, { output: 'shunt' });
     return {
       control: controls[k]!,
       diodeCurrent: diode.current,
       dynamicResistance: diode.resistance,
       gainDb: ac.magnitudeDb('shunt', 'audio')[0]!,
+      secondHarmonic: verdict.output!.secondHarmonic,
+      errorBound: verdict.output!.errorBound,
+      linear: verdict.withinBudget,
     };
   });
 }
@@ -69,15 +89,21 @@ if (isMain(import.meta.url)) {
     formatValue(s.diodeCurrent, 'A', { digits: 3 }),
     formatValue(s.dynamicResistance, 'Ω', { digits: 3 }),
     `${s.gainDb.toFixed(2)} dB`,
+    `${(100 * s.secondHarmonic).toFixed(3)} %`,
+    s.errorBound.toPrecision(3),
+    s.linear ? 'linear enough' : 'not linear enough',
   ]);
   console.log(
     renderTable({
-      title: 'Bat-detector level control at 1 kHz',
+      title: 'Bat-detector level control at 1 kHz (50 mV in), verdict at the shunt node',
       columns: [
         { header: 'control', align: 'right' },
         { header: 'diode bias', align: 'right' },
         { header: 'r_d', align: 'right' },
         { header: 'gain', align: 'right' },
+        { header: '2nd harm. at output', align: 'right' },
+        { header: 'error bound', align: 'right' },
+        { header: 'verdict' },
       ],
       rows,
     }),

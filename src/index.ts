@@ -31,38 +31,100 @@ export {
   distortion,
 } from './analysis/distortion.js';
 export { linearSweep, logSweep } from './analysis/frequency-grid.js';
+export { type HeldReactive, holdReactive } from './analysis/held-reactive.js';
+export {
+  type Intermodulation,
+  type IntermodulationContribution,
+  type IntermodulationOptions,
+  type IntermodulationProduct,
+  intermodulation,
+} from './analysis/intermodulation.js';
 export {
   DEFAULT_LINEARITY_BUDGET,
+  type DistortionShare,
   type JunctionLinearity,
   type LinearityOptions,
   type LinearityReport,
   linearity,
+  type OutputLinearity,
 } from './analysis/linearity.js';
-export { OperatingPoint, operatingPoint } from './analysis/operating-point.js';
+export { LoopGain, type LoopGainJson, type LoopGainOptions, loopGain } from './analysis/loop-gain.js';
+export {
+  DENSE_LIMIT,
+  type PolesOptions,
+  poles,
+  type Root,
+  type ZerosOptions,
+  zeros,
+} from './analysis/natural-frequencies.js';
+export { Noise, type NoiseContribution, type NoiseOptions, noise } from './analysis/noise.js';
+export {
+  type NoiseContributionJson,
+  type NoiseFigureJson,
+  type NoiseInputJson,
+  type NoiseJson,
+  noiseToJson,
+} from './analysis/noise-json.js';
+export { OperatingPoint } from './analysis/operating-point.js';
 export { DEFAULT_TEMPERATURE, type OperatingPointOptions } from './analysis/options.js';
 export { type Port, portImpedance } from './analysis/port-impedance.js';
+export { operatingPoint, PreparedCircuit, prepareCircuit } from './analysis/prepared.js';
 export {
   checkDistortion,
   DEFAULT_PHASES,
   type DistortionCheck,
   type DistortionCheckOptions,
+  HARMONICS_KEPT,
   type QuasiStaticHarmonics,
   type QuasiStaticOptions,
   quasiStaticHarmonics,
+  type ReactiveTreatment,
 } from './analysis/quasi-static.js';
+export {
+  DEFAULT_TONE_PHASES,
+  type QuasiStaticIntermodulation,
+  type QuasiStaticIntermodulationOptions,
+  type QuasiStaticProduct,
+  quasiStaticIntermodulation,
+} from './analysis/quasi-static-two-tone.js';
 export type {
   BjtRegion,
   BjtReport,
   DeviceReport,
   DiodeReport,
+  InversionLevel,
   MosfetRegion,
   MosfetReport,
+  OpAmpRegion,
+  OpAmpReport,
 } from './analysis/reports.js';
+export {
+  AcSensitivity,
+  type AcSensitivityEntry,
+  type AcSensitivityOptions,
+  type DcSensitivityOptions,
+  Sensitivity,
+  type SensitivityEntry,
+  type SensitivityOutput,
+  sensitivity,
+} from './analysis/sensitivity.js';
+export {
+  isRightHalfPlane,
+  PHASE_MARGIN_TARGET,
+  type RootJson,
+  rootToJson,
+  StabilityReport,
+  type StabilityReportJson,
+  type StabilityReportOptions,
+  type StabilityVerdict,
+  stabilityReport,
+} from './analysis/stability.js';
 export {
   type BjtTerminals,
   Circuit,
   type MosfetTerminals,
   type OpAmpTerminals,
+  type ResistorOptions,
   type SourceSpec,
 } from './circuit/circuit.js';
 export {
@@ -78,6 +140,7 @@ export {
   type GivenParameters,
   GROUND,
   type InductorRecord,
+  type LoopProbeRecord,
   type MosfetRecord,
   type OpAmpRecord,
   type ResistorRecord,
@@ -87,6 +150,7 @@ export {
 } from './circuit/elements.js';
 export { type CircuitDocument, DOCUMENT_FORMAT, DOCUMENT_VERSION } from './circuit/json.js';
 export type { BjtModel } from './devices/bjt/bjt-model.js';
+export type { NoiseMechanism } from './devices/device.js';
 export type { DiodeModel } from './devices/diode/diode-model.js';
 export { BOLTZMANN, ELEMENTARY_CHARGE, thermalVoltage } from './devices/junction.js';
 export type { MosfetModel } from './devices/mosfet/mosfet-model.js';
@@ -101,6 +165,21 @@ export {
   type StrategyAttempt,
   type ValueRange,
 } from './errors/quiescent-error.js';
+export {
+  type BjtEarlyVoltageFitOptions,
+  type BjtGummelFitOptions,
+  type DiodeFitOptions,
+  type FitResidual,
+  type FitResult,
+  fitBjtEarlyVoltage,
+  fitBjtGummel,
+  fitDiode,
+  fitMosfet,
+  type MeasuredColumns,
+  type Measurements,
+  type MosfetFitOptions,
+  readMeasurements,
+} from './fitting/index.js';
 export {
   type AcAnalysisJson,
   type AcReportOptions,
@@ -122,6 +201,7 @@ export {
   type LinearityReportJson,
   linearityToJson,
   type OperatingPointJson,
+  type OutputLinearityJson,
   operatingPointTables,
   operatingPointToJson,
   type PhasorsJson,
@@ -142,6 +222,10 @@ export {
   linearityTables,
   linearityVerdict,
 } from './report/linearity-table.js';
+export { loopGainPlotSvg } from './report/loop-gain-plot.js';
+export { type NoisePlotOptions, noisePlotSvg } from './report/noise-plot.js';
+export { formatNoise, type NoiseReportOptions, noiseTables } from './report/noise-table.js';
+export { formatStabilityReport, rootsTable, stabilityTables } from './report/stability-table.js';
 export {
   type FormatOptions,
   formatValue,

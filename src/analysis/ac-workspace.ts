@@ -11,7 +11,7 @@
 
 import type { AcLoadContext, Device } from '../devices/device.js';
 import { KINDS } from '../devices/registry.js';
-import { type ComplexLinearSolver, createComplexSolver } from '../linalg/index.js';
+import { createComplexSolver, type SparseComplexSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import { singularAt } from './newton.js';
 import type { OperatingPoint } from './operating-point.js';
@@ -31,7 +31,7 @@ export class AcWorkspace {
   /** The excitation the sources wrote at the last assembly, length n+1. */
   readonly sourceRe: Float64Array;
   readonly sourceIm: Float64Array;
-  readonly #solver: ComplexLinearSolver;
+  readonly #solver: SparseComplexSolver;
   readonly #context: AcLoadContext & { omega: number };
   /** G and C of the frequency-affine devices (real and imaginary parts of each), and their excitation. */
   readonly #conductanceRe: Float64Array;
@@ -45,6 +45,9 @@ export class AcWorkspace {
   readonly #residualRe: Float64Array;
   readonly #residualIm: Float64Array;
   #frequency = Number.NaN;
+  /** Largest |Re| + |Im| of each row, and of the whole matrix, at the last assembly. */
+  readonly #rowMax: Float64Array;
+  #aNorm = 0;
 
   /** Evaluate every frequency-affine device once at `op` (G and C); nothing is factored yet. */
   constructor(op: OperatingPoint) {
@@ -57,7 +60,10 @@ export class AcWorkspace {
     this.sourceIm = new Float64Array(n + 1);
     this.#residualRe = new Float64Array(n + 1);
     this.#residualIm = new Float64Array(n + 1);
-    this.#solver = createComplexSolver(this.system.pattern);
+    this.#rowMax = new Float64Array(n);
+    // The DC ordering serves the AC matrix: jωC entries sit on the same pattern.
+    const symbolic = this.system.ordering.symbolic;
+    this.#solver = createComplexSolver(this.system.pattern, symbolic === null ? {} : { symbolic });
     this.#context = { x: op.x, omega: 0, Ar: this.Ar, Ai: this.Ai, br: this.sourceRe, bi: this.sourceIm };
 
     const affine = devices.filter((d) => KINDS[d.record.kind].frequencyAffine);
@@ -91,18 +97,69 @@ export class AcWorkspace {
     const gi = this.#conductanceIm;
     const cr = this.#capacitanceRe;
     const ci = this.#capacitanceIm;
-    for (let p = 0; p < Ar.length; p++) {
-      Ar[p] = gr[p]! + omega * cr[p]!;
-      Ai[p] = gi[p]! + omega * ci[p]!;
+    const perFrequency = this.#perFrequency;
+    if (perFrequency.length === 0) {
+      // One pass forms the values and the norms the factorization and the residual check need.
+      this.#formWithNorms(omega);
+    } else {
+      for (let p = 0; p < Ar.length; p++) {
+        Ar[p] = gr[p]! + omega * cr[p]!;
+        Ai[p] = gi[p]! + omega * ci[p]!;
+      }
     }
     this.sourceRe.set(this.#baseSourceRe);
     this.sourceIm.set(this.#baseSourceIm);
+    if (perFrequency.length === 0) return;
     const ctx = this.#context;
     ctx.omega = omega;
-    for (const d of this.#perFrequency) {
+    for (const d of perFrequency) {
       d.prepare?.(this.op.conditions);
       d.loadAc(ctx);
     }
+    this.#measureNorms();
+  }
+
+  /** Ar + j·Ai = G + jωC, with every row's largest |Re| + |Im| and the largest of all. */
+  #formWithNorms(omega: number): void {
+    const { Ar, Ai } = this;
+    const gr = this.#conductanceRe;
+    const gi = this.#conductanceIm;
+    const cr = this.#capacitanceRe;
+    const ci = this.#capacitanceIm;
+    const rows = this.system.pattern.Ai;
+    const rowMax = this.#rowMax;
+    rowMax.fill(0);
+    let aNorm = 0;
+    const nnz = rows.length;
+    for (let p = 0; p < nnz; p++) {
+      const re = gr[p]! + omega * cr[p]!;
+      const im = gi[p]! + omega * ci[p]!;
+      Ar[p] = re;
+      Ai[p] = im;
+      const a = Math.abs(re) + Math.abs(im);
+      const i = rows[p]!;
+      if (a > rowMax[i]!) rowMax[i] = a;
+      if (a > aNorm) aNorm = a;
+    }
+    Ar[nnz] = gr[nnz]! + omega * cr[nnz]!;
+    Ai[nnz] = gi[nnz]! + omega * ci[nnz]!;
+    this.#aNorm = aNorm;
+  }
+
+  /** The norms of {@link AcWorkspace.#formWithNorms} for values already in Ar, Ai. */
+  #measureNorms(): void {
+    const { Ar, Ai } = this;
+    const rows = this.system.pattern.Ai;
+    const rowMax = this.#rowMax;
+    rowMax.fill(0);
+    let aNorm = 0;
+    for (let p = 0; p < rows.length; p++) {
+      const a = Math.abs(Ar[p]!) + Math.abs(Ai[p]!);
+      const i = rows[p]!;
+      if (a > rowMax[i]!) rowMax[i] = a;
+      if (a > aNorm) aNorm = a;
+    }
+    this.#aNorm = aNorm;
   }
 
   /**
@@ -110,7 +167,7 @@ export class AcWorkspace {
    */
   factorAt(frequency: number): void {
     this.assembleAt(frequency);
-    const status = this.#solver.factor(this.Ar, this.Ai);
+    const status = this.#solver.factor(this.Ar, this.Ai, this.#rowMax);
     if (status !== 0) {
       this.#frequency = Number.NaN;
       throw singularAt(this.system, status - 1, `in the small-signal circuit at ${frequency} Hz`);
@@ -133,44 +190,89 @@ export class AcWorkspace {
    * check its residual. re[n] and im[n] are set to 0 (ground).
    */
   solve(re: Float64Array, im: Float64Array): void {
-    const n = this.system.n;
-    const rr = this.#residualRe;
-    const ri = this.#residualIm;
-    rr.set(re);
-    ri.set(im);
+    this.#keepRightHandSide(re, im);
     this.#solver.solve(re, im);
-    re[n] = 0;
-    im[n] = 0;
-    this.#checkResidual(re, im, rr, ri);
+    re[this.system.n] = 0;
+    im[this.system.n] = 0;
+    this.#checkResidual(re, im, this.#residualRe, this.#residualIm);
+  }
+
+  /** Keep b = (re, im) in the residual arrays before a solve overwrites it. */
+  #keepRightHandSide(re: Float64Array, im: Float64Array): void {
+    this.#residualRe.set(re);
+    this.#residualIm.set(im);
   }
 
   /**
-   * r = b − A·x on the pattern, against ‖b‖ + ‖A‖·‖x‖ (max norms); refuse a solve that misses. Each
+   * Overwrite (re, im), a right-hand side of length n+1, with the solution of the transposed system
+   * Aᵀ·z = b (plain transpose, no conjugation) of the last factored system, and check its residual.
+   * Its solution z gives the output response y = cᵀ·x to every excitation b at once, as y = zᵀ·b,
+   * when (re, im) held the output's coefficients c (the adjoint method). re[n] and im[n] are set to 0.
+   */
+  solveTranspose(re: Float64Array, im: Float64Array): void {
+    this.#keepRightHandSide(re, im);
+    this.#solver.solveTranspose(re, im);
+    re[this.system.n] = 0;
+    im[this.system.n] = 0;
+    this.#checkResidual(re, im, this.#residualRe, this.#residualIm, true);
+  }
+
+  /**
+   * r = b − A·x (or b − Aᵀ·x) on the pattern, against ‖b‖ + ‖A‖·‖x‖ (max norms); refuse a solve that misses. Each
    * complex modulus is bounded by |re| + |im| (within √2 of it), which is ample against the limit and
    * far cheaper than Math.hypot on every nonzero.
    */
-  #checkResidual(xr: Float64Array, xi: Float64Array, rr: Float64Array, ri: Float64Array): void {
+  #checkResidual(
+    xr: Float64Array,
+    xi: Float64Array,
+    rr: Float64Array,
+    ri: Float64Array,
+    transposed = false,
+  ): void {
     const { n, pattern } = this.system;
     const { Ap, Ai: rows } = pattern;
     const Ar = this.Ar;
     const Az = this.Ai;
     let bNorm = 0;
-    let aNorm = 0;
     let xNorm = 0;
     for (let i = 0; i < n; i++) bNorm = Math.max(bNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
-    for (let j = 0; j < n; j++) {
+    if (transposed) {
+      // (Aᵀx)_j = Σ over column j of A(i, j)·x_i.
+      for (let j = 0; j < n; j++) {
+        xNorm = Math.max(xNorm, Math.abs(xr[j]!) + Math.abs(xi[j]!));
+        let sr = 0;
+        let si = 0;
+        for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+          const i = rows[p]!;
+          const ar = Ar[p]!;
+          const ai = Az[p]!;
+          sr += ar * xr[i]! - ai * xi[i]!;
+          si += ar * xi[i]! + ai * xr[i]!;
+        }
+        rr[j]! -= sr;
+        ri[j]! -= si;
+      }
+    }
+    let begin = Ap[0]!;
+    for (let j = 0; j < n && !transposed; j++) {
       const vr = xr[j]!;
       const vi = xi[j]!;
       xNorm = Math.max(xNorm, Math.abs(vr) + Math.abs(vi));
-      for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+      const end = Ap[j + 1]!;
+      if (vr === 0 && vi === 0) {
+        begin = end;
+        continue;
+      }
+      for (let p = begin; p < end; p++) {
         const i = rows[p]!;
         const ar = Ar[p]!;
         const ai = Az[p]!;
-        aNorm = Math.max(aNorm, Math.abs(ar) + Math.abs(ai));
         rr[i]! -= ar * vr - ai * vi;
         ri[i]! -= ar * vi + ai * vr;
       }
+      begin = end;
     }
+    const aNorm = this.#aNorm;
     let rNorm = 0;
     for (let i = 0; i < n; i++) rNorm = Math.max(rNorm, Math.abs(rr[i]!) + Math.abs(ri[i]!));
     const scale = bNorm + aNorm * xNorm;

@@ -7,23 +7,19 @@
  * element (a resistance, a gain, a model parameter), and the temperature.
  */
 import type { Circuit } from '../circuit/circuit.js';
-import { type ElementRecord, GROUND } from '../circuit/elements.js';
-import { BJT_PARAMETERS } from '../devices/bjt/bjt-model.js';
-import { DIODE_PARAMETERS } from '../devices/diode/diode-model.js';
-import { MOSFET_PARAMETERS } from '../devices/mosfet/mosfet-model.js';
-import { OP_AMP_PARAMETERS } from '../devices/op-amp/op-amp-model.js';
-import { type ParameterTable, parseParameters } from '../devices/parameters.js';
+import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
+import { parameterVariant } from './element-parameters.js';
 import {
   conditionsAt,
   type OperatingPoint,
   type Solver,
   solveFromCurrent,
-  solverFor,
   startFromGuess,
 } from './operating-point.js';
-import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
+import { type OperatingPointOptions, resolveOptions } from './options.js';
+import { type PreparedCircuit, preparedFor } from './prepared.js';
 import type { DeviceReport } from './reports.js';
 import { type DcSweepJson, dcSweepToJson } from './result-json.js';
 
@@ -247,7 +243,7 @@ function sourceSweep(circuit: Circuit, options: SourceSweepOptions): DcSweep {
     );
   }
   const values = checkedValues(options.values, 'values');
-  const solver = prepare(circuit.elements, resolveOptions(pointOptions(options)));
+  const solver = startedSolver(preparedFor(circuit), options);
   const base = conditionsAt(solver.options.temperature, solver.options);
   const unit = record.kind === 'voltage-source' ? 'V' : 'A';
   const points = continuation(
@@ -262,7 +258,7 @@ function temperatureSweep(circuit: Circuit, options: TemperatureSweepOptions): D
   const values = checkedValues(options.temperature, 'temperature', (v, k) => {
     if (v <= 0) throw invalidValue(['options', 'temperature', k], v, 'a temperature above 0 K');
   });
-  const solver = prepare(circuit.elements, resolveOptions(pointOptions(options)));
+  const solver = startedSolver(preparedFor(circuit), options);
   const points = continuation(
     values,
     (t) => `T = ${t} K`,
@@ -282,117 +278,32 @@ function parameterSweep(circuit: Circuit, options: ParameterSweepOptions): DcSwe
   }
   const variant = parameterVariant(record, parameter);
   const values = checkedValues(options.values, 'values');
-  // Each value gives its own record, checked as the builder would check it, before anything is solved.
-  const records = Array.from(values, (v) => variant(v));
+  // Every value is checked as the builder would check it before anything is solved.
+  for (const v of values) variant(v);
   const resolved = resolveOptions(pointOptions(options));
-  const elements = circuit.elements;
-  const at = elements.indexOf(record);
   const conditions = conditionsAt(resolved.temperature, resolved);
-  let previous: Solver | undefined;
+  // A copy of the circuit's prepared system: its values change, the circuit's stay.
+  const prepared = preparedFor(circuit).fork();
+  let compilations = -1;
   const points = continuation(
     values,
     (v) => `${element}.${parameter} = ${v}`,
-    (_v, k) => {
-      const variantElements = elements.slice();
-      variantElements[at] = records[k]!;
-      const solver = solverFor(variantElements, resolved);
-      startFromGuess(solver);
-      // Continue from the last solution when the unknowns are the same (a parameter can add an
-      // internal node, a diode's series resistance stepping away from 0, say).
-      if (previous !== undefined && sameUnknowns(previous, solver))
-        solver.workspace.x.set(previous.workspace.x);
-      previous = solver;
+    (v) => {
+      prepared.setValue(element, parameter, v);
+      const solver = prepared.solver(resolved);
+      // Each point starts from the one before, unless the value changed the unknowns (a diode's
+      // series resistance stepping away from 0 adds an internal node, say).
+      if (prepared.compilations !== compilations) startFromGuess(solver);
+      compilations = prepared.compilations;
       return solveFromCurrent(solver, conditions);
     },
   );
   return new DcSweep({ kind: 'parameter', element, parameter }, values, points);
 }
 
-function prepare(elements: readonly ElementRecord[], options: ResolvedOptions): Solver {
-  const solver = solverFor(elements, options);
+/** The prepared circuit's solver with the sweep's point options, at the initial guess. */
+function startedSolver(prepared: PreparedCircuit, options: object): Solver {
+  const solver = prepared.solver(resolveOptions(pointOptions(options)));
   startFromGuess(solver);
   return solver;
-}
-
-function sameUnknowns(a: Solver, b: Solver): boolean {
-  const la = a.system.labels;
-  const lb = b.system.labels;
-  if (la.length !== lb.length) return false;
-  for (let k = 0; k < la.length; k++) {
-    if (la[k]!.kind !== lb[k]!.kind || la[k]!.name !== lb[k]!.name) return false;
-  }
-  return true;
-}
-
-/** The element's scalar parameters (outside a model), with the range the builder enforces. */
-const SCALAR_PARAMETERS: Readonly<
-  Record<string, Readonly<Record<string, 'positive' | 'non-negative' | 'any'>>>
-> = {
-  resistor: { resistance: 'positive' },
-  capacitor: { capacitance: 'non-negative' },
-  inductor: { inductance: 'non-negative' },
-  vcvs: { gain: 'any' },
-  vccs: { transconductance: 'any' },
-  ccvs: { transresistance: 'any' },
-  cccs: { gain: 'any' },
-};
-
-const RANGE_WORDS = {
-  positive: 'a finite number greater than 0',
-  'non-negative': 'a finite number of 0 or more',
-  any: 'a finite number',
-} as const;
-
-/**
- * A function from a parameter value to the element's record with that value, checking the value as
- * the builder does. Throws `invalid-value` naming the element when it has no such parameter.
- */
-function parameterVariant(record: ElementRecord, parameter: string): (value: number) => ElementRecord {
-  const scalars = SCALAR_PARAMETERS[record.kind];
-  const path = [record.name, parameter];
-  if (scalars !== undefined) {
-    const range = scalars[parameter];
-    if (range === undefined) throw noSuchParameter(record, parameter, Object.keys(scalars));
-    return (value) => {
-      const ok = range === 'positive' ? value > 0 : range === 'non-negative' ? value >= 0 : true;
-      if (!ok) throw invalidValue(path, value, RANGE_WORDS[range]);
-      return { ...record, [parameter]: value } as ElementRecord;
-    };
-  }
-  const modelOf = (table: ParameterTable<string>, kindName: string, given: object | undefined) => {
-    if (!Object.hasOwn(table, parameter)) throw noSuchParameter(record, parameter, Object.keys(table));
-    return (value: number) => {
-      const parsed = parseParameters(table, { [parameter]: value }, [record.name, 'model'], kindName);
-      return { ...given, ...parsed };
-    };
-  };
-  switch (record.kind) {
-    case 'diode': {
-      const model = modelOf(DIODE_PARAMETERS, 'diode', record.model);
-      return (value) => ({ ...record, model: model(value) });
-    }
-    case 'bjt': {
-      const model = modelOf(BJT_PARAMETERS, 'bipolar transistor', record.model);
-      return (value) => ({ ...record, model: model(value) });
-    }
-    case 'mosfet': {
-      const model = modelOf(MOSFET_PARAMETERS, 'MOSFET', record.model);
-      return (value) => ({ ...record, model: model(value) });
-    }
-    case 'op-amp': {
-      const model = modelOf(OP_AMP_PARAMETERS, 'op-amp', record.options);
-      return (value) => ({ ...record, options: model(value) });
-    }
-    default:
-      // Sources: only `dc`, handled as a source sweep before this point.
-      throw noSuchParameter(record, parameter, ['dc']);
-  }
-}
-
-function noSuchParameter(record: ElementRecord, parameter: string, known: readonly string[]): QuiescentError {
-  return invalidValue(
-    ['options', 'parameter'],
-    parameter,
-    `a parameter of ${record.kind} '${record.name}' (${known.join(', ')})`,
-  );
 }

@@ -23,9 +23,21 @@
  *   I⁽³⁾ = (1/24) Σ_abc f_abc·V_a·V_b·V_c + ½ Σ_ab f_ab·V_a·W_b
  * (one control, f''' = 6·g₃: g₃·V³/4 + 2·g₂·V·W/2). The DC part of v⁽²⁾ does not reach 3f.
  *
- * Each junction's currents are injected alone, so its share of each harmonic is its own solve; the
- * shares add up to the total (superposition on the linear circuit). The 3rd-order share of a junction
- * includes its interaction term with the whole second-order response W.
+ * Third order at the fundamental (compression or expansion). The same current has a component at f:
+ * three first-order factors give (1/4)(V_a V_b V̄_c + V_a V̄_b V_c + V̄_a V_b V_c) per term, and
+ * Re(V e^{jωt})·Re(W e^{2jωt}) and Re(V e^{jωt})·M give ½·V̄·W and V·M, so
+ *   I_C = (1/8) Σ_abc f_abc·V_a·V_b·V̄_c + Σ_ab f_ab·(½·V̄_a·W_b + V_a·M_b)
+ * with M the DC part of the second-order response. Solved at f it gives C1, the third-order part of
+ * the output at the fundamental: Re(C1/H1) < 0 means the gain falls with the drive. For one control
+ * (f'' = 2g₂, f''' = 6g₃, and W = M = 0 at a junction driven by an ideal source), I_C = ¾·g₃·|V|²·V.
+ *
+ * Each device's (or junction's) currents are injected alone, so its share of each harmonic is its own
+ * solve; the shares add up to the total (superposition on the linear circuit). The 3rd-order share
+ * includes the interaction term with the whole second-order response W.
+ *
+ * Factorizations. The mean shift is solved on one factorization at 0 Hz kept for the whole estimate;
+ * each frequency then factors at 2f, 3f and f, and a factorization is reused whenever the next solve
+ * is at the frequency already factored (f = 0, where all four coincide).
  *
  * Assumptions: a single sinusoidal drive (every AC source at the same frequency with its own phase),
  * weak nonlinearity (each harmonic much smaller than the one below it; the estimate is the leading
@@ -34,13 +46,27 @@
  */
 import Complex from 'complex.js';
 import type { ElementKind } from '../circuit/elements.js';
-import type { JunctionProbe, NonlinearCurrent } from '../devices/device.js';
-import { addCurrent } from '../devices/stamp.js';
+import type { JunctionProbe } from '../devices/device.js';
 import { invalidValue } from '../errors/messages.js';
 import type { AcAnalysis, Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { describeProbe, type ProbeReader, probeReader } from './distortion-probe.js';
-import { prepareDevices } from './newton.js';
+import {
+  ControlPhasors,
+  cubic,
+  gatherNonlinearCurrents,
+  injectCurrents,
+  type NonlinearCurrents,
+  quadratic,
+} from './nonlinear-currents.js';
+import type { OperatingPoint } from './operating-point.js';
+import { OutputAdjoint } from './output-adjoint.js';
+
+/**
+ * Above this many devices the shares come from one transposed solve (output-adjoint.ts) rather than
+ * one forward solve per device: the same numbers, at a cost that no longer grows with the count.
+ */
+export const SHARES_BY_ADJOINT = 8;
 
 /** Options of {@link distortion}. */
 export interface DistortionOptions {
@@ -80,7 +106,11 @@ export interface DistortionPoint {
   readonly second: Complex;
   /** The output's 3rd-harmonic phasor at 3f, to leading (third) order. */
   readonly third: Complex;
-  /** The shift of the output's mean value (rectification), to second order. */
+  /** C1: the third-order part of the output at f itself (V or A, peak). */
+  readonly compressionPhasor: Complex;
+  /** Re(C1/H1): the relative change of the fundamental, negative where the gain falls (0 without signal). */
+  readonly compression: number;
+  /** The shift of the output's mean value (rectification), to second order, signed (V or A). */
   readonly meanShift: number;
   /** |second| / |fundamental| (0 when both vanish, Infinity when only the fundamental does). */
   readonly secondRatio: number;
@@ -104,28 +134,302 @@ export interface DistortionEstimate {
   readonly points: readonly DistortionPoint[];
 }
 
-/** A device's nonlinear current, tagged with its junction group. */
-interface Injection {
-  readonly current: NonlinearCurrent;
-  readonly group: number;
-}
+/**
+ * The output's harmonics by the method of nonlinear currents, one drive frequency at a time, on
+ * workspaces built once: the engine of {@link distortion} and of the linearity report's output
+ * figures. The figures of the last {@link HarmonicEstimator.evaluate} are left in its public arrays.
+ */
+export class HarmonicEstimator {
+  /** The nonlinear currents, grouped as asked. */
+  readonly set: NonlinearCurrents;
+  /** Output phasors of the last evaluation, unscaled, as [re, im]: the fundamental H1 … */
+  readonly fundamental = new Float64Array(2);
+  /** … the 2nd harmonic H2 at 2f … */
+  readonly second = new Float64Array(2);
+  /** … the 3rd harmonic H3 at 3f … */
+  readonly third = new Float64Array(2);
+  /** … and C1, the third-order part at f. */
+  readonly compression = new Float64Array(2);
+  /** The signed second-order shift of the output's mean, unscaled. */
+  mean = 0;
+  /** Each group's share of H2 and of H3, [re, im] interleaved, when asked for. */
+  readonly secondShares: Float64Array;
+  readonly thirdShares: Float64Array;
 
-/** A junction: the group of injections whose share is reported together. */
-interface Group {
-  readonly device: string;
-  readonly kind: ElementKind;
-  readonly junction: JunctionProbe['junction'];
+  readonly #op: OperatingPoint;
+  readonly #ac: AcWorkspace;
+  readonly #dc: AcWorkspace;
+  readonly #read: ProbeReader;
+  readonly #readHarmonic: ProbeReader;
+  readonly #currentRe: Float64Array;
+  readonly #currentIm: Float64Array;
+  readonly #meanCurrent: Float64Array;
+  readonly #noCurrent: Float64Array;
+  #meanTransfer: Float64Array | null = null;
+  #adjoint: OutputAdjoint | undefined;
+  readonly #v: ControlPhasors;
+  readonly #vBar: ControlPhasors;
+  readonly #w: ControlPhasors;
+  readonly #m: ControlPhasors;
+  readonly #wRe: Float64Array;
+  readonly #wIm: Float64Array;
+  readonly #mRe: Float64Array;
+  readonly #mIm: Float64Array;
+  readonly #re: Float64Array;
+  readonly #im: Float64Array;
+  readonly #value = new Float64Array(2);
+  readonly #form = new Float64Array(2);
+
+  /**
+   * @param op - the operating point the circuit is linearized at
+   * @param output - the probe read
+   * @param byJunction - share by junction (the distortion estimate) rather than by device
+   * @throws QuiescentError `unknown-node`, `unknown-element`, `invalid-value` for the probe
+   */
+  constructor(op: OperatingPoint, output: Probe, byJunction: boolean) {
+    this.#op = op;
+    const n = op.system.n;
+    this.#read = probeReader(op.system, op.x, output, false);
+    this.#readHarmonic = probeReader(op.system, op.x, output, true);
+    this.set = gatherNonlinearCurrents(op, byJunction);
+    const count = this.set.currents.length;
+    const m = this.set.maxControls;
+    this.#ac = new AcWorkspace(op);
+    this.#dc = new AcWorkspace(op);
+    this.#currentRe = new Float64Array(count);
+    this.#currentIm = new Float64Array(count);
+    this.#meanCurrent = new Float64Array(count);
+    this.#noCurrent = new Float64Array(count);
+    this.#v = new ControlPhasors(m);
+    this.#vBar = new ControlPhasors(m);
+    this.#w = new ControlPhasors(m);
+    this.#m = new ControlPhasors(m);
+    this.#wRe = new Float64Array(n + 1);
+    this.#wIm = new Float64Array(n + 1);
+    this.#mRe = new Float64Array(n + 1);
+    this.#mIm = new Float64Array(n + 1);
+    this.#re = new Float64Array(n + 1);
+    this.#im = new Float64Array(n + 1);
+    this.secondShares = new Float64Array(2 * this.set.devices.length);
+    this.thirdShares = new Float64Array(2 * this.set.devices.length);
+  }
+
+  /** The workspace factored at `frequency`, refactoring only when it is not already. */
+  #factoredAt(frequency: number): AcWorkspace {
+    const ws = frequency === 0 ? this.#dc : this.#ac;
+    if (ws.frequency !== frequency) ws.factorAt(frequency);
+    return ws;
+  }
+
+  /** Read the output's first-order phasor from (x1r, x1i) at `frequency` into {@link HarmonicEstimator.fundamental}. */
+  readFundamental(frequency: number, x1r: Float64Array, x1i: Float64Array): void {
+    this.#read(x1r, x1i, 2 * Math.PI * frequency, this.fundamental);
+  }
+
+  /** Solve the excitation in #re, #im at `frequency` and read the output into `out` at [offset, offset+1]. */
+  #solveAndRead(frequency: number, out: Float64Array, offset: number): void {
+    this.#factoredAt(frequency).solve(this.#re, this.#im);
+    this.#readHarmonic(this.#re, this.#im, 2 * Math.PI * frequency, this.#value);
+    out[offset] = this.#value[0]!;
+    out[offset + 1] = this.#value[1]!;
+  }
+
+  /**
+   * Estimate at drive frequency `frequency` from the first-order solution (x1r, x1i) there: H1, H2,
+   * H3, C1 and the mean shift, and with `shares` each group's part of H2 and H3.
+   */
+  evaluate(frequency: number, x1r: Float64Array, x1i: Float64Array, shares: boolean): void {
+    this.evaluateSecondOrder(frequency, x1r, x1i, shares);
+    this.evaluateThirdOrder(frequency, x1r, x1i, shares);
+  }
+
+  /**
+   * Solve, once, the output's DC response to a unit of each nonlinear current, so that
+   * {@link HarmonicEstimator.evaluateSecondOrder} can form the output's mean shift without a solve
+   * (worth it when there are more frequencies than currents).
+   */
+  prepareMeanTransfer(): void {
+    const { currents } = this.set;
+    const transfer = new Float64Array(currents.length);
+    const unit = new Float64Array(currents.length);
+    for (let i = 0; i < currents.length; i++) {
+      unit.fill(0);
+      unit[i] = 1;
+      injectCurrents(this.set, unit, this.#noCurrent, -1, this.#re, this.#im);
+      this.#factoredAt(0).solve(this.#re, this.#im);
+      this.#readHarmonic(this.#re, this.#im, 0, this.#value);
+      transfer[i] = this.#value[0]!;
+    }
+    this.#meanTransfer = transfer;
+  }
+
+  /**
+   * The first half of {@link HarmonicEstimator.evaluate}: H1, the mean shift and H2 (one factorization,
+   * at 2f). `meanResponse` keeps the whole DC response, which the third order needs.
+   */
+  evaluateSecondOrder(
+    frequency: number,
+    x1r: Float64Array,
+    x1i: Float64Array,
+    shares: boolean,
+    meanResponse = true,
+  ): void {
+    const { currents } = this.set;
+    const v = this.#v;
+    const form = this.#form;
+    this.#read(x1r, x1i, 2 * Math.PI * frequency, this.fundamental);
+
+    // Second order: I⁽²⁾ = ¼·Q(V, V) at 2f, and ¼·Re Q(V, V̄) at DC.
+    for (let i = 0; i < currents.length; i++) {
+      const current = currents[i]!;
+      v.read(current, x1r, x1i);
+      this.#vBar.read(current, x1r, x1i, true);
+      quadratic(current, v, v, form);
+      this.#currentRe[i] = 0.25 * form[0]!;
+      this.#currentIm[i] = 0.25 * form[1]!;
+      quadratic(current, v, this.#vBar, form);
+      this.#meanCurrent[i] = 0.25 * form[0]!;
+    }
+    const transfer = this.#meanTransfer;
+    if (transfer !== null && !meanResponse) {
+      // Only the output's mean is needed: the precomputed DC transfer of every current gives it.
+      let mean = 0;
+      for (let i = 0; i < currents.length; i++) mean += transfer[i]! * this.#meanCurrent[i]!;
+      this.mean = mean;
+    } else {
+      injectCurrents(this.set, this.#meanCurrent, this.#noCurrent, -1, this.#mRe, this.#mIm);
+      this.#factoredAt(0).solve(this.#mRe, this.#mIm);
+      this.#readHarmonic(this.#mRe, this.#mIm, 0, this.#value);
+      this.mean = this.#value[0]!;
+    }
+    this.#solveOrder(2 * frequency, shares, this.secondShares, this.second, this.#wRe, this.#wIm);
+  }
+
+  /**
+   * The second half of {@link HarmonicEstimator.evaluate}: H3 and C1 (factorizations at 3f and f). It
+   * reads the second-order responses left by {@link HarmonicEstimator.evaluateSecondOrder}, which must
+   * have run last, at the same frequency.
+   */
+  evaluateThirdOrder(frequency: number, x1r: Float64Array, x1i: Float64Array, shares: boolean): void {
+    const { currents } = this.set;
+    const v = this.#v;
+    const form = this.#form;
+    // Third order at 3f: I⁽³⁾ = (1/24)·K(V, V, V) + ½·Q(V, W).
+    for (let i = 0; i < currents.length; i++) {
+      const current = currents[i]!;
+      v.read(current, x1r, x1i);
+      this.#w.read(current, this.#wRe, this.#wIm);
+      cubic(current, v, v, v, form);
+      let re = form[0]! / 24;
+      let im = form[1]! / 24;
+      quadratic(current, v, this.#w, form);
+      re += 0.5 * form[0]!;
+      im += 0.5 * form[1]!;
+      this.#currentRe[i] = re;
+      this.#currentIm[i] = im;
+    }
+    this.#solveOrder(3 * frequency, shares, this.thirdShares, this.third, null, null);
+
+    // Third order at f: I_C = (1/8)·K(V, V, V̄) + ½·Q(V̄, W) + Q(V, M).
+    for (let i = 0; i < currents.length; i++) {
+      const current = currents[i]!;
+      v.read(current, x1r, x1i);
+      this.#vBar.read(current, x1r, x1i, true);
+      this.#w.read(current, this.#wRe, this.#wIm);
+      this.#m.read(current, this.#mRe, this.#mIm);
+      cubic(current, v, v, this.#vBar, form);
+      let re = form[0]! / 8;
+      let im = form[1]! / 8;
+      quadratic(current, this.#vBar, this.#w, form);
+      re += 0.5 * form[0]!;
+      im += 0.5 * form[1]!;
+      quadratic(current, v, this.#m, form);
+      re += form[0]!;
+      im += form[1]!;
+      this.#currentRe[i] = re;
+      this.#currentIm[i] = im;
+    }
+    injectCurrents(this.set, this.#currentRe, this.#currentIm, -1, this.#re, this.#im);
+    this.#solveAndRead(frequency, this.compression, 0);
+  }
+
+  /**
+   * Solve the injected currents of one order at `frequency`: once for all of them, or (with `shares`)
+   * once per group, summing. The total output phasor goes to `total`; the summed solution, when asked
+   * for, to (solutionRe, solutionIm).
+   */
+  #solveOrder(
+    frequency: number,
+    shares: boolean,
+    shareOut: Float64Array,
+    total: Float64Array,
+    solutionRe: Float64Array | null,
+    solutionIm: Float64Array | null,
+  ): void {
+    const groups = shares ? this.set.devices.length : 0;
+    if (shares && groups > SHARES_BY_ADJOINT) {
+      // One forward solve for the total, one transposed solve for every share.
+      injectCurrents(this.set, this.#currentRe, this.#currentIm, -1, this.#re, this.#im);
+      this.#solveAndRead(frequency, total, 0);
+      solutionRe?.set(this.#re);
+      solutionIm?.set(this.#im);
+      this.#adjoint ??= new OutputAdjoint(this.#ac, this.#readHarmonic);
+      this.#adjoint.solveAt(frequency);
+      shareOut.fill(0);
+      const { currents, owner } = this.set;
+      for (let i = 0; i < currents.length; i++) {
+        const { from, to } = currents[i]!;
+        this.#adjoint.addResponse(
+          from,
+          to,
+          this.#currentRe[i]!,
+          this.#currentIm[i]!,
+          shareOut,
+          2 * owner[i]!,
+        );
+      }
+      return;
+    }
+    if (!shares) {
+      injectCurrents(this.set, this.#currentRe, this.#currentIm, -1, this.#re, this.#im);
+      this.#solveAndRead(frequency, total, 0);
+      solutionRe?.set(this.#re);
+      solutionIm?.set(this.#im);
+      return;
+    }
+    total.fill(0);
+    solutionRe?.fill(0);
+    solutionIm?.fill(0);
+    for (let g = 0; g < groups; g++) {
+      injectCurrents(this.set, this.#currentRe, this.#currentIm, g, this.#re, this.#im);
+      this.#solveAndRead(frequency, shareOut, 2 * g);
+      total[0]! += shareOut[2 * g]!;
+      total[1]! += shareOut[2 * g + 1]!;
+      if (solutionRe !== null && solutionIm !== null) {
+        for (let i = 0; i < solutionRe.length; i++) {
+          solutionRe[i]! += this.#re[i]!;
+          solutionIm[i]! += this.#im[i]!;
+        }
+      }
+    }
+  }
+
+  /** The operating point estimated at. */
+  get operatingPoint(): OperatingPoint {
+    return this.#op;
+  }
 }
 
 /**
- * Estimate the 2nd and 3rd harmonics of an output, and each junction's share, by the method of
- * nonlinear currents on the circuit linearized at the AC analysis's operating point. Costs, per
- * frequency, three factorizations (at 2f, 3f and 0) and two solves per junction.
+ * Estimate the 2nd and 3rd harmonics of an output, the third-order change of its fundamental, and each
+ * junction's share, by the method of nonlinear currents on the circuit linearized at the AC analysis's
+ * operating point. Costs one factorization at 0 Hz, then per frequency three (at 2f, 3f and f) and two
+ * solves per junction.
  *
- * @param ac - the small-signal analysis, whose solution is the first-order response
- * @param options - `output` probe; optional `frequency` (one of the analysed ones) and `scale`
- * @returns the estimate at each frequency
- * @throws QuiescentError `invalid-value` for a bad probe, scale or a frequency that was not analysed;
+ * @param ac - the small-signal analysis (the first-order response)
+ * @param options - `output` probe, optional `frequency` (one of the analysed ones) and drive `scale`
+ * @returns one {@link DistortionPoint} per frequency
+ * @throws QuiescentError `invalid-value` for a bad scale or a frequency that was not analysed;
  *   `unknown-node`, `unknown-element` for a probe the circuit lacks; `singular` at 2f, 3f or 0 Hz
  *
  * @example
@@ -142,69 +446,18 @@ export function distortion(ac: AcAnalysis, options: DistortionOptions): Distorti
   const scale = checkDriveScale(options.scale ?? 1);
   const indices = frequencyIndices(ac, options.frequency);
   const op = ac.operatingPoint;
-  const system = op.system;
-  const n = system.n;
-  const stride = n + 1;
-  const read = probeReader(system, op.x, options.output, false);
-  const readHarmonic = probeReader(system, op.x, options.output, true);
-
-  prepareDevices(system, op.conditions);
-  const groups: Group[] = [];
-  const injections: Injection[] = [];
-  for (const device of system.devices) {
-    for (const current of device.nonlinearCurrents?.(op.x) ?? []) {
-      let group = groups.findIndex((g) => g.device === device.name && g.junction === current.junction);
-      if (group < 0) {
-        group = groups.length;
-        groups.push({ device: device.name, kind: device.record.kind, junction: current.junction });
-      }
-      injections.push({ current, group });
-    }
-  }
-
-  const workspace = new AcWorkspace(op);
-  const work = new Workspace(n, groups.length, injections);
-  const points: DistortionPoint[] = [];
-  for (const k of indices) {
+  const stride = op.system.n + 1;
+  const estimator = new HarmonicEstimator(op, options.output, true);
+  const points = indices.map((k) => {
     const f = ac.frequencies[k]!;
-    const x1r = ac.re.subarray(k * stride, (k + 1) * stride);
-    const x1i = ac.im.subarray(k * stride, (k + 1) * stride);
-    read(x1r, x1i, 2 * Math.PI * f, work.value);
-    const fundamental = new Complex(work.value[0]! * scale, work.value[1]! * scale);
-
-    // Second order at 2f: one solve per junction; their sum is W.
-    for (let i = 0; i < injections.length; i++) secondOrderCurrent(injections[i]!.current, x1r, x1i, work, i);
-    workspace.factorAt(2 * f);
-    const second = solveShares(workspace, injections, work, readHarmonic, 4 * Math.PI * f, scale ** 2);
-    work.secondTotalRe.fill(0);
-    work.secondTotalIm.fill(0);
-    for (let g = 0; g < groups.length; g++) {
-      for (let i = 0; i < stride; i++) {
-        work.secondTotalRe[i]! += work.shareRe[g]![i]!;
-        work.secondTotalIm[i]! += work.shareIm[g]![i]!;
-      }
-    }
-
-    // Third order at 3f, with the interaction of each junction with the whole second-order response.
-    for (let i = 0; i < injections.length; i++) {
-      thirdOrderCurrent(injections[i]!.current, x1r, x1i, work.secondTotalRe, work.secondTotalIm, work, i);
-    }
-    workspace.factorAt(3 * f);
-    const third = solveShares(workspace, injections, work, readHarmonic, 6 * Math.PI * f, scale ** 3);
-
-    // The mean shift: the DC part of the second-order current, solved at 0 Hz.
-    work.dcRe.fill(0);
-    work.dcIm.fill(0);
-    for (const { current } of injections) {
-      addCurrent(work.dcRe, current.from, current.to, meanCurrent(current, x1r, x1i, work));
-    }
-    workspace.factorAt(0);
-    workspace.solve(work.dcRe, work.dcIm);
-    readHarmonic(work.dcRe, work.dcIm, 0, work.value);
-    const meanShift = work.value[0]! * scale ** 2;
-
-    points.push(assemble(f, fundamental, second, third, meanShift, groups));
-  }
+    estimator.evaluate(
+      f,
+      ac.re.subarray(k * stride, (k + 1) * stride),
+      ac.im.subarray(k * stride, (k + 1) * stride),
+      true,
+    );
+    return assemble(f, estimator, scale);
+  });
   return { output: options.output, outputName: describeProbe(options.output), scale, points };
 }
 
@@ -227,193 +480,30 @@ function frequencyIndices(ac: AcAnalysis, frequency: number | undefined): number
   return [k];
 }
 
-/** Buffers sized once per estimate, reused at every frequency. */
-class Workspace {
-  /** Injected current phasor of each nonlinear current (re, im). */
-  readonly injectedRe: Float64Array;
-  readonly injectedIm: Float64Array;
-  /** Each junction's solution at the present harmonic. */
-  readonly shareRe: Float64Array[];
-  readonly shareIm: Float64Array[];
-  /** The whole second-order solution W at 2f. */
-  readonly secondTotalRe: Float64Array;
-  readonly secondTotalIm: Float64Array;
-  /** The DC second-order excitation and solution. */
-  readonly dcRe: Float64Array;
-  readonly dcIm: Float64Array;
-  /** Control phasors of one nonlinear current (first and second order). */
-  readonly vr: Float64Array;
-  readonly vi: Float64Array;
-  readonly wr: Float64Array;
-  readonly wi: Float64Array;
-  readonly value = new Float64Array(2);
-
-  constructor(n: number, groups: number, injections: readonly Injection[]) {
-    const m = injections.reduce((most, j) => Math.max(most, j.current.controls.length), 0);
-    this.injectedRe = new Float64Array(injections.length);
-    this.injectedIm = new Float64Array(injections.length);
-    this.shareRe = Array.from({ length: groups }, () => new Float64Array(n + 1));
-    this.shareIm = Array.from({ length: groups }, () => new Float64Array(n + 1));
-    this.secondTotalRe = new Float64Array(n + 1);
-    this.secondTotalIm = new Float64Array(n + 1);
-    this.dcRe = new Float64Array(n + 1);
-    this.dcIm = new Float64Array(n + 1);
-    this.vr = new Float64Array(m);
-    this.vi = new Float64Array(m);
-    this.wr = new Float64Array(m);
-    this.wi = new Float64Array(m);
-  }
-}
-
-/** Control phasors V_a = X[plus] − X[minus] into (outRe, outIm). */
-function controlPhasors(
-  current: NonlinearCurrent,
-  xr: Float64Array,
-  xi: Float64Array,
-  outRe: Float64Array,
-  outIm: Float64Array,
-): void {
-  const controls = current.controls;
-  for (let a = 0; a < controls.length; a++) {
-    const { plus, minus } = controls[a]!;
-    outRe[a] = xr[plus]! - xr[minus]!;
-    outIm[a] = xi[plus]! - xi[minus]!;
-  }
-}
-
-/** I⁽²⁾ = ¼ Σ_ab f_ab·V_a·V_b into injected[i]. */
-function secondOrderCurrent(
-  current: NonlinearCurrent,
-  xr: Float64Array,
-  xi: Float64Array,
-  work: Workspace,
-  i: number,
-): void {
-  const { vr, vi } = work;
-  controlPhasors(current, xr, xi, vr, vi);
-  const m = current.controls.length;
-  let re = 0;
-  let im = 0;
-  for (let a = 0; a < m; a++) {
-    for (let b = 0; b < m; b++) {
-      const f = current.second[a * m + b]!;
-      if (f === 0) continue;
-      re += f * (vr[a]! * vr[b]! - vi[a]! * vi[b]!);
-      im += f * (vr[a]! * vi[b]! + vi[a]! * vr[b]!);
-    }
-  }
-  work.injectedRe[i] = 0.25 * re;
-  work.injectedIm[i] = 0.25 * im;
-}
-
-/** I⁽³⁾ = (1/24) Σ_abc f_abc·V_a·V_b·V_c + ½ Σ_ab f_ab·V_a·W_b into injected[i]. */
-function thirdOrderCurrent(
-  current: NonlinearCurrent,
-  xr: Float64Array,
-  xi: Float64Array,
-  yr: Float64Array,
-  yi: Float64Array,
-  work: Workspace,
-  i: number,
-): void {
-  const { vr, vi, wr, wi } = work;
-  controlPhasors(current, xr, xi, vr, vi);
-  controlPhasors(current, yr, yi, wr, wi);
-  const m = current.controls.length;
-  let cubicRe = 0;
-  let cubicIm = 0;
-  for (let a = 0; a < m; a++) {
-    for (let b = 0; b < m; b++) {
-      const pr = vr[a]! * vr[b]! - vi[a]! * vi[b]!;
-      const pi = vr[a]! * vi[b]! + vi[a]! * vr[b]!;
-      for (let c = 0; c < m; c++) {
-        const f = current.third[(a * m + b) * m + c]!;
-        if (f === 0) continue;
-        cubicRe += f * (pr * vr[c]! - pi * vi[c]!);
-        cubicIm += f * (pr * vi[c]! + pi * vr[c]!);
-      }
-    }
-  }
-  let mixRe = 0;
-  let mixIm = 0;
-  for (let a = 0; a < m; a++) {
-    for (let b = 0; b < m; b++) {
-      const f = current.second[a * m + b]!;
-      if (f === 0) continue;
-      mixRe += f * (vr[a]! * wr[b]! - vi[a]! * wi[b]!);
-      mixIm += f * (vr[a]! * wi[b]! + vi[a]! * wr[b]!);
-    }
-  }
-  work.injectedRe[i] = cubicRe / 24 + 0.5 * mixRe;
-  work.injectedIm[i] = cubicIm / 24 + 0.5 * mixIm;
-}
-
-/** The DC second-order current ¼ Σ_ab f_ab·Re(V_a·V̄_b). */
-function meanCurrent(current: NonlinearCurrent, xr: Float64Array, xi: Float64Array, work: Workspace): number {
-  const { vr, vi } = work;
-  controlPhasors(current, xr, xi, vr, vi);
-  const m = current.controls.length;
-  let sum = 0;
-  for (let a = 0; a < m; a++) {
-    for (let b = 0; b < m; b++) sum += current.second[a * m + b]! * (vr[a]! * vr[b]! + vi[a]! * vi[b]!);
-  }
-  return 0.25 * sum;
-}
-
-/**
- * Inject each junction's currents (work.injected) alone into the factored circuit, solve, and read
- * the output: returns each junction's share of the output phasor, times `factor`. The solutions stay
- * in work.share.
- */
-function solveShares(
-  workspace: AcWorkspace,
-  injections: readonly Injection[],
-  work: Workspace,
-  read: ProbeReader,
-  omega: number,
-  factor: number,
-): Complex[] {
-  const shares: Complex[] = [];
-  for (let g = 0; g < work.shareRe.length; g++) {
-    const re = work.shareRe[g]!;
-    const im = work.shareIm[g]!;
-    re.fill(0);
-    im.fill(0);
-    for (let i = 0; i < injections.length; i++) {
-      const { current, group } = injections[i]!;
-      if (group !== g) continue;
-      addCurrent(re, current.from, current.to, work.injectedRe[i]!);
-      addCurrent(im, current.from, current.to, work.injectedIm[i]!);
-    }
-    workspace.solve(re, im);
-    read(re, im, omega, work.value);
-    shares.push(new Complex(work.value[0]! * factor, work.value[1]! * factor));
-  }
-  return shares;
-}
-
 /** |a|/|b|, with 0/0 = 0 and a/0 = Infinity. */
-function ratio(a: number, b: number): number {
+export function ratio(a: number, b: number): number {
   if (b === 0) return a === 0 ? 0 : Number.POSITIVE_INFINITY;
   return a / b;
 }
 
-function assemble(
-  frequency: number,
-  fundamental: Complex,
-  seconds: readonly Complex[],
-  thirds: readonly Complex[],
-  meanShift: number,
-  groups: readonly Group[],
-): DistortionPoint {
+/** Re(c/h) for complex c = (cr, ci), h = (hr, hi); 0 when h = 0. */
+export function relativeReal(cr: number, ci: number, hr: number, hi: number): number {
+  const size = hr * hr + hi * hi;
+  return size === 0 ? 0 : (cr * hr + ci * hi) / size;
+}
+
+/** The point of the estimator's last evaluation, every phasor scaled by the drive scale's power. */
+function assemble(frequency: number, e: HarmonicEstimator, scale: number): DistortionPoint {
+  const s2 = scale * scale;
+  const s3 = s2 * scale;
+  const fundamental = new Complex(e.fundamental[0]! * scale, e.fundamental[1]! * scale);
+  const second = new Complex(e.second[0]! * s2, e.second[1]! * s2);
+  const third = new Complex(e.third[0]! * s3, e.third[1]! * s3);
+  const compressionPhasor = new Complex(e.compression[0]! * s3, e.compression[1]! * s3);
   const base = fundamental.abs();
-  let second = new Complex(0, 0);
-  let third = new Complex(0, 0);
-  const contributions = groups.map((group, g) => {
-    const s = seconds[g]!;
-    const t = thirds[g]!;
-    second = second.add(s);
-    third = third.add(t);
+  const contributions = e.set.devices.map((group, g) => {
+    const s = new Complex(e.secondShares[2 * g]! * s2, e.secondShares[2 * g + 1]! * s2);
+    const t = new Complex(e.thirdShares[2 * g]! * s3, e.thirdShares[2 * g + 1]! * s3);
     return {
       ...group,
       second: s,
@@ -427,7 +517,9 @@ function assemble(
     fundamental,
     second,
     third,
-    meanShift,
+    compressionPhasor,
+    compression: relativeReal(compressionPhasor.re, compressionPhasor.im, fundamental.re, fundamental.im),
+    meanShift: e.mean * s2,
     secondRatio: ratio(second.abs(), base),
     thirdRatio: ratio(third.abs(), base),
     harmonicDistortion: ratio(Math.hypot(second.abs(), third.abs()), base),

@@ -4,7 +4,7 @@
  */
 import type { Conditions, DcLoadContext, Device } from '../devices/device.js';
 import { singularMatrix } from '../errors/messages.js';
-import { createRealSolver, type RealLinearSolver } from '../linalg/index.js';
+import { createRealSolver, type SparseRealSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import type { ResolvedOptions } from './options.js';
 
@@ -16,7 +16,7 @@ export class NewtonWorkspace {
   readonly b: Float64Array;
   readonly residual: Float64Array;
   readonly rowScale: Float64Array;
-  readonly solver: RealLinearSolver;
+  readonly solver: SparseRealSolver;
   readonly context: DcLoadContext;
   /**
    * The linear devices' share of A and b (b at full source value), loaded once per set of
@@ -24,15 +24,20 @@ export class NewtonWorkspace {
    */
   readonly linearA: Float64Array;
   readonly linearB: Float64Array;
-  readonly nonlinearDevices: readonly Device[];
+  nonlinearDevices: readonly Device[];
+  /** The compiled system the arrays belong to; a value change swaps in a system of the same pattern. */
+  system: CompiledSystem;
   readonly #linearContext: DcLoadContext;
+  /** The system and conditions linearA and linearB were last loaded for (null: not loaded). */
+  linearFor: { readonly system: CompiledSystem; readonly conditions: Conditions } | null = null;
   /** Norms of the last run, for diagnostics. */
   lastUpdateNorm = Number.POSITIVE_INFINITY;
   lastResidualNorm = Number.POSITIVE_INFINITY;
   /** Whether every unknown of x was finite at the last residual pass (checked while reading x). */
   lastIterateFinite = true;
 
-  constructor(readonly system: CompiledSystem) {
+  constructor(system: CompiledSystem) {
+    this.system = system;
     const { n, nnz } = system;
     this.x = new Float64Array(n + 1);
     this.previous = new Float64Array(n + 1);
@@ -40,7 +45,9 @@ export class NewtonWorkspace {
     this.b = new Float64Array(n + 1);
     this.residual = new Float64Array(n + 1);
     this.rowScale = new Float64Array(n + 1);
-    this.solver = createRealSolver(system.pattern);
+    // One ordering per topology: a later workspace on the same pattern starts from the first's.
+    const symbolic = system.ordering.symbolic;
+    this.solver = createRealSolver(system.pattern, symbolic === null ? {} : { symbolic });
     this.context = { x: this.x, A: this.A, b: this.b, sourceScale: 1, limited: false, first: true };
     this.linearA = new Float64Array(nnz + 1);
     this.linearB = new Float64Array(n + 1);
@@ -53,6 +60,16 @@ export class NewtonWorkspace {
       limited: false,
       first: true,
     };
+  }
+
+  /**
+   * Work on `system` from now on: a system of the same unknowns and pattern whose element values
+   * changed. The factorization and its pivot order are kept; the next factor refactors.
+   */
+  useSystem(system: CompiledSystem): void {
+    if (system.pattern !== this.system.pattern) throw new Error('a workspace serves one pattern');
+    this.system = system;
+    this.nonlinearDevices = system.devices.filter((d) => d.nonlinear);
   }
 
   /** Load the linear devices into linearA and linearB; call after every change of the conditions. */
@@ -76,10 +93,26 @@ export function prepareDevices(system: CompiledSystem, conditions: Conditions): 
   for (const d of system.devices) d.prepare?.(conditions);
 }
 
-/** Hand the conditions to every device of the workspace's system and reload its linear part. */
+/**
+ * Hand the conditions to every device of the workspace's system and reload its linear part, unless
+ * the workspace already holds that part for the same system and equal conditions (a repeated solve).
+ */
 export function prepareWorkspace(ws: NewtonWorkspace, conditions: Conditions): void {
   prepareDevices(ws.system, conditions);
+  const last = ws.linearFor;
+  if (
+    last !== null &&
+    last.system === ws.system &&
+    last.conditions.temperature === conditions.temperature &&
+    last.conditions.thermalVoltage === conditions.thermalVoltage &&
+    last.conditions.junctionConductance === conditions.junctionConductance &&
+    last.conditions.sourceValues === undefined &&
+    conditions.sourceValues === undefined
+  ) {
+    return;
+  }
   ws.loadLinearPart();
+  ws.linearFor = { system: ws.system, conditions };
 }
 
 /**
@@ -187,6 +220,7 @@ function updateWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
 function trySolve(ws: NewtonWorkspace): number {
   const status = ws.solver.factor(ws.A);
   if (status !== 0) return status;
+  ws.system.ordering.symbolic ??= ws.solver.symbolic;
   ws.previous.set(ws.x);
   ws.x.set(ws.b);
   ws.solver.solve(ws.x);

@@ -2,18 +2,17 @@
  * The DC operating point: plain Newton first, then conductance stepping, then source ramping, each
  * tried only when the one before failed. The result is immutable and answers by node and element name.
  */
-import type { Circuit } from '../circuit/circuit.js';
-import { type ElementRecord, GROUND } from '../circuit/elements.js';
+import { GROUND } from '../circuit/elements.js';
 import type { Conditions } from '../devices/device.js';
 import { EXP_LIMIT, thermalVoltage } from '../devices/junction.js';
 import { noConvergence, unknownElement, unknownNode } from '../errors/messages.js';
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
-import { type CompiledSystem, compileCircuit } from '../mna/system.js';
+import type { CompiledSystem } from '../mna/system.js';
 import { forwardBias } from './junction-bias.js';
 import {
   measureResidual,
   type NewtonOutcome,
-  NewtonWorkspace,
+  type NewtonWorkspace,
   prepareDevices,
   prepareWorkspace,
   residualExcess,
@@ -23,8 +22,8 @@ import {
   worstResidualExcess,
 } from './newton.js';
 import { type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
-import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from './options.js';
-import type { BjtReport, DeviceReport, DiodeReport, MosfetReport } from './reports.js';
+import type { ResolvedOptions } from './options.js';
+import type { BjtReport, DeviceReport, DiodeReport, MosfetReport, OpAmpReport } from './reports.js';
 
 /** The DC solution of a circuit: node voltages, element currents and every device's operating values. */
 export class OperatingPoint {
@@ -92,12 +91,12 @@ export class OperatingPoint {
     return d.current(this.x);
   }
 
-  /** The operating values and small-signal parameters of a diode, bipolar transistor or MOSFET. */
+  /** The operating values and small-signal parameters of a diode, bipolar transistor or MOSFET, or an op-amp's input, output and region. */
   device(name: string): DeviceReport {
     const d = this.system.deviceByName.get(name);
     if (d === undefined) throw unknownElement(name);
     if (d.report === undefined)
-      throw unknownElement(name, 'only diodes and transistors have a device report');
+      throw unknownElement(name, 'only diodes, transistors and op-amps have a device report');
     d.prepare?.(this.conditions);
     return Object.freeze({ kind: d.record.kind, ...d.report(this.x) }) as DeviceReport;
   }
@@ -114,9 +113,14 @@ export class OperatingPoint {
   mosfet(name: string): MosfetReport {
     return this.#typed(name, 'mosfet') as MosfetReport;
   }
+  /** The report of an op-amp (throws `unknown-element` if `name` is not one). */
+  opAmp(name: string): OpAmpReport {
+    return this.#typed(name, 'op-amp') as OpAmpReport;
+  }
 
   /**
-   * Cautions about the solution, empty for a circuit solved within its models. A junction forward-biased
+   * Cautions about the solution, empty for a circuit solved within its models. An op-amp held at an
+   * output limit is named (its `region` is `'limited-high'` or `'limited-low'`). A junction forward-biased
    * beyond v/(n·Vt) = 80 (about 2 V for n = 1) lies where the exponential is continued linearly to keep
    * the equations finite: its current follows that continuation, not the Shockley law, which usually
    * means a source forced straight across a junction with nothing to limit the current.
@@ -125,6 +129,16 @@ export class OperatingPoint {
     const out: string[] = [];
     prepareDevices(this.system, this.conditions);
     for (const device of this.system.devices) {
+      if (device.record.kind === 'op-amp') {
+        // The limiter's slope below one half: the output no longer follows the inputs.
+        const region = device.report?.(this.x).region;
+        if (region === 'limited-high' || region === 'limited-low') {
+          const limit = region === 'limited-high' ? 'upper' : 'lower';
+          out.push(
+            `op-amp '${device.name}' is held at its ${limit} output limit (${region}): its output no longer follows its inputs`,
+          );
+        }
+      }
       for (const probe of device.junctions?.(this.x) ?? []) {
         if (probe.junction === 'channel') continue;
         // Channels were skipped above, so of the mirrored devices only a pnp reaches here.
@@ -167,20 +181,6 @@ export interface Solver {
   readonly system: CompiledSystem;
   readonly workspace: NewtonWorkspace;
   readonly options: ResolvedOptions;
-}
-
-/** Compile a circuit for repeated operating-point solves. */
-export function prepareSolver(circuit: Circuit, options?: OperatingPointOptions): Solver {
-  return solverFor(circuit.elements, resolveOptions(options));
-}
-
-/** Compile element records (a circuit's, or a variant of them) for repeated solves with resolved options. */
-export function solverFor(records: readonly ElementRecord[], options: ResolvedOptions): Solver {
-  const system = compileCircuit(records);
-  for (const node of Object.keys(options.initialGuess)) {
-    if (!system.nodeIndex.has(node)) throw unknownNode(node, ['options', 'initialGuess', node]);
-  }
-  return { system, workspace: new NewtonWorkspace(system), options };
 }
 
 /** Set the workspace's x to the options' initial guess (0 V wherever none is given). */
@@ -354,26 +354,4 @@ function failure(solver: Solver, attempts: readonly StrategyAttempt[]) {
     lastUpdateNorm: Number.isNaN(updateNorm) ? Number.POSITIVE_INFINITY : updateNorm,
     lastResidualNorm: Number.isNaN(ws.lastResidualNorm) ? Number.POSITIVE_INFINITY : ws.lastResidualNorm,
   });
-}
-
-/**
- * Find the DC operating point of a circuit.
- *
- * @param circuit - the circuit to solve
- * @param options - temperature (K), junction conductance, tolerances, iteration limit, initial guess
- * @returns the immutable {@link OperatingPoint}
- * @throws QuiescentError `no-ground`, `floating-node`, `singular`, `unknown-element`, `no-convergence`,
- *   `invalid-value`
- *
- * @example
- * ```ts
- * const op = operatingPoint(circuit);
- * op.voltage('out');          // volts
- * op.device('D1').resistance; // the diode's dynamic resistance, Ω
- * ```
- */
-export function operatingPoint(circuit: Circuit, options?: OperatingPointOptions): OperatingPoint {
-  const solver = prepareSolver(circuit, options);
-  startFromGuess(solver);
-  return solveFromCurrent(solver, conditionsAt(solver.options.temperature, solver.options));
 }

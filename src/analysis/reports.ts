@@ -63,6 +63,10 @@ export interface BjtReport {
   readonly cmu: number;
   /** The operating region, by the bias of the two junctions (see {@link BjtRegion}). */
   readonly region: BjtRegion;
+  /** v(base) − v(emitter) at the internal junction, behind the terminal resistances, in V. */
+  readonly internalVbe: number;
+  /** v(base) − v(collector) at the internal junction, behind the terminal resistances, in V. */
+  readonly internalVbc: number;
 }
 
 /**
@@ -94,9 +98,41 @@ export interface MosfetReport {
   readonly region: MosfetRegion;
   /** The threshold voltage at the present body bias, with its sign (negative for an enhancement pmos). */
   readonly thresholdVoltage: number;
-  /** |vgs − Vth| in the conducting regions, 0 in cutoff, in V. */
+  /**
+   * |vgs − Vth| in the conducting regions, 0 in cutoff, in V; for the charge-based model vgs − Vth0
+   * in the mirrored frame, negative in weak inversion.
+   */
   readonly overdrive: number;
+  /** Charge-based model only: `'weak'` when if < 0.1, `'strong'` when if > 10, else `'moderate'`. */
+  readonly inversion?: InversionLevel;
+  /** Charge-based model only: the forward inversion coefficient if (the inversion coefficient of the g_m/I_D method). */
+  readonly inversionCoefficient?: number;
+  /** Charge-based model only: g_m/I_D, in 1/V; tends to 1/(n·Vt) in weak inversion. */
+  readonly gmOverId?: number;
+  /** Charge-based model only: the slope factor n. */
+  readonly slopeFactor?: number;
+}
+
+/** A charge-based MOSFET channel's inversion level, by its forward inversion coefficient. */
+export type InversionLevel = 'weak' | 'moderate' | 'strong';
+
+/** Where an op-amp's output sits: in its linear range, or held near a limit. */
+export type OpAmpRegion = 'linear' | 'limited-high' | 'limited-low';
+
+/** An op-amp at its operating point. Voltages in V. */
+export interface OpAmpReport {
+  /** Always `'op-amp'`; narrows a {@link DeviceReport}. */
+  readonly kind: 'op-amp';
+  /** v(plus) − v(minus) at the terminals (the offset voltage not included). */
+  readonly differentialInput: number;
+  /** The output terminal's voltage to ground, after the output resistance. */
+  readonly outputVoltage: number;
+  /**
+   * `'linear'` (always, for the ideal model), or `'limited-high'` / `'limited-low'` when the output
+   * limiter's slope at the solution is below one half.
+   */
+  readonly region: OpAmpRegion;
 }
 
 /** Any device report; narrow it by `kind`. */
-export type DeviceReport = DiodeReport | BjtReport | MosfetReport;
+export type DeviceReport = DiodeReport | BjtReport | MosfetReport | OpAmpReport;

@@ -109,6 +109,35 @@ export interface JunctionLinearityJson {
   readonly maxInputScale: number | null;
   /** The amplitude at every analysed frequency, in V. */
   readonly amplitudes: readonly number[];
+  /** The device's share of the output's harmonics, when the report was taken at an output. */
+  readonly share?: {
+    /** The device's part of the output's 2nd harmonic over the fundamental. */
+    readonly second: number | null;
+    /** The device's part of the output's 3rd harmonic over the fundamental. */
+    readonly third: number | null;
+  };
+}
+
+/** The verdict at an output as JSON (see `OutputLinearity`); `null` for infinite or missing values. */
+export interface OutputLinearityJson {
+  /** The output's description, such as `v(out)`. */
+  readonly output: string;
+  /** The worst analysed frequency, in Hz. */
+  readonly frequency: number;
+  /** |H1| there (V or A). */
+  readonly fundamental: number;
+  /** |H2|/|H1|. */
+  readonly secondHarmonic: number | null;
+  /** |H3|/|H1|. */
+  readonly thirdHarmonic: number | null;
+  /** Re(C1/H1). */
+  readonly compression: number | null;
+  /** |M|/|H1|. */
+  readonly meanShift: number | null;
+  /** The sum of the four. */
+  readonly errorBound: number | null;
+  /** Whether the error bound is within the budget. */
+  readonly withinBudget: boolean;
 }
 
 /** A linearity report as plain JSON (see `LinearityReport` for each field). */
@@ -130,8 +159,10 @@ export interface LinearityReportJson {
     /** Which junction. */
     readonly junction: JunctionProbe['junction'];
   } | null;
-  /** Whether every junction is within budget. */
+  /** The verdict: the output's, or the forward-biased junctions' screen without an output. */
   readonly withinBudget: boolean;
+  /** The verdict at the output, when one was named. */
+  readonly output?: OutputLinearityJson;
 }
 
 /** The plain-data form of a linearity report; `JSON.stringify(report)` writes it. */
@@ -156,10 +187,28 @@ export function linearityToJson(report: LinearityReport): LinearityReportJson {
       withinBudget: j.withinBudget,
       maxInputScale: finiteOrNull(j.maxInputScale),
       amplitudes: Array.from(j.amplitudes),
+      ...(j.share === undefined
+        ? {}
+        : { share: { second: finiteOrNull(j.share.second), third: finiteOrNull(j.share.third) } }),
     })),
     maxInputScale: finiteOrNull(report.maxInputScale),
     maxInputScaleForwardBiased: finiteOrNull(report.maxInputScaleForwardBiased),
     worst: report.worst === null ? null : { device: report.worst.device, junction: report.worst.junction },
     withinBudget: report.withinBudget,
+    ...(report.output === undefined
+      ? {}
+      : {
+          output: {
+            output: report.output.outputName,
+            frequency: report.output.frequency,
+            fundamental: report.output.fundamental,
+            secondHarmonic: finiteOrNull(report.output.secondHarmonic),
+            thirdHarmonic: finiteOrNull(report.output.thirdHarmonic),
+            compression: finiteOrNull(report.output.compression),
+            meanShift: finiteOrNull(report.output.meanShift),
+            errorBound: finiteOrNull(report.output.errorBound),
+            withinBudget: report.output.withinBudget,
+          },
+        }),
   };
 }

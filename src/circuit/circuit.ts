@@ -6,7 +6,7 @@ import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt/bjt-model.js';
 import type { ValueSpec } from '../devices/descriptor.js';
 import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode/diode-model.js';
 import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet/mosfet-model.js';
-import { OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
+import { checkOpAmpOptions, OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
 import { parseParameters } from '../devices/parameters.js';
 import { KINDS } from '../devices/registry.js';
 import { duplicateName, invalidCircuit, invalidValue, unknownElement } from '../errors/messages.js';
@@ -30,6 +30,12 @@ export interface SourceSpec {
         /** Phase in degrees (default 0). */
         phase?: number;
       };
+}
+
+/** Options of {@link Circuit.resistor}. */
+export interface ResistorOptions {
+  /** When true the resistor carries no thermal noise in a noise analysis (default false). */
+  readonly noiseless?: boolean;
 }
 
 /** Terminals of an op-amp. */
@@ -105,15 +111,20 @@ export class Circuit {
     return [...seen];
   }
 
-  /** Add a resistor of `resistance` Ω (> 0) between nodes `a` and `b`. */
-  resistor(name: string, a: string, b: string, resistance: Value): this {
+  /**
+   * Add a resistor of `resistance` Ω (> 0) between nodes `a` and `b`. With `{ noiseless: true }` it
+   * carries no thermal noise in a noise analysis (an idealized part, or one modelled elsewhere).
+   */
+  resistor(name: string, a: string, b: string, resistance: Value, options?: ResistorOptions): this {
     const path = this.#start(name);
+    const noiseless = noiselessOption(options, [...path, 'options']);
     return this.#add({
       kind: 'resistor',
       name,
       a: node(a, [...path, 'a']),
       b: node(b, [...path, 'b']),
       resistance: checked(KINDS.resistor.values.resistance, resistance, [...path, 'resistance']),
+      ...(noiseless ? { noiseless: true as const } : {}),
     });
   }
 
@@ -214,7 +225,7 @@ export class Circuit {
 
   /**
    * Add a current-controlled voltage source: v(outPlus) − v(outMinus) = r·i(control), where the
-   * controlling element is a voltage source, inductor, vcvs or ccvs (checked when an analysis starts).
+   * controlling element is a voltage source, inductor, vcvs, ccvs or loop probe (checked when an analysis starts).
    */
   ccvs(name: string, out: readonly [string, string], control: string, transresistance: Value): this {
     const path = this.#start(name);
@@ -246,7 +257,26 @@ export class Circuit {
     });
   }
 
-  /** Add an op-amp: ideal without options, single-pole with `{ openLoopGain, gainBandwidth, outputResistance }`. */
+  /**
+   * Add a loop probe: a 0 V element in series with a feedback loop (a short at DC and in AC, with no
+   * excitation of its own), where `loopGain` measures the loop gain. `from` faces the side that
+   * drives the loop (an amplifier's output), `to` the side it feeds; its current flows from `from`
+   * to `to`, and it can sense the current of a ccvs or cccs.
+   */
+  loopProbe(name: string, from: string, to: string): this {
+    const path = this.#start(name);
+    return this.#add({
+      kind: 'loop-probe',
+      name,
+      from: node(from, [...path, 'from']),
+      to: node(to, [...path, 'to']),
+    });
+  }
+
+  /**
+   * Add an op-amp: ideal unless `openLoopGain`, `gainBandwidth`, `outputResistance`, `outputHigh` or
+   * `outputLow` is given (then single-pole with output limits); input offset and bias currents apply to either.
+   */
   opAmp(name: string, terminals: OpAmpTerminals, options?: OpAmpOptions): this {
     const path = this.#start(name);
     const t = terminalObject(terminals, ['plus', 'minus', 'output'], path);
@@ -259,7 +289,10 @@ export class Circuit {
       options:
         options === undefined
           ? undefined
-          : parseParameters(OP_AMP_PARAMETERS, options, [...path, 'options'], 'op-amp'),
+          : checkOpAmpOptions(parseParameters(OP_AMP_PARAMETERS, options, [...path, 'options'], 'op-amp'), [
+              ...path,
+              'options',
+            ]),
     });
   }
 
@@ -402,6 +435,29 @@ export class Circuit {
     this.#revision++;
     return this;
   }
+}
+
+/** The `noiseless` flag of a resistor's options, checked. */
+function noiselessOption(options: unknown, path: readonly (string | number)[]): boolean {
+  if (options === undefined) return false;
+  if (options === null || typeof options !== 'object' || Array.isArray(options)) {
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'options', keys: ['noiseless'] });
+  }
+  for (const key of Object.keys(options)) {
+    if (key !== 'noiseless')
+      throw invalidCircuit([...path, key], { kind: 'unknown-key', what: 'option', known: ['noiseless'] });
+  }
+  const flag = (options as { noiseless?: unknown }).noiseless;
+  if (flag !== undefined && typeof flag !== 'boolean') {
+    throw invalidCircuit([...path, 'noiseless'], { kind: 'wrong-type', expected: 'boolean' });
+  }
+  return flag === true;
+}
+
+function describe(x: unknown): string {
+  if (typeof x === 'string') return JSON.stringify(x);
+  if (x === null) return 'null';
+  return typeof x;
 }
 
 function node(x: unknown, path: readonly (string | number)[]): string {

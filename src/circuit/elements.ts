@@ -16,6 +16,7 @@ export type { CurrentSourceRecord } from '../devices/current-source/record.js';
 export type { DiodeRecord } from '../devices/diode/record.js';
 export type { AcExcitation } from '../devices/excitation.js';
 export type { InductorRecord } from '../devices/inductor/record.js';
+export type { LoopProbeRecord } from '../devices/loop-probe/record.js';
 export type { MosfetRecord } from '../devices/mosfet/record.js';
 export type { OpAmpRecord } from '../devices/op-amp/record.js';
 export type { GivenParameters } from '../devices/parameters.js';

@@ -68,11 +68,13 @@ function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (str
         ? typeof v === 'string'
         : type === 'number'
           ? typeof v === 'number'
-          : type === 'polarity'
-            ? typeof v === 'string'
-            : type === 'ac'
-              ? typeof v === 'number' || isPlainObject(v)
-              : isPlainObject(v);
+          : type === 'boolean'
+            ? typeof v === 'boolean'
+            : type === 'polarity'
+              ? typeof v === 'string'
+              : type === 'ac'
+                ? typeof v === 'number' || isPlainObject(v)
+                : isPlainObject(v);
     if (!ok)
       throw invalidCircuit([...path, key], {
         kind: 'wrong-type',

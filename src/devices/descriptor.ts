@@ -32,7 +32,7 @@ export interface ValueSpec {
 export type NumberFields<R> = { [F in keyof R]: R[F] extends number ? F : never }[keyof R] & string;
 
 /** The JSON type of one document field. */
-export type FieldType = 'string' | 'number' | 'ac' | 'object' | 'polarity';
+export type FieldType = 'string' | 'number' | 'boolean' | 'ac' | 'object' | 'polarity';
 
 /** One numeric column of a device's operating-point table: the report field, its heading and unit. */
 export interface ReportColumn {
@@ -60,7 +60,7 @@ export interface ReportSpec {
  */
 export interface ElementBuilder {
   /** Adds a resistor. */
-  resistor(name: string, a: string, b: string, resistance: Value): unknown;
+  resistor(name: string, a: string, b: string, resistance: Value, options?: object): unknown;
   /** Adds a capacitor. */
   capacitor(name: string, a: string, b: string, capacitance: Value): unknown;
   /** Adds an inductor. */
@@ -82,6 +82,8 @@ export interface ElementBuilder {
   ccvs(name: string, out: readonly [string, string], control: string, transresistance: Value): unknown;
   /** Adds a current-controlled current source. */
   cccs(name: string, out: readonly [string, string], control: string, gain: Value): unknown;
+  /** Adds a loop probe. */
+  loopProbe(name: string, from: string, to: string): unknown;
   /** Adds an op-amp. */
   opAmp(name: string, terminals: never, options?: never): unknown;
   /** Adds a diode. */

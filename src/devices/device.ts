@@ -86,6 +86,12 @@ export interface JunctionProbe {
   readonly minus: number;
   /** The voltage that normalizes the amplitude: n·Vt for a junction, the overdrive for a channel. */
   readonly scale: number;
+  /**
+   * For a channel whose law is neither exponential nor square (the charge-based MOSFET): the current's
+   * Taylor coefficients in the probe voltage at the bias, i = g1·v + g2·v²/2 + g3·v³/6, normalized as
+   * `second` = g2·scale/g1 and `third` = g3·scale²/g1. The square law is second = 1, third = 0.
+   */
+  readonly taylor?: { readonly second: number; readonly third: number };
 }
 
 /**
@@ -108,6 +114,38 @@ export interface NonlinearCurrent {
   readonly third: readonly number[];
 }
 
+/** The physical origin of a noise generator (see docs/noise.md, "Generators"). */
+export type NoiseMechanism = 'thermal' | 'shot' | 'flicker' | 'input-voltage' | 'input-current';
+
+/**
+ * One noise generator of a device at the operating point: an excitation of the small-signal equations
+ * whose one-sided power spectral density is `white + flicker/f`. For a current generator the
+ * excitation is a current that flows out of unknown `from` and into unknown `to` (A²/Hz); a
+ * generator that acts in a branch equation (a voltage, V²/Hz) puts its weight on `to` alone, with
+ * `from` at the ground index n. Generators are uncorrelated with each other.
+ */
+export interface NoiseGenerator {
+  readonly mechanism: NoiseMechanism;
+  /** Which terminal or part the generator belongs to, where a device has several of one mechanism. */
+  readonly terminal?: string;
+  readonly from: number;
+  readonly to: number;
+  /** The frequency-independent part of the PSD. */
+  readonly white: number;
+  /** The 1/f part of the PSD times f (the PSD is `white + flicker/f`). */
+  readonly flicker: number;
+  /**
+   * Whether the generator is part of the device's own current as `acCurrent` reads it (a resistor's
+   * thermal noise, a junction's shot noise): an output read as that current then carries it directly.
+   */
+  readonly ownCurrent?: boolean;
+  /**
+   * A complex factor on the excitation at angular frequency ω, written to out[0] (real) and out[1]
+   * (imaginary); absent means 1. An op-amp's input voltage noise enters its gain equation through it.
+   */
+  weightAt?(omega: number, out: Float64Array): void;
+}
+
 /** One element of a compiled circuit. */
 export interface Device {
   readonly name: string;
@@ -124,6 +162,12 @@ export interface Device {
   load(ctx: DcLoadContext): void;
   /** Add the small-signal admittances at the operating point ctx.x, and AC excitations. */
   loadAc(ctx: AcLoadContext): void;
+  /**
+   * For a device whose `loadAc` is not of the form G + jωC (G, C independent of ω): add its
+   * small-signal equations as G + s·C instead, its rows multiplied by a polynomial in s where that
+   * clears a denominator (an op-amp's pole). The natural frequencies are found from these matrices.
+   */
+  loadPencil?(G: Float64Array, C: Float64Array, x: Float64Array): void;
   /** The DC current of a two-terminal element or controlled-source output, by the sign conventions. */
   current?(x: Float64Array): number;
   /** The AC current phasor at ω from solution (xr, xi), written to out[0] (real) and out[1] (imaginary). */
@@ -134,6 +178,8 @@ export interface Device {
   junctions?(x: Float64Array): readonly JunctionProbe[];
   /** The second- and third-order terms of the device's nonlinear currents at x (after `prepare`). */
   nonlinearCurrents?(x: Float64Array): readonly NonlinearCurrent[];
+  /** The device's noise generators at the operating point x (after `prepare`); none when absent. */
+  noiseGenerators?(x: Float64Array, conditions: Conditions): readonly NoiseGenerator[];
   /**
    * Whether the device's load depends on x (so the circuit needs Newton iterations). The load of a
    * linear device must not read x, and what it adds to b must be proportional to `sourceScale`: the

@@ -34,6 +34,10 @@ function inRange(value: number, range: ParameterRange): boolean {
       return value > 0 && value < 1;
     case 'any':
       return Number.isFinite(value);
+    case 'any-or-infinite':
+      return !Number.isNaN(value);
+    case 'above-one':
+      return Number.isFinite(value) && value > 1;
   }
 }
 
@@ -70,8 +74,8 @@ export function parseParameters<K extends string>(
     let value: number;
     if (
       typeof raw === 'number' &&
-      spec.range === 'positive-or-infinite' &&
-      raw === Number.POSITIVE_INFINITY
+      ((spec.range === 'positive-or-infinite' && raw === Number.POSITIVE_INFINITY) ||
+        (spec.range === 'any-or-infinite' && Math.abs(raw) === Number.POSITIVE_INFINITY))
     ) {
       value = raw;
     } else if (typeof raw === 'number' || typeof raw === 'string') {

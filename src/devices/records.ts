@@ -5,6 +5,7 @@ import type { CccsRecord, CcvsRecord, VccsRecord, VcvsRecord } from './controlle
 import type { CurrentSourceRecord } from './current-source/record.js';
 import type { DiodeRecord } from './diode/record.js';
 import type { InductorRecord } from './inductor/record.js';
+import type { LoopProbeRecord } from './loop-probe/record.js';
 import type { MosfetRecord } from './mosfet/record.js';
 import type { OpAmpRecord } from './op-amp/record.js';
 import type { ResistorRecord } from './resistor/record.js';
@@ -21,6 +22,7 @@ export type ElementRecord =
   | VccsRecord
   | CcvsRecord
   | CccsRecord
+  | LoopProbeRecord
   | OpAmpRecord
   | DiodeRecord
   | BjtRecord

@@ -10,6 +10,7 @@ import type { AnyDescriptor, KindRegistry } from './descriptor.js';
 import type { Device } from './device.js';
 import { DIODE } from './diode/descriptor.js';
 import { INDUCTOR } from './inductor/descriptor.js';
+import { LOOP_PROBE } from './loop-probe/descriptor.js';
 import { MOSFET } from './mosfet/descriptor.js';
 import { OP_AMP } from './op-amp/descriptor.js';
 import type { ElementKind, ElementRecord } from './records.js';
@@ -27,6 +28,7 @@ export const KINDS: KindRegistry = {
   vccs: VCCS,
   ccvs: CCVS,
   cccs: CCCS,
+  'loop-probe': LOOP_PROBE,
   'op-amp': OP_AMP,
   diode: DIODE,
   bjt: BJT,

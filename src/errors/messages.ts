@@ -59,9 +59,10 @@ export function duplicateName(name: string): QuiescentError {
 /** A builder call or JSON document is malformed: `problem` says how, as data. */
 export function invalidCircuit(
   path: readonly (string | number)[],
-  problem: CircuitProblem,
+  problem: CircuitProblem | string,
   element?: string,
 ): QuiescentError {
+  if (typeof problem === 'string') problem = { kind: 'other', text: problem };
   return new QuiescentError(
     element === undefined
       ? { code: 'invalid-circuit', path, problem }
@@ -120,14 +121,20 @@ export function noConvergence(details: {
   return new QuiescentError({ code: 'no-convergence', ...details });
 }
 
-/** An output carries no signal where a ratio or level of it is asked for. */
-export function noSignal(output: string, frequency?: number): QuiescentError {
-  return new QuiescentError(
-    frequency === undefined ? { code: 'no-signal', output } : { code: 'no-signal', output, frequency },
-  );
-}
-
 /** A long computation was cancelled after `done` of `total` steps. */
 export function cancelled(done: number, total: number): QuiescentError {
   return new QuiescentError({ code: 'cancelled', done, total });
+}
+
+/** A ratio to a fundamental was asked where the output carries no signal. */
+export function noSignal(
+  output: string,
+  frequencies: readonly number[] = [],
+  reason?: string,
+): QuiescentError {
+  return new QuiescentError(
+    reason === undefined
+      ? { code: 'no-signal', output, frequencies }
+      : { code: 'no-signal', output, frequencies, reason },
+  );
 }

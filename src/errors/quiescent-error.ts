@@ -117,10 +117,12 @@ export type ErrorDetails =
   | {
       /** An output carries no signal where a ratio or a level of it is asked for. */
       readonly code: 'no-signal';
-      /** The output, in words (a node name, `'a − b'`, `'current in load'`). */
+      /** The output, as a report names it. */
       readonly output: string;
-      /** The frequency in Hz at which it is zero, when the question was about one frequency. */
-      readonly frequency?: number;
+      /** The frequencies looked at, in Hz (empty for the large-signal check, which has none). */
+      readonly frequencies?: readonly number[];
+      /** Why there is no signal, when it is known (`'the input carries none'`). */
+      readonly reason?: string;
     }
   | {
       /** A long computation was cancelled by its caller. */
@@ -149,7 +151,15 @@ export type CircuitProblem =
       /** Not an object (or array) where one is needed. */
       readonly kind: 'not-an-object';
       /** Which part: terminals, model parameters, a source's settings, an AC setting, a document, its elements or one element. */
-      readonly what: 'terminals' | 'model' | 'source' | 'ac' | 'document' | 'elements' | 'element';
+      readonly what:
+        | 'terminals'
+        | 'model'
+        | 'options'
+        | 'source'
+        | 'ac'
+        | 'document'
+        | 'elements'
+        | 'element';
       /** The kind in words for a model (`'a diode'`), or the keys expected for terminals. */
       readonly of?: string;
       /** The keys expected (terminals, model polarity values). */
@@ -159,7 +169,14 @@ export type CircuitProblem =
       /** A key that is not one of those known. */
       readonly kind: 'unknown-key';
       /** What kind of key. */
-      readonly what: 'terminal' | 'parameter' | 'source setting' | 'AC setting' | 'field' | 'document field';
+      readonly what:
+        | 'terminal'
+        | 'parameter'
+        | 'option'
+        | 'source setting'
+        | 'AC setting'
+        | 'field'
+        | 'document field';
       /** The owner in words (`'a diode'`, `'resistor'`), where it matters. */
       readonly of?: string;
       /** The known keys. */
@@ -185,7 +202,7 @@ export type CircuitProblem =
       /** A field of the wrong JSON type. */
       readonly kind: 'wrong-type';
       /** The type expected. */
-      readonly expected: 'string' | 'number' | 'object' | 'ac';
+      readonly expected: 'string' | 'number' | 'boolean' | 'object' | 'ac';
     }
   | {
       /** A document version this release does not read. */
@@ -198,6 +215,12 @@ export type CircuitProblem =
   | {
       /** A polarity inside a document's model, where it would contradict the element's field. */
       readonly kind: 'polarity-in-model';
+    }
+  | {
+      /** A one-off rule of an analysis, stated in words. */
+      readonly kind: 'other';
+      /** What is wrong. */
+      readonly text: string;
     };
 
 /** The codes a {@link QuiescentError} can carry: one per shape of {@link ErrorDetails}. */
@@ -206,7 +229,8 @@ export type ErrorCode = ErrorDetails['code'];
 /**
  * The shared ranges of numeric values: `'positive'` (> 0, finite), `'non-negative'` (≥ 0, finite),
  * `'positive-or-infinite'` (> 0, Infinity allowed where it removes an effect), `'at-least-one'`
- * (≥ 1), `'grading'` (strictly between 0 and 1) and `'any'` (any finite number).
+ * (≥ 1), `'grading'` (strictly between 0 and 1), `'any'` (any finite number), `'any-or-infinite'`
+ * (any number, ±Infinity removing a limit) and `'above-one'` (> 1, finite).
  */
 export type ValueRange =
   | 'positive'
@@ -214,7 +238,9 @@ export type ValueRange =
   | 'positive-or-infinite'
   | 'at-least-one'
   | 'grading'
-  | 'any';
+  | 'any'
+  | 'any-or-infinite'
+  | 'above-one';
 
 /** The details type that belongs to one code. */
 export type DetailsOf<C extends ErrorCode> = Extract<

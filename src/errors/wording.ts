@@ -28,6 +28,8 @@ const RANGE_WORDS: Readonly<Record<ValueRange, string>> = {
   'at-least-one': 'a value of 1 or more',
   grading: 'a value between 0 and 1 (exclusive)',
   any: 'a finite value',
+  'any-or-infinite': 'a number (±Infinity removes the limit)',
+  'above-one': 'a finite value greater than 1',
 };
 
 /**
@@ -113,8 +115,17 @@ export function describeError(d: ErrorDetails): string {
       const devices = d.devices.length > 0 ? `; devices still moving: ${listNames(d.devices)}` : '';
       return `the operating point could not be found after ${tried}; largest residuals at ${worst || 'no node'}${devices}`;
     }
-    case 'no-signal':
-      return `the output ${d.output} carries no signal${d.frequency === undefined ? '' : ` at ${d.frequency} Hz`}, so a ratio or level of it is not defined`;
+    case 'no-signal': {
+      const f = d.frequencies ?? [];
+      const where =
+        f.length === 0
+          ? ''
+          : f.length === 1
+            ? ` at ${f[0]} Hz`
+            : ` at any of the ${f.length} frequencies from ${Math.min(...f)} Hz to ${Math.max(...f)} Hz`;
+      const why = d.reason === undefined ? '' : ` (${d.reason})`;
+      return `the output ${d.output} carries no signal${where}${why}, so no ratio to its fundamental exists`;
+    }
     case 'cancelled':
       return `cancelled after ${d.done} of ${d.total} steps`;
   }
@@ -140,6 +151,8 @@ function problemWords(p: CircuitProblem, path: readonly (string | number)[]): st
           return p.keys !== undefined
             ? `a model object with a polarity (${p.keys.join(' or ')}) is required`
             : `the model of ${p.of} must be an object of parameters`;
+        case 'options':
+          return `options must be an object { ${(p.keys ?? []).map((k) => `${k}?`).join(', ')} }`;
         case 'source':
           return 'a source takes an object { dc?, ac? }';
         case 'ac':
@@ -158,6 +171,8 @@ function problemWords(p: CircuitProblem, path: readonly (string | number)[]): st
           return `is not a terminal; the terminals are ${p.known.join(', ')}`;
         case 'parameter':
           return `is not a parameter of ${p.of}; the parameters are ${p.known.join(', ')}`;
+        case 'option':
+          return `is not an option; the options are ${p.known.join(', ')}`;
         case 'source setting':
           return 'is not a source setting; use dc and ac';
         case 'AC setting':
@@ -181,11 +196,14 @@ function problemWords(p: CircuitProblem, path: readonly (string | number)[]): st
     case 'missing':
       return `is missing (a ${p.of} needs ${field})`;
     case 'wrong-type':
+      if (p.expected === 'boolean') return 'must be true or false';
       return `must be ${p.expected === 'ac' ? 'a number or { magnitude, phase }' : `a ${p.expected}`}`;
     case 'unsupported-version':
       return `version ${p.got} is not supported (this release reads ${p.supported})`;
     case 'polarity-in-model':
       return 'is not a model parameter; polarity is a field of the element';
+    case 'other':
+      return p.text;
   }
 }
 

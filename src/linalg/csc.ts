@@ -12,28 +12,42 @@ export interface CompressedPattern {
 }
 
 /**
- * Compress triplets (rows[t], cols[t]), each in [0, n), into a sorted, duplicate-free pattern.
- * Every diagonal entry is included whether or not a triplet names it, so that pivoting strategies
- * can always look at the diagonal.
+ * Compress the first `given` triplets (rows[t], cols[t]) into a sorted, duplicate-free pattern. Each
+ * index lies in [0, n], and n stands for ground: a triplet in row or column n is left out of the
+ * pattern and its slot is nnz, the trash entry past the last stored one. Every diagonal entry is
+ * included whether or not a triplet names it, so that pivoting strategies can always look at the
+ * diagonal.
  */
 export function compressPattern(
   n: number,
   rows: ArrayLike<number>,
   cols: ArrayLike<number>,
+  given: number = rows.length,
 ): CompressedPattern {
-  const count = rows.length;
-  const total = count + n;
-  const r = new Int32Array(total);
-  const c = new Int32Array(total);
-  for (let t = 0; t < count; t++) {
+  let kept = 0;
+  for (let t = 0; t < given; t++) {
     const i = rows[t]!;
     const j = cols[t]!;
-    if (!(i >= 0 && i < n && j >= 0 && j < n)) {
+    if (!(i >= 0 && i <= n && j >= 0 && j <= n)) {
       throw new RangeError(`triplet ${t} (${i}, ${j}) lies outside a matrix of order ${n}`);
     }
-    r[t] = i;
-    c[t] = j;
+    if (i < n && j < n) kept++;
   }
+  const total = kept + n;
+  const r = new Int32Array(total);
+  const c = new Int32Array(total);
+  /** The kept triplet each stored one came from; the trash triplets are filled in at the end. */
+  const source = new Int32Array(kept);
+  kept = 0;
+  for (let t = 0; t < given; t++) {
+    const i = rows[t]!;
+    const j = cols[t]!;
+    if (i === n || j === n) continue;
+    r[kept] = i;
+    c[kept] = j;
+    source[kept++] = t;
+  }
+  const count = kept;
   for (let k = 0; k < n; k++) {
     r[count + k] = k;
     c[count + k] = k;
@@ -60,7 +74,9 @@ export function compressPattern(
     slotOf[t] = nnz - 1;
   }
   for (let j = 0; j < n; j++) Ap[j + 1]! += Ap[j]!;
-  return { pattern: { n, Ap, Ai: AiAll.slice(0, nnz) }, slots: slotOf.slice(0, count) };
+  const slots = new Int32Array(given).fill(nnz);
+  for (let k = 0; k < kept; k++) slots[source[k]!] = slotOf[k]!;
+  return { pattern: { n, Ap, Ai: AiAll.slice(0, nnz) }, slots };
 }
 
 function identity(size: number): Int32Array {

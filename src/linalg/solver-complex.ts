@@ -55,8 +55,13 @@ export function createSparseComplexSolver(
     get symbolic() {
       return S;
     },
-    factor(Ax: Float64Array, Az: Float64Array): FactorStatus {
+    factor(Ax: Float64Array, Az: Float64Array, rowMax?: Float64Array): FactorStatus {
       ws.rowScaleCurrent = false; // new values: the refactorization computes scales only if needed
+      if (rowMax !== undefined) {
+        const r = ws.rowScale;
+        for (let i = 0; i < n; i++) r[i] = rowMax[i]! > 0 ? 1 / rowMax[i]! : 1;
+        ws.rowScaleCurrent = true;
+      }
       let analysedNow = false;
       if (S === null) {
         S = analyze(Ax, Az);

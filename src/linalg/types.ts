@@ -42,8 +42,12 @@ export interface RealLinearSolver {
 /** A solver of A·x = b for complex matrices (split real and imaginary arrays) on one fixed pattern. */
 export interface ComplexLinearSolver {
   readonly n: number;
-  /** Factor the matrix with real parts `Ax` and imaginary parts `Az` (each of length nnz). */
-  factor(Ax: Float64Array, Az: Float64Array): FactorStatus;
+  /**
+   * Factor the matrix with real parts `Ax` and imaginary parts `Az` (each of length nnz). `rowMax`,
+   * when the caller already has it, holds max_j (|Re a_ij| + |Im a_ij|) of every row, which spares the
+   * solver a pass over the values when it needs row scales.
+   */
+  factor(Ax: Float64Array, Az: Float64Array, rowMax?: Float64Array): FactorStatus;
   /** (br, bi) is overwritten with A⁻¹(br + j·bi). */
   solve(br: Float64Array, bi: Float64Array): void;
 }

@@ -23,3 +23,8 @@ export {
   type NonlinearityFigures,
 } from './junction-nonlinearity.js';
 export { lambertW0, lambertW0OfExp } from './lambert-w.js';
+export {
+  type TaylorCoefficients,
+  taylorAmplitudeForBound,
+  taylorNonlinearity,
+} from './taylor-nonlinearity.js';

@@ -8,7 +8,7 @@ import { checkTopology } from '../circuit/topology.js';
 import type { AllocationContext, BindContext, Device } from '../devices/device.js';
 import { createDevice } from '../devices/registry.js';
 import { unknownElement } from '../errors/messages.js';
-import { type CscPattern, compressPattern } from '../linalg/index.js';
+import { type CscPattern, compressPattern, type SymbolicLu } from '../linalg/index.js';
 
 /** What an unknown stands for, for messages and result lookups. */
 export interface UnknownLabel {
@@ -27,7 +27,10 @@ export interface CompiledSystem {
   /** Circuit node name → unknown index (ground → n). */
   readonly nodeIndex: ReadonlyMap<string, number>;
   readonly devices: readonly Device[];
-  readonly deviceByName: ReadonlyMap<string, Device>;
+  /** Element name → its position in {@link CompiledSystem.devices} and {@link CompiledSystem.records}. */
+  readonly deviceIndex: ReadonlyMap<string, number>;
+  /** The compiled device of an element, by name. */
+  readonly deviceByName: DeviceLookup;
   /** Branch-current unknown of each element that has one. */
   readonly branchIndex: ReadonlyMap<string, number>;
   readonly pattern: CscPattern;
@@ -40,11 +43,41 @@ export interface CompiledSystem {
   /** Names of the elements touching each unknown (for messages about singular rows). */
   readonly elementsAt: readonly (readonly string[])[];
   readonly records: readonly ElementRecord[];
+  /** The unknowns each device numbered for itself (internal nodes, then branches), by device position. */
+  readonly allocations: readonly (readonly number[])[];
+  /**
+   * The symbolic LU analysis of the first factored Jacobian, shared by every solver on this pattern
+   * (later Newton workspaces, the AC analyses): one ordering per topology.
+   */
+  readonly ordering: { symbolic: SymbolicLu | null };
+}
+
+/** Devices by element name, answered from the position table and the device array. */
+export interface DeviceLookup {
+  /** The device of that element, or undefined. */
+  get(name: string): Device | undefined;
+}
+
+function deviceLookup(index: ReadonlyMap<string, number>, devices: readonly Device[]): DeviceLookup {
+  return {
+    get(name) {
+      const k = index.get(name);
+      return k === undefined ? undefined : devices[k];
+    },
+  };
+}
+
+let compilations = 0;
+
+/** How many circuits this process has compiled: lets tests see that a cached system was reused. */
+export function compileCount(): number {
+  return compilations;
 }
 
 /** Check and compile element records. Throws the topology errors of the contract. */
 export function compileCircuit(records: readonly ElementRecord[]): CompiledSystem {
   checkTopology(records);
+  compilations++;
   const devices = records.map(createDevice);
   const labels: UnknownLabel[] = [];
   const nodeIndex = new Map<string, number>();
@@ -58,30 +91,86 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
   }
   const branchIndex = new Map<string, number>();
   let branchesOpen = false;
+  const NONE: readonly number[] = [];
+  const allocations: (readonly number[])[] = new Array(devices.length).fill(NONE);
+  let owner = 0;
+  const own = (k: number): number => {
+    if (allocations[owner] === NONE) allocations[owner] = [];
+    (allocations[owner] as number[]).push(k);
+    return k;
+  };
   const allocation: AllocationContext = {
     node: (name) => nodeIndex.get(name) ?? -1,
-    internalNode(owner, label) {
+    internalNode(ownerName, label) {
       if (branchesOpen) throw new Error('internal nodes must be allocated before branches');
-      labels.push({ kind: 'node', name: `${owner}#${label}` });
-      return labels.length - 1;
+      labels.push({ kind: 'node', name: `${ownerName}#${label}` });
+      return own(labels.length - 1);
     },
-    branch(owner) {
-      labels.push({ kind: 'branch', name: owner });
-      if (!branchIndex.has(owner)) branchIndex.set(owner, labels.length - 1);
-      return labels.length - 1;
+    branch(ownerName) {
+      labels.push({ kind: 'branch', name: ownerName });
+      if (!branchIndex.has(ownerName)) branchIndex.set(ownerName, labels.length - 1);
+      return own(labels.length - 1);
     },
   };
-  for (const d of devices) d.allocateNodes?.(allocation);
+  for (owner = 0; owner < devices.length; owner++) devices[owner]!.allocateNodes?.(allocation);
   const nodeCount = labels.length;
   branchesOpen = true;
-  for (const d of devices) d.allocateBranches?.(allocation);
+  for (owner = 0; owner < devices.length; owner++) devices[owner]!.allocateBranches?.(allocation);
   const n = labels.length;
   nodeIndex.set(GROUND, n);
 
-  const rows: number[] = [];
-  const cols: number[] = [];
-  const requests: { target: Int32Array; first: number }[] = [];
+  // Slot requests land in chunks of one shared store, in request order: each device keeps a view
+  // on its part, and one pass over the store fills every view once the pattern is compressed.
+  const triplets = new TripletBuffer();
+  const store = new SlotStore();
   const bind: BindContext = {
+    ...lookups(nodeIndex, branchIndex),
+    slots(pairs) {
+      for (let t = 0; t < pairs.length; t += 2) triplets.push(pairs[t]!, pairs[t + 1]!);
+      return store.take(pairs.length >> 1);
+    },
+  };
+  for (const d of devices) d.bind(bind);
+  const diagonalPairs = new Array<number>(2 * nodeCount);
+  for (let i = 0; i < 2 * nodeCount; i++) diagonalPairs[i] = i >> 1;
+  const diagonalRequest = bind.slots(diagonalPairs);
+
+  // Ground rows and columns go to the trash slot nnz; the rest are compressed.
+  const { pattern, slots } = compressPattern(n, triplets.rows, triplets.cols, triplets.count);
+  const nnz = pattern.Ai.length;
+  store.fill(slots);
+
+  const elementsAt = once(() => elementsTouching(records, labels, nodeIndex, branchIndex, n));
+  const deviceIndex = new Map<string, number>();
+  for (let k = 0; k < devices.length; k++) deviceIndex.set(devices[k]!.name, k);
+  return {
+    n,
+    nodeCount,
+    labels,
+    nodeIndex,
+    devices,
+    deviceIndex,
+    deviceByName: deviceLookup(deviceIndex, devices),
+    branchIndex,
+    pattern,
+    nnz,
+    nodeDiagonal: diagonalRequest,
+    nonlinear: devices.some((d) => d.nonlinear),
+    get elementsAt() {
+      return elementsAt();
+    },
+    records,
+    allocations,
+    ordering: { symbolic: null },
+  };
+}
+
+/** The name lookups of a bind context: node and branch-current unknowns by name. */
+function lookups(
+  nodeIndex: ReadonlyMap<string, number>,
+  branchIndex: ReadonlyMap<string, number>,
+): Pick<BindContext, 'node' | 'branchOf'> {
+  return {
     node(name) {
       const k = nodeIndex.get(name);
       if (k === undefined) throw new Error(`node '${name}' was not numbered`);
@@ -92,36 +181,26 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
       if (k === undefined) throw unknownElement(name, 'it has no current unknown');
       return k;
     },
-    slots(pairs) {
-      const target = new Int32Array(pairs.length / 2);
-      requests.push({ target, first: rows.length });
-      for (let t = 0; t < pairs.length; t += 2) {
-        rows.push(pairs[t]!);
-        cols.push(pairs[t + 1]!);
-      }
-      return target;
-    },
   };
-  for (const d of devices) d.bind(bind);
-  const diagonalRequest = bind.slots(Array.from({ length: nodeCount * 2 }, (_, i) => i >> 1));
+}
 
-  // Ground rows and columns go to the trash slot nnz; the rest are compressed.
-  const kept: number[] = [];
-  for (let t = 0; t < rows.length; t++) if (rows[t]! < n && cols[t]! < n) kept.push(t);
-  const { pattern, slots } = compressPattern(
-    n,
-    kept.map((t) => rows[t]!),
-    kept.map((t) => cols[t]!),
-  );
-  const nnz = pattern.Ai.length;
-  const slotOfTriplet = new Int32Array(rows.length).fill(nnz);
-  kept.forEach((t, k) => {
-    slotOfTriplet[t] = slots[k]!;
-  });
-  for (const { target, first } of requests) {
-    for (let k = 0; k < target.length; k++) target[k] = slotOfTriplet[first + k]!;
-  }
+/** A function that computes `make()` on its first call and returns that value ever after. */
+function once<T>(make: () => T): () => T {
+  let value: T | undefined;
+  return () => {
+    value ??= make();
+    return value;
+  };
+}
 
+/** Names of the elements touching each unknown, for messages about singular rows and residuals. */
+function elementsTouching(
+  records: readonly ElementRecord[],
+  labels: readonly UnknownLabel[],
+  nodeIndex: ReadonlyMap<string, number>,
+  branchIndex: ReadonlyMap<string, number>,
+  n: number,
+): string[][] {
   const elementsAt: string[][] = labels.map(() => []);
   for (const record of records) {
     for (const [, node] of terminalsOf(record)) {
@@ -137,20 +216,161 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
   labels.forEach((label, k) => {
     if (label.kind === 'node' && label.name.includes('#')) elementsAt[k]!.push(label.name.split('#')[0]!);
   });
+  return elementsAt;
+}
 
+/** Growable (row, column) triplet arrays. */
+class TripletBuffer {
+  rows = new Int32Array(1024);
+  cols = new Int32Array(1024);
+  count = 0;
+  push(row: number, col: number): void {
+    if (this.count === this.rows.length) {
+      const rows = new Int32Array(2 * this.count);
+      const cols = new Int32Array(2 * this.count);
+      rows.set(this.rows);
+      cols.set(this.cols);
+      this.rows = rows;
+      this.cols = cols;
+    }
+    this.rows[this.count] = row;
+    this.cols[this.count] = col;
+    this.count++;
+  }
+}
+
+/**
+ * Slot arrays handed to devices as views on a few large chunks, in request order, so that binding
+ * allocates no array per device and one pass fills them all.
+ */
+class SlotStore {
+  static readonly CHUNK = 1 << 16;
+  readonly #chunks: Int32Array[] = [];
+  readonly #used: number[] = [];
+  take(length: number): Int32Array {
+    let last = this.#chunks.length - 1;
+    if (last < 0 || this.#used[last]! + length > this.#chunks[last]!.length) {
+      this.#chunks.push(new Int32Array(Math.max(SlotStore.CHUNK, length)));
+      this.#used.push(0);
+      last++;
+    }
+    const start = this.#used[last]!;
+    this.#used[last] = start + length;
+    return this.#chunks[last]!.subarray(start, start + length);
+  }
+  /** Write slots[t] into the t-th slot taken. */
+  fill(slots: Int32Array): void {
+    let t = 0;
+    for (let c = 0; c < this.#chunks.length; c++) {
+      const chunk = this.#chunks[c]!;
+      const used = this.#used[c]!;
+      for (let k = 0; k < used; k++) chunk[k] = slots[t++]!;
+    }
+  }
+}
+
+/**
+ * The system with the records of some elements replaced by records of the same topology (new values),
+ * without compiling again: each new device numbers the same internal unknowns as the one it replaces
+ * and takes its slots from the existing pattern. Returns null when a record changes the topology (it
+ * asks for other unknowns or for a matrix entry the pattern lacks): the caller compiles afresh.
+ */
+export function withRecords(
+  system: CompiledSystem,
+  changed: readonly ElementRecord[],
+): CompiledSystem | null {
+  const devices = system.devices.slice();
+  const records = system.records.slice();
+  for (const record of changed) {
+    const k = system.deviceIndex.get(record.name);
+    if (k === undefined) return null;
+    const device = rebind(system, k, record);
+    if (device === null) return null;
+    devices[k] = device;
+    records[k] = record;
+  }
   return {
-    n,
-    nodeCount,
-    labels,
-    nodeIndex,
+    n: system.n,
+    nodeCount: system.nodeCount,
+    labels: system.labels,
+    nodeIndex: system.nodeIndex,
     devices,
-    deviceByName: new Map(devices.map((d) => [d.name, d])),
-    branchIndex,
-    pattern,
-    nnz,
-    nodeDiagonal: diagonalRequest,
+    deviceIndex: system.deviceIndex,
+    deviceByName: deviceLookup(system.deviceIndex, devices),
+    branchIndex: system.branchIndex,
+    pattern: system.pattern,
+    nnz: system.nnz,
+    nodeDiagonal: system.nodeDiagonal,
     nonlinear: devices.some((d) => d.nonlinear),
-    elementsAt,
+    // Values do not change which elements touch an unknown.
+    get elementsAt() {
+      return system.elementsAt;
+    },
     records,
+    allocations: system.allocations,
+    ordering: system.ordering,
   };
+}
+
+/**
+ * A device for `record` (element number k of `system`, with other values) bound into the existing
+ * numbering and pattern, or null if it does not fit (it asks for other unknowns or entries).
+ */
+export function rebind(system: CompiledSystem, k: number, record: ElementRecord): Device | null {
+  const device = createDevice(record);
+  const recorded = system.allocations[k]!;
+  const { labels, nodeIndex, branchIndex, pattern, nnz, n } = system;
+  let cursor = 0;
+  let fits = true;
+  const replay = (kind: UnknownLabel['kind'], name: string): number => {
+    const index = recorded[cursor++];
+    const label = index === undefined ? undefined : labels[index];
+    if (label === undefined || label.kind !== kind || label.name !== name) {
+      fits = false;
+      return n;
+    }
+    return index!;
+  };
+  const allocation: AllocationContext = {
+    node: (name) => nodeIndex.get(name) ?? -1,
+    internalNode: (owner, label) => replay('node', `${owner}#${label}`),
+    branch: (owner) => replay('branch', owner),
+  };
+  device.allocateNodes?.(allocation);
+  device.allocateBranches?.(allocation);
+  if (!fits || cursor !== recorded.length) return null;
+  const { Ap, Ai } = pattern;
+  const bind: BindContext = {
+    ...lookups(nodeIndex, branchIndex),
+    slots(pairs) {
+      const target = new Int32Array(pairs.length / 2);
+      for (let t = 0; t < target.length; t++) {
+        const i = pairs[2 * t]!;
+        const j = pairs[2 * t + 1]!;
+        if (i >= n || j >= n) {
+          target[t] = nnz;
+          continue;
+        }
+        // Rows are sorted within each column of the pattern.
+        let lo = Ap[j]!;
+        let hi = Ap[j + 1]! - 1;
+        let found = -1;
+        while (lo <= hi) {
+          const mid = (lo + hi) >> 1;
+          const row = Ai[mid]!;
+          if (row === i) {
+            found = mid;
+            break;
+          }
+          if (row < i) lo = mid + 1;
+          else hi = mid - 1;
+        }
+        if (found < 0) fits = false;
+        target[t] = found < 0 ? nnz : found;
+      }
+      return target;
+    },
+  };
+  device.bind(bind);
+  return fits ? device : null;
 }

@@ -12,6 +12,7 @@ export {
   type JunctionLinearityJson,
   type LinearityReportJson,
   linearityToJson,
+  type OutputLinearityJson,
   type PhasorsJson,
 } from '../analysis/result-json.js';
 export { type AcReportOptions, acTable, formatAcAnalysis, probeLabel } from './ac-table.js';

@@ -14,6 +14,7 @@ import {
   checkNodeVoltage,
   type VoltageCheckOptions,
 } from './check.js';
+import { checkOutputWithinBudget, type OutputBudgetOptions } from './linearity-checks.js';
 import {
   checkGain,
   checkJunctionWithinBudget,
@@ -156,4 +157,20 @@ export function assertJunctionWithinBudget(
   options?: JunctionBudgetOptions,
 ): void {
   enforce(checkJunctionWithinBudget(report, device, options));
+}
+
+/**
+ * Asserts that the output named in a linearity report stays within a budget (its error bound at most it).
+ *
+ * @param report - a report taken with an output, `linearity(ac, { output })`
+ * @param options - a budget other than the report's
+ * @throws QuiescentAssertionError when the output exceeds the budget
+ * @throws QuiescentError `invalid-value` for a report without an output
+ * @example
+ * ```ts no-run
+ * assertOutputWithinBudget(linearity(ac, { output: 'out' }), { budget: 0.01 });
+ * ```
+ */
+export function assertOutputWithinBudget(report: LinearityReport, options?: OutputBudgetOptions): void {
+  enforce(checkOutputWithinBudget(report, options));
 }

@@ -177,8 +177,10 @@ export function checkDeviceRegion(
   const bias =
     report.kind === 'bjt'
       ? `vbe ${formatValue(report.vbe, 'V', { digits: 4 })}, vbc ${formatValue(report.vbc, 'V', { digits: 4 })}`
-      : `vgs ${formatValue(report.vgs, 'V', { digits: 4 })}, vds ${formatValue(report.vds, 'V', { digits: 4 })}, ` +
-        `Vth ${formatValue(report.thresholdVoltage, 'V', { digits: 4 })}`;
+      : report.kind === 'op-amp'
+        ? `input ${formatValue(report.differentialInput, 'V', { digits: 4 })}, output ${formatValue(report.outputVoltage, 'V', { digits: 4 })}`
+        : `vgs ${formatValue(report.vgs, 'V', { digits: 4 })}, vds ${formatValue(report.vds, 'V', { digits: 4 })}, ` +
+          `Vth ${formatValue(report.thresholdVoltage, 'V', { digits: 4 })}`;
   return {
     pass: report.region === region,
     subject: `region of ${device}`,

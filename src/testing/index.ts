@@ -12,6 +12,7 @@ export {
   assertGain,
   assertJunctionWithinBudget,
   assertNodeVoltage,
+  assertOutputWithinBudget,
   assertPhase,
 } from './assertions.js';
 export {
@@ -24,6 +25,7 @@ export {
   compare,
   type VoltageCheckOptions,
 } from './check.js';
+export { checkOutputWithinBudget, type OutputBudgetOptions } from './linearity-checks.js';
 export {
   type MatcherContext,
   type MatcherOutcome,

@@ -15,6 +15,7 @@ import {
   checkNodeVoltage,
   type VoltageCheckOptions,
 } from './check.js';
+import { checkOutputWithinBudget, type OutputBudgetOptions } from './linearity-checks.js';
 import {
   checkGain,
   checkJunctionWithinBudget,
@@ -67,6 +68,8 @@ export interface QuiescentMatchers<R = unknown> {
   toHavePhase(at: ResponsePoint, expectedDegrees: number, tolerance: Tolerance): R;
   /** The received linearity report has every junction of `device` (or the one named) within budget. */
   toHaveJunctionWithinBudget(device: string, options?: JunctionBudgetOptions): R;
+  /** The received linearity report, taken at an output, has that output within budget. */
+  toHaveOutputWithinBudget(options?: OutputBudgetOptions): R;
 }
 
 /** The outcome for vitest, with a message that fits the negation. */
@@ -153,6 +156,7 @@ function requireLinearityReport(received: unknown, matcher: string): LinearityRe
  * expect(op).toHaveDeviceRegion('Q1', 'forward-active');
  * expect(ac).toHaveGain({ output: 'out', input: 'in', frequency: 1e3 }, 20, { absolute: 0.5 });
  * expect(linearity(ac)).toHaveJunctionWithinBudget('Q1', { junction: 'base-emitter' });
+ * expect(linearity(ac, { output: 'out' })).toHaveOutputWithinBudget({ budget: 0.01 });
  * ```
  */
 export const quiescentMatchers = {
@@ -220,5 +224,14 @@ export const quiescentMatchers = {
   ): MatcherOutcome {
     const report = requireLinearityReport(received, 'toHaveJunctionWithinBudget');
     return outcome(this, checkJunctionWithinBudget(report, device, options));
+  },
+  /** See {@link QuiescentMatchers.toHaveOutputWithinBudget}. */
+  toHaveOutputWithinBudget(
+    this: MatcherContext,
+    received: unknown,
+    options?: OutputBudgetOptions,
+  ): MatcherOutcome {
+    const report = requireLinearityReport(received, 'toHaveOutputWithinBudget');
+    return outcome(this, checkOutputWithinBudget(report, options));
   },
 };

@@ -168,13 +168,20 @@ export function checkJunctionWithinBudget(
   const junctions =
     options.junction ?? (candidates.length === 1 ? worst.junction : `worst junction, ${worst.junction}`);
   const plain = (value: number) => String(Number(value.toPrecision(4)));
+  // A reverse-biased junction swings many n·Vt with almost no current: say so, and point to the output.
+  const reverse = worst.forwardBiased
+    ? ''
+    : `; it is reverse-biased (${formatValue(worst.bias, 'V', { digits: 3 })}), so its current is too small to matter` +
+      (worst.share === undefined
+        ? ': judge the output instead, linearity(ac, { output })'
+        : `: its share of the output's 2nd harmonic is ${plain(100 * worst.share.second)} %`);
   return {
     pass: worst.errorBound <= budget,
     subject: `linearity of ${device} (${junctions})`,
     expected: `error bound ≤ ${plain(budget)}`,
     actual:
       `${plain(worst.errorBound)} at ${formatValue(worst.frequency, 'Hz')} ` +
-      `(amplitude ${formatValue(worst.amplitude, 'V', { digits: 4 })}, x = ${plain(worst.normalized)})`,
+      `(amplitude ${formatValue(worst.amplitude, 'V', { digits: 4 })}, x = ${plain(worst.normalized)})${reverse}`,
     expectedValue: budget,
     actualValue: worst.errorBound,
   };

@@ -8,7 +8,7 @@
 
 /**
  * A unit symbol. The first ten are the units of the quantities a value may carry; `'A/V²'` (the
- * gain factor of a field-effect transistor), `'1/V'` and `'V^½'` are spelled for formatting only,
+ * gain factor of a field-effect transistor), `'1/V'`, `'V^½'`, `'V/K'`, `'V/√Hz'` and `'A/√Hz'` are spelled for formatting only,
  * and {@link parseValue} accepts no symbol for them.
  *
  * @example
@@ -17,7 +17,23 @@
  * formatValue(4700, unit); // '4.7 kΩ'
  * ```
  */
-export type Unit = 'Ω' | 'F' | 'H' | 'V' | 'A' | 'Hz' | 's' | 'S' | 'K' | 'eV' | 'A/V²' | '1/V' | 'V^½';
+export type Unit =
+  | 'Ω'
+  | 'F'
+  | 'H'
+  | 'V'
+  | 'A'
+  | 'Hz'
+  | 's'
+  | 'S'
+  | 'K'
+  | 'eV'
+  | 'A/V²'
+  | '1/V'
+  | 'V^½'
+  | 'V/K'
+  | 'V/√Hz'
+  | 'A/√Hz';
 
 /**
  * Every {@link Unit}, in the order of the type.
@@ -41,6 +57,9 @@ export const UNITS: readonly Unit[] = [
   'A/V²',
   '1/V',
   'V^½',
+  'V/K',
+  'V/√Hz',
+  'A/√Hz',
 ];
 
 const QUANTITIES: Readonly<Record<Unit, string>> = {
@@ -57,6 +76,9 @@ const QUANTITIES: Readonly<Record<Unit, string>> = {
   'A/V²': 'gain factor',
   '1/V': 'reciprocal voltage',
   'V^½': 'square root of voltage',
+  'V/K': 'temperature coefficient of voltage',
+  'V/√Hz': 'voltage noise density',
+  'A/√Hz': 'current noise density',
 };
 
 /**

@@ -9,6 +9,7 @@ import { linearity } from '../../src/analysis/linearity.js';
 import { quasiStaticHarmonics } from '../../src/analysis/quasi-static.js';
 import { Circuit, formatValue, GROUND, operatingPoint, QuiescentError } from '../../src/index.js';
 import { formatLinearity, linearityTables, linearityVerdict } from '../../src/report/linearity-table.js';
+import { commonEmitterStage } from '../support/linearity-circuits.js';
 
 /** Two diodes: D1 at about 1.6 mA behind 20 Ω swings little; D2 at 13 µA behind 100 kΩ swings a lot. */
 function twoDiodes(amplitude: number): Circuit {
@@ -66,5 +67,35 @@ describe('formatLinearity', () => {
   it('refuses a bad number of digits', () => {
     // Source: the report options' range (common practice, no source).
     expect(() => formatLinearity(report, { digits: 0 })).toThrow(QuiescentError);
+  });
+});
+
+describe('formatLinearity with an output', () => {
+  // A degenerated common-emitter stage at 10 mV (test/support/linearity-circuits.ts).
+  const ac = acAnalysis(operatingPoint(commonEmitterStage(0.01, 220)), { frequencies: [1e3, 10e3] });
+  const report = linearity(ac, { output: 'out' });
+  const text = formatLinearity(report);
+
+  it('opens with the output table and closes with a verdict naming the output, its figures and the top contributor', () => {
+    // Source: the report's definitions (docs/linearity.md, "The verdict at an output").
+    const [first] = linearityTables(report);
+    expect(first!.title).toContain('Linearity at v(out)');
+    const verdict = linearityVerdict(report);
+    expect(text.endsWith(verdict)).toBe(true);
+    expect(verdict).toMatch(/^Linear enough at v\(out\): error bound /);
+    expect(verdict).toContain(`${Number((100 * report.output!.secondHarmonic).toPrecision(4))} %`);
+    expect(verdict).toContain('most of it from Q1');
+    expect(verdict).toContain(String(Number(report.maxInputScale.toPrecision(4))));
+  });
+
+  it('keeps the junction rows, the reverse-biased one described, not condemned', () => {
+    expect(text).toContain('curved (reverse-biased)');
+    expect(text).not.toContain('OVER BUDGET');
+  });
+
+  it('says "not linear enough" at the output when its bound exceeds the budget', () => {
+    const tight = linearity(ac, { output: 'out', budget: 1e-4 });
+    expect(linearityVerdict(tight)).toMatch(/^Not linear enough at v\(out\)/);
+    expect(formatLinearity(tight)).toContain('OVER BUDGET');
   });
 });

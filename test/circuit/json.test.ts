@@ -39,7 +39,8 @@ function everyKind(): Circuit {
     .vccs('G1', [GROUND, 'g'], ['i', GROUND], '1m')
     .resistor('Rg', 'g', GROUND, '1k')
     .ccvs('H1', ['h', GROUND], 'Vcc', 100)
-    .resistor('Rh', 'h', GROUND, '1k')
+    .loopProbe('sense', 'h', 'hs')
+    .resistor('Rh', 'hs', GROUND, '1k')
     .cccs('F1', [GROUND, 'f'], 'L1', 2)
     .resistor('Rf', 'f', GROUND, '1k')
     .opAmp('U1', { plus: 'i', minus: 'u1', output: 'u1' })
@@ -114,7 +115,7 @@ describe('Circuit JSON documents', () => {
       // ECMA-404, 2017: JSON text carries strings, finite numbers, objects and arrays unchanged
       const original = everyKind();
       const kinds = new Set(original.elements.map((e) => e.kind));
-      expect(kinds.size).toBe(13);
+      expect(kinds.size).toBe(14);
       const rebuilt = Circuit.fromJSON(throughText(original));
       expect(rebuilt.toJSON()).toEqual(original.toJSON());
       expect(rebuilt.elements).toEqual(original.elements);

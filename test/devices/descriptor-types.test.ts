@@ -39,7 +39,7 @@ describe('the registry of element kinds', () => {
 
   it('holds one descriptor per kind, each under its own name', () => {
     for (const kind of ELEMENT_KINDS) expect(KINDS[kind].kind).toBe(kind);
-    expect(ELEMENT_KINDS).toHaveLength(13);
+    expect(ELEMENT_KINDS).toHaveLength(14);
   });
 
   it('names every terminal field of a kind in its JSON fields', () => {

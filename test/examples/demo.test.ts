@@ -14,6 +14,8 @@ describe('the demo', () => {
     expect(text).toContain('Node voltages (to ground)');
     expect(text).toContain('Small-signal gain relative to v(electrode)');
     expect(text).toContain('Junction linearity');
+    expect(text).toContain('Linearity at v(detector)');
+    expect(text).toMatch(/Linear enough at v\(detector\)/);
   });
 
   it('writes a Bode plot and a sweep plot as SVG', () => {

@@ -27,7 +27,8 @@ function terminalCurrents(circuit: Circuit, op: OperatingPoint, name: string): [
         [e.minus, -i],
       ];
     }
-    case 'current-source': {
+    case 'current-source':
+    case 'loop-probe': {
       const i = op.current(name);
       return [
         [e.from, i],

@@ -38,6 +38,23 @@ export interface BjtModel {
   saturationCurrentTemperatureExponent?: Value;
   /** The temperature, in K, at which `saturationCurrent` is given (default 300.15). */
   referenceTemperature?: Value;
+  /** Flicker noise coefficient K_f, in A^(2 − flickerExponent): the 1/f noise PSD is K_f·|i|^a_f/f (default 0: none). */
+  flickerCoefficient?: Value;
+  /** Flicker noise exponent a_f of the current in the 1/f noise PSD (default 1). */
+  flickerExponent?: Value;
+  /** Ohmic resistance in series with the base, in Ω, through an internal node (default 0: none). */
+  baseResistance?: Value;
+  /** Ohmic resistance in series with the collector, in Ω, through an internal node (default 0: none). */
+  collectorResistance?: Value;
+  /** Ohmic resistance in series with the emitter, in Ω, through an internal node (default 0: none). */
+  emitterResistance?: Value;
+  /**
+   * The forward knee current of high injection, in A (default Infinity: none): the transport current
+   * is divided by q_h = ½·(1 + √(1 + 4·Is·(e_f − 1)/kneeCurrent)), so β falls at high current.
+   */
+  kneeCurrent?: Value;
+  /** The temperature exponent of βF and βR: β(T) = β·(T/Tref)^exponent (default 0). */
+  betaTemperatureExponent?: Value;
 }
 
 /** Parameter table of the bipolar transistor (polarity excluded). */
@@ -58,4 +75,11 @@ export const BJT_PARAMETERS: ParameterTable<Exclude<keyof BjtModel, 'polarity'>>
   bandgap: { unit: 'eV', defaultValue: 1.12, range: 'positive' },
   saturationCurrentTemperatureExponent: { unit: 'none', defaultValue: 3, range: 'any' },
   referenceTemperature: { unit: 'K', defaultValue: 300.15, range: 'positive' },
+  flickerCoefficient: { unit: 'none', defaultValue: 0, range: 'non-negative' },
+  flickerExponent: { unit: 'none', defaultValue: 1, range: 'positive' },
+  baseResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
+  collectorResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
+  emitterResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
+  kneeCurrent: { unit: 'A', defaultValue: Number.POSITIVE_INFINITY, range: 'positive-or-infinite' },
+  betaTemperatureExponent: { unit: 'none', defaultValue: 0, range: 'any' },
 };

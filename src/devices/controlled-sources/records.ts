@@ -46,7 +46,7 @@ export interface CcvsRecord {
   readonly outPlus: string;
   /** The negative output node. */
   readonly outMinus: string;
-  /** The element whose current controls the source (a voltage source, inductor, vcvs or ccvs). */
+  /** The element whose current controls the source (a voltage source, inductor, vcvs, ccvs or loop probe). */
   readonly control: string;
   /** Transresistance in Ω: v(out) = transresistance · i(control). */
   readonly transresistance: number;
@@ -62,7 +62,7 @@ export interface CccsRecord {
   readonly outFrom: string;
   /** The output node the current is delivered into. */
   readonly outTo: string;
-  /** The element whose current controls the source (a voltage source, inductor, vcvs or ccvs). */
+  /** The element whose current controls the source (a voltage source, inductor, vcvs, ccvs or loop probe). */
   readonly control: string;
   /** Current gain: the output current is gain · i(control). */
   readonly gain: number;

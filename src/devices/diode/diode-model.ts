@@ -30,6 +30,10 @@ export interface DiodeModel {
   saturationCurrentTemperatureExponent?: Value;
   /** The temperature, in K, at which `saturationCurrent` is given (default 300.15). */
   referenceTemperature?: Value;
+  /** Flicker noise coefficient K_f, in A^(2 − flickerExponent): the 1/f noise PSD is K_f·|i|^a_f/f (default 0: none). */
+  flickerCoefficient?: Value;
+  /** Flicker noise exponent a_f of the current in the 1/f noise PSD (default 1). */
+  flickerExponent?: Value;
 }
 
 /** Parameter table of the diode: units, defaults and admissible ranges. */
@@ -45,4 +49,6 @@ export const DIODE_PARAMETERS: ParameterTable<keyof DiodeModel> = {
   bandgap: { unit: 'eV', defaultValue: 1.12, range: 'positive' },
   saturationCurrentTemperatureExponent: { unit: 'none', defaultValue: 3, range: 'any' },
   referenceTemperature: { unit: 'K', defaultValue: 300.15, range: 'positive' },
+  flickerCoefficient: { unit: 'none', defaultValue: 0, range: 'non-negative' },
+  flickerExponent: { unit: 'none', defaultValue: 1, range: 'positive' },
 };

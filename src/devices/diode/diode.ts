@@ -16,6 +16,7 @@ import type {
   Device,
   DeviceReport,
   JunctionProbe,
+  NoiseGenerator,
   NonlinearCurrent,
 } from '../device.js';
 import {
@@ -28,6 +29,7 @@ import {
   limitJunctionStep,
   saturationCurrentAt,
 } from '../junction.js';
+import { flickerNoise, shotNoise, thermalNoise } from '../noise-densities.js';
 import { withDefaults } from '../parameters.js';
 import { addConductance, addCurrent, conductanceSlots } from '../stamp.js';
 import { DIODE_PARAMETERS } from './diode-model.js';
@@ -199,5 +201,31 @@ export class Diode implements Device {
         third: [(forward + reverse) / (nVt * nVt * nVt)],
       },
     ];
+  }
+  /**
+   * Shot noise 2q·(i + 2·Is) of the exponential current i = Is·(e^(v/nVt) − 1) (at rest it is 4q·Is,
+   * the junction's thermal noise) plus 2q·|i_bd| of the breakdown current; flicker noise
+   * K_f·|i|^a_f/f; thermal noise of the series resistance.
+   */
+  noiseGenerators(x: Float64Array, { temperature }: Conditions): readonly NoiseGenerator[] {
+    const p = this.p;
+    const v = x[this.j]! - x[this.c]!;
+    this.evaluate(v);
+    const exponential = this.is * (boundedExp(v / this.nVt) - 1);
+    const bv = this.breakdownVoltage;
+    const breakdown = bv === Number.POSITIVE_INFINITY ? 0 : this.is * boundedExp(-(v + bv) / this.nVt);
+    const shot = shotNoise(exponential + 2 * this.is) + shotNoise(breakdown);
+    const out: NoiseGenerator[] = [
+      { mechanism: 'shot', from: this.j, to: this.c, white: shot, flicker: 0, ownCurrent: true },
+    ];
+    const flicker = flickerNoise(p.flickerCoefficient, p.flickerExponent, this.i);
+    if (flicker > 0) {
+      out.push({ mechanism: 'flicker', from: this.j, to: this.c, white: 0, flicker, ownCurrent: true });
+    }
+    if (p.seriesResistance > 0) {
+      const white = thermalNoise(temperature, p.seriesResistance);
+      out.push({ mechanism: 'thermal', from: this.a, to: this.j, white, flicker: 0 });
+    }
+    return out;
   }
 }

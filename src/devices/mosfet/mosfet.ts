@@ -7,6 +7,10 @@
  *   cutoff (V_ov ≤ 0):           id = 0
  * When vds < 0 the drain and source exchange roles. A pmos obeys the same law in vsg, vsd, vsb with
  * |Vth0|. A small conductance sits across the channel and between body and source.
+ *
+ * With a `slopeFactor` the channel follows the charge-based model of mosfet-charge-model.ts instead,
+ * continuous from weak to strong inversion. Either law takes the temperature laws
+ * Vth0(T) = Vth0 + dVth/dT·(T − Tref) (on the signed threshold) and β(T) = β·(T/Tref)^(−exponent).
  */
 
 import type {
@@ -17,10 +21,18 @@ import type {
   Device,
   DeviceReport,
   JunctionProbe,
+  NoiseGenerator,
   NonlinearCurrent,
 } from '../device.js';
+import { channelThermalNoise, chargeBasedChannelThermalNoise, flickerNoise } from '../noise-densities.js';
 import { withDefaults } from '../parameters.js';
 import { addConductance, conductanceSlots } from '../stamp.js';
+import {
+  type ChargeModelConstants,
+  chargeBasedChannel,
+  chargeBasedCurvature,
+  inversionLevel,
+} from './mosfet-charge-model.js';
 import { defaultThreshold, MOSFET_PARAMETERS } from './mosfet-model.js';
 import type { MosfetRecord } from './record.js';
 
@@ -37,8 +49,17 @@ export class Mosfet implements Device {
   private readonly p: ReturnType<typeof withDefaults<keyof typeof MOSFET_PARAMETERS>>;
   /** +1 for nmos, −1 for pmos. */
   private readonly sign: number;
-  /** |Vth0| in the mirrored frame. */
-  private readonly vth0: number;
+  /** |Vth0| in the mirrored frame, at the analysis temperature. */
+  private vth0: number;
+  /** Vth0 with its sign, as given, at the reference temperature. */
+  private readonly signedThreshold: number;
+  /** β at the analysis temperature. */
+  private beta: number;
+  /** Whether the charge-based model (a slope factor given) replaces the square law. */
+  private readonly chargeBased: boolean;
+  private readonly charge: { -readonly [K in keyof ChargeModelConstants]: number };
+  /** [id, gm, gds, gmb, if, ir] of the last charge-based evaluation. */
+  private readonly chargeState = new Float64Array(6);
   private d = 0;
   private g = 0;
   private s = 0;
@@ -65,7 +86,17 @@ export class Mosfet implements Device {
     this.p = withDefaults(MOSFET_PARAMETERS, record.model);
     this.sign = record.polarity === 'nmos' ? 1 : -1;
     const given = record.model.thresholdVoltage;
-    this.vth0 = this.sign * (given === undefined ? defaultThreshold(record.polarity) : given);
+    this.signedThreshold = given === undefined ? defaultThreshold(record.polarity) : given;
+    this.vth0 = this.sign * this.signedThreshold;
+    this.beta = this.p.gainFactor;
+    this.chargeBased = !Number.isNaN(this.p.slopeFactor);
+    this.charge = {
+      thresholdVoltage: this.vth0,
+      gainFactor: this.beta,
+      slopeFactor: this.p.slopeFactor,
+      channelLengthModulation: this.p.channelLengthModulation,
+      thermalVoltage: Number.NaN,
+    };
   }
   bind(ctx: BindContext): void {
     this.d = ctx.node(this.record.drain);
@@ -80,17 +111,21 @@ export class Mosfet implements Device {
     this.sGs = conductanceSlots(ctx, this.g, this.s);
     this.sGd = conductanceSlots(ctx, this.g, this.d);
   }
-  prepare({ junctionConductance }: Conditions): void {
+  prepare({ temperature, thermalVoltage, junctionConductance }: Conditions): void {
     this.junctionConductance = junctionConductance;
+    // With both temperature parameters at 0 these give the values as given, exactly.
+    const p = this.p;
+    const rise = temperature - p.referenceTemperature;
+    this.vth0 = this.sign * (this.signedThreshold + p.thresholdTemperatureCoefficient * rise);
+    this.beta = p.gainFactor * (temperature / p.referenceTemperature) ** -p.mobilityTemperatureExponent;
+    this.charge.thresholdVoltage = this.vth0;
+    this.charge.gainFactor = this.beta;
+    this.charge.thermalVoltage = thermalVoltage;
   }
   /** The square law for vds ≥ 0 in the mirrored frame; writes id, gm, gds, gmb, vth, regionNow. */
   private channel(vgs: number, vds: number, vbs: number): void {
-    const {
-      gainFactor: beta,
-      channelLengthModulation: lambda,
-      bodyEffect: gamma,
-      surfacePotential: phi,
-    } = this.p;
+    const { channelLengthModulation: lambda, bodyEffect: gamma, surfacePotential: phi } = this.p;
+    const beta = this.beta;
     let root = Math.sqrt(Math.max(phi - vbs, 0));
     let dRootDvbs = 0;
     if (root < MIN_BODY_ROOT) root = MIN_BODY_ROOT;
@@ -120,6 +155,10 @@ export class Mosfet implements Device {
   }
   /** Evaluate at mirrored (vgs, vds, vbs), swapping drain and source when vds < 0. */
   private evaluate(vgs: number, vds: number, vbs: number): void {
+    if (this.chargeBased) {
+      this.evaluateChargeBased(vgs, vds, vbs);
+      return;
+    }
     this.reversed = vds < 0;
     if (!this.reversed) {
       this.channel(vgs, vds, vbs);
@@ -134,6 +173,20 @@ export class Mosfet implements Device {
     this.gm = -fg;
     this.gmb = -fb;
     this.gds = fg + fd + fb;
+  }
+  /**
+   * The charge-based law at mirrored (vgs, vds, vbs): symmetric in drain and source, so no exchange
+   * of roles; `'saturation'` when ir ≤ if/100, else `'triode'` (this model has no cutoff).
+   */
+  private evaluateChargeBased(vgs: number, vds: number, vbs: number): void {
+    const out = chargeBasedChannel(vgs, vds, vbs, this.charge, this.chargeState);
+    this.reversed = false;
+    this.vth = this.vth0;
+    this.id = out[0]!;
+    this.gm = out[1]!;
+    this.gds = out[2]!;
+    this.gmb = out[3]!;
+    this.regionNow = out[5]! <= out[4]! / 100 ? 'saturation' : 'triode';
   }
   private mirrored(x: Float64Array): [number, number, number] {
     const sign = this.sign;
@@ -201,6 +254,7 @@ export class Mosfet implements Device {
     const [vgs, vds, vbs] = this.mirrored(x);
     this.evaluate(vgs, vds, vbs);
     const sign = this.sign;
+    if (this.chargeBased) return this.chargeBasedReport(vgs, vds, vbs);
     return {
       vgs: sign * vgs,
       vds: sign * vds,
@@ -216,10 +270,40 @@ export class Mosfet implements Device {
       overdrive: this.regionNow === 'cutoff' ? 0 : (this.reversed ? vgs - vds : vgs) - this.vth,
     };
   }
+  /**
+   * The charge-based report: the square law's fields (`overdrive` is vgs − Vth0 with its sign, negative
+   * in weak inversion), the inversion level and coefficient if, and g_m/I_D for the g_m/I_D method.
+   */
+  private chargeBasedReport(vgs: number, vds: number, vbs: number): DeviceReport {
+    const sign = this.sign;
+    const state = this.chargeState;
+    const forwardCoefficient = state[4]!;
+    const n = this.p.slopeFactor;
+    return {
+      vgs: sign * vgs,
+      vds: sign * vds,
+      vbs: sign * vbs,
+      id: this.id + this.junctionConductance * vds,
+      gm: this.gm,
+      gds: this.gds,
+      gmb: this.gmb,
+      cgs: this.p.gateSourceCapacitance,
+      cgd: this.p.gateDrainCapacitance,
+      region: this.regionNow,
+      thresholdVoltage: sign * this.vth0,
+      overdrive: vgs - this.vth0,
+      inversion: inversionLevel(forwardCoefficient),
+      inversionCoefficient: forwardCoefficient,
+      // Where id underflows to 0 (far below threshold) g_m/I_D is its weak-inversion limit.
+      gmOverId: this.id > 0 ? this.gm / this.id : 1 / (n * this.charge.thermalVoltage),
+      slopeFactor: n,
+    };
+  }
   junctions(x: Float64Array): readonly JunctionProbe[] {
     const [vgs, vds, vbs] = this.mirrored(x);
     this.evaluate(vgs, vds, vbs);
     if (this.regionNow !== 'saturation') return [];
+    if (this.chargeBased) return [this.chargeBasedProbe(vgs, vds, vbs)];
     const source = this.reversed ? this.d : this.s;
     const vov = (this.reversed ? vgs - vds : vgs) - this.vth;
     return [{ junction: 'channel', plus: this.g, minus: source, scale: vov }];
@@ -236,13 +320,10 @@ export class Mosfet implements Device {
   nonlinearCurrents(x: Float64Array): readonly NonlinearCurrent[] {
     const [vgs, vds, vbs] = this.mirrored(x);
     this.evaluate(vgs, vds, vbs);
+    if (this.chargeBased) return [this.chargeBasedCurrent(vgs, vds, vbs)];
     if (this.regionNow === 'cutoff') return [];
-    const {
-      gainFactor: beta,
-      channelLengthModulation: lambda,
-      bodyEffect: gamma,
-      surfacePotential: phi,
-    } = this.p;
+    const { channelLengthModulation: lambda, bodyEffect: gamma, surfacePotential: phi } = this.p;
+    const beta = this.beta;
     const reversed = this.reversed;
     const g = reversed ? vgs - vds : vgs;
     const d = reversed ? -vds : vds;
@@ -330,5 +411,59 @@ export class Mosfet implements Device {
         third,
       },
     ];
+  }
+  /**
+   * The charge-based channel's probe: scale id/g_m, and the channel current's own Taylor
+   * coefficients in vgs at the bias, i = g1·v + g2·v²/2 + g3·v³/6, normalized to the scale
+   * (second = g2·scale/g1, third = g3·scale²/g1), for the harmonic figures of the linearity report.
+   */
+  private chargeBasedProbe(vgs: number, vds: number, vbs: number): JunctionProbe {
+    const second = new Array<number>(9);
+    const third = new Array<number>(27);
+    chargeBasedCurvature(vgs, vds, vbs, this.charge, second, third);
+    const g1 = this.gm;
+    const scale = this.id / g1;
+    return {
+      junction: 'channel',
+      plus: this.g,
+      minus: this.s,
+      scale,
+      taylor: { second: (second[0]! * scale) / g1, third: (third[0]! * scale * scale) / g1 },
+    };
+  }
+  /** The charge-based channel's nonlinear current, drain to source, controlled by (vgs, vds, vbs). */
+  private chargeBasedCurrent(vgs: number, vds: number, vbs: number): NonlinearCurrent {
+    const second = new Array<number>(9);
+    const third = new Array<number>(27);
+    chargeBasedCurvature(vgs, vds, vbs, this.charge, second, third);
+    const source = this.s;
+    const pair = (node: number) =>
+      this.sign > 0 ? { plus: node, minus: source } : { plus: source, minus: node };
+    const flow = this.sign > 0 ? { from: this.d, to: source } : { from: source, to: this.d };
+    return {
+      junction: 'channel',
+      ...flow,
+      controls: [pair(this.g), pair(this.d), pair(this.bd)],
+      second,
+      third,
+    };
+  }
+  /**
+   * The channel's thermal noise 4kT·(2/3)·β·V_ov·(1 + η + η²)/(1 + η) (η = 1 − v_ds/V_ov in triode, 0 in
+   * saturation; 0 in cutoff) and flicker noise K_f·|id|^a_f/f, both between drain and source.
+   */
+  noiseGenerators(x: Float64Array, { temperature }: Conditions): readonly NoiseGenerator[] {
+    const p = this.p;
+    const [vgs, vds, vbs] = this.mirrored(x);
+    this.evaluate(vgs, vds, vbs);
+    // In the frame of the effective source (the drain when reversed), where v_ds ≥ 0.
+    const overdrive = (this.reversed ? vgs - vds : vgs) - this.vth;
+    const white = this.chargeBased
+      ? chargeBasedChannelThermalNoise(temperature, p.slopeFactor, Math.abs(this.gm), this.chargeState[4]!)
+      : channelThermalNoise(temperature, this.beta, overdrive, Math.abs(vds));
+    const out: NoiseGenerator[] = [{ mechanism: 'thermal', from: this.d, to: this.s, white, flicker: 0 }];
+    const flicker = flickerNoise(p.flickerCoefficient, p.flickerExponent, this.id);
+    if (flicker > 0) out.push({ mechanism: 'flicker', from: this.d, to: this.s, white: 0, flicker });
+    return out;
   }
 }

@@ -18,9 +18,14 @@ export const RESISTOR: KindDescriptor<'resistor'> = {
   values: { resistance: { unit: 'Ω', range: 'positive' } },
   parameters: null,
   parameterField: null,
-  json: { a: 'string', b: 'string', resistance: 'number' },
+  json: { a: 'string', b: 'string', resistance: 'number', 'noiseless?': 'boolean' },
   documentPaths: {},
-  replay: (builder, name, f) => builder.resistor(name, f.a as string, f.b as string, f.resistance as number),
+  replay: (builder, name, f) =>
+    f.noiseless === undefined
+      ? builder.resistor(name, f.a as string, f.b as string, f.resistance as number)
+      : builder.resistor(name, f.a as string, f.b as string, f.resistance as number, {
+          noiseless: f.noiseless,
+        }),
   currentDirection: (r) => `${r.a} → ${r.b}`,
   report: null,
   frequencyAffine: true,

@@ -12,4 +12,6 @@ export interface ResistorRecord {
   readonly b: string;
   /** Resistance in Ω (> 0). */
   readonly resistance: number;
+  /** Present and true when the resistor was built without thermal noise (see docs/noise.md). */
+  readonly noiseless?: true;
 }

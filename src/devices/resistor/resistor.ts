@@ -1,6 +1,14 @@
 /** The resistor: i = (v(a) − v(b))/R at DC and at every frequency. */
 
-import type { AcLoadContext, BindContext, DcLoadContext, Device } from '../device.js';
+import type {
+  AcLoadContext,
+  BindContext,
+  Conditions,
+  DcLoadContext,
+  Device,
+  NoiseGenerator,
+} from '../device.js';
+import { thermalNoise } from '../noise-densities.js';
 import { addConductance, conductanceSlots } from '../stamp.js';
 import type { ResistorRecord } from './record.js';
 
@@ -31,5 +39,11 @@ export class Resistor implements Device {
   acCurrent(xr: Float64Array, xi: Float64Array, _omega: number, _x: Float64Array, out: Float64Array): void {
     out[0] = (xr[this.a]! - xr[this.b]!) / this.record.resistance;
     out[1] = (xi[this.a]! - xi[this.b]!) / this.record.resistance;
+  }
+  /** Thermal noise 4kT/R between its terminals, unless it was built noiseless. */
+  noiseGenerators(_x: Float64Array, { temperature }: Conditions): readonly NoiseGenerator[] {
+    if (this.record.noiseless === true) return [];
+    const white = thermalNoise(temperature, this.record.resistance);
+    return [{ mechanism: 'thermal', from: this.a, to: this.b, white, flicker: 0, ownCurrent: true }];
   }
 }

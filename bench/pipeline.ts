@@ -1,0 +1,174 @@
+/**
+ * `npm run bench:pipeline`: the whole path a user takes, timed on three circuit families
+ * (pipeline-circuits.ts) at about 1,000, 10,000 and 100,000 elements: building the circuit,
+ * compiling it, the first operating point (compile included), a repeated operating point of the
+ * unchanged circuit, the AC analysis per frequency, the linearity report, and the peak memory.
+ * Each case runs in its own Node process, so that peak memory and JIT state belong to that case.
+ *
+ * Output: one JSON line per case with exactly the keys
+ *   family, elements, unknowns, iterations, buildMs, compileMs, firstOperatingPointMs,
+ *   repeatedOperatingPointMs, acPerFrequencyMs, linearityMs, peakRssMb
+ * (times in ms, medians of repeats; peakRssMb is the process's peak resident memory after one pass:
+ * build, operating point, a two-frequency AC analysis and its linearity report).
+ *
+ * Usage: npm run bench:pipeline [-- --families bipolar,mesh,cmos] [--sizes 1000,10000,100000]
+ *                               [--export DIR]
+ * With --export, each case also writes the DC Jacobian at the solution as DIR/<family>-<elements>-dc.mtx
+ * and the AC matrix at the analysis frequency as DIR/<family>-<elements>-ac.mtx (complex), so that an
+ * outside LU can time the floor on the same matrices.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { performance } from 'node:perf_hooks';
+import { fileURLToPath } from 'node:url';
+import { parseArgs } from 'node:util';
+import { AcWorkspace } from '../src/analysis/ac-workspace.js';
+import { preparedFor } from '../src/analysis/prepared.js';
+import { acAnalysis, linearity, operatingPoint } from '../src/index.js';
+import { formatMatrixMarket } from '../src/linalg/index.js';
+import { compileCircuit } from '../src/mna/system.js';
+import { PIPELINE_FAMILIES, type PipelineFamily, pipelineCircuit } from './pipeline-circuits.js';
+
+/** The frequency of the AC and linearity timings, in Hz. */
+const FREQUENCY = 1e3;
+
+const { values } = parseArgs({
+  options: {
+    families: { type: 'string', default: PIPELINE_FAMILIES.join(',') },
+    sizes: { type: 'string', default: '1000,10000,100000' },
+    export: { type: 'string' },
+    case: { type: 'string' },
+  },
+});
+
+function median(samples: number[]): number {
+  const s = samples.slice().sort((a, b) => a - b);
+  const m = s.length >> 1;
+  return s.length % 2 === 1 ? s[m]! : 0.5 * (s[m - 1]! + s[m]!);
+}
+
+/** Time `run` `repeats` times and return the median, in ms. */
+function timed(repeats: number, run: () => void): number {
+  const samples: number[] = [];
+  for (let r = 0; r < repeats; r++) {
+    const t0 = performance.now();
+    run();
+    samples.push(performance.now() - t0);
+  }
+  return median(samples);
+}
+
+function runCase(family: PipelineFamily, size: number, exportDir: string | undefined): void {
+  // Peak memory is that of one pass as a user makes it (build, operating point, a short AC sweep,
+  // the linearity report), read before the timing repeats build more circuits.
+  {
+    const { circuit } = pipelineCircuit(family, size);
+    const op = operatingPoint(circuit);
+    linearity(acAnalysis(op, { frequencies: [FREQUENCY, 2 * FREQUENCY] }));
+  }
+  const peakRssMb = process.resourceUsage().maxRSS / 1024;
+  const repeats = size >= 100_000 ? 3 : size >= 10_000 ? 5 : 11;
+  let built = pipelineCircuit(family, size);
+  const buildMs = timed(repeats, () => {
+    built = pipelineCircuit(family, size);
+  });
+  const { circuit, output } = built;
+  const elements = circuit.elements.length;
+  const compileMs = timed(repeats, () => {
+    compileCircuit(circuit.elements);
+  });
+  // A first call on a fresh circuit (same elements, nothing cached), then repeated calls on one.
+  const fresh = () => pipelineCircuit(family, size).circuit;
+  const firstSamples: number[] = [];
+  for (let r = 0; r < repeats; r++) {
+    const c = fresh();
+    const t0 = performance.now();
+    operatingPoint(c);
+    firstSamples.push(performance.now() - t0);
+  }
+  const firstOperatingPointMs = median(firstSamples);
+  let op = operatingPoint(circuit);
+  const repeatedOperatingPointMs = timed(repeats, () => {
+    op = operatingPoint(circuit);
+  });
+  const count = size >= 100_000 ? 8 : 32;
+  const frequencies = Array.from({ length: count }, (_, k) => FREQUENCY * (1 + k / count));
+  acAnalysis(op, { frequencies });
+  const acPerFrequencyMs = timed(repeats, () => acAnalysis(op, { frequencies })) / count;
+  const single = acAnalysis(op, { frequencies: [FREQUENCY] });
+  const linearityMs = timed(repeats, () => linearity(single));
+  if (exportDir !== undefined) writeMatrices(exportDir, family, elements, circuit, op);
+  console.log(
+    JSON.stringify({
+      family,
+      elements,
+      unknowns: op.system.n,
+      iterations: op.iterations,
+      buildMs: round(buildMs),
+      compileMs: round(compileMs),
+      firstOperatingPointMs: round(firstOperatingPointMs),
+      repeatedOperatingPointMs: round(repeatedOperatingPointMs),
+      acPerFrequencyMs: round(acPerFrequencyMs),
+      linearityMs: round(linearityMs),
+      peakRssMb: round(peakRssMb),
+    }),
+  );
+  void output;
+}
+
+function round(x: number): number {
+  return Number(x.toPrecision(4));
+}
+
+/** Write the DC Jacobian at the solution and the AC matrix at {@link FREQUENCY}. */
+function writeMatrices(
+  dir: string,
+  family: string,
+  elements: number,
+  circuit: Parameters<typeof operatingPoint>[0],
+  op: ReturnType<typeof operatingPoint>,
+): void {
+  mkdirSync(dir, { recursive: true });
+  const prepared = preparedFor(circuit as never);
+  const jacobian = prepared.jacobianAt(op);
+  const pattern = op.system.pattern;
+  const nnz = pattern.Ap[pattern.n]!;
+  writeFileSync(
+    join(dir, `${family}-${elements}-dc.mtx`),
+    formatMatrixMarket(pattern, jacobian.subarray(0, nnz), null),
+  );
+  const ac = new AcWorkspace(op);
+  ac.assembleAt(FREQUENCY);
+  writeFileSync(
+    join(dir, `${family}-${elements}-ac.mtx`),
+    formatMatrixMarket(pattern, ac.Ar.subarray(0, nnz), ac.Ai.subarray(0, nnz)),
+  );
+}
+
+if (values.case !== undefined) {
+  const [family, size] = values.case.split(':');
+  runCase(
+    family as PipelineFamily,
+    Number(size),
+    values.export === undefined ? undefined : resolve(values.export),
+  );
+} else {
+  const families = values.families!.split(',') as PipelineFamily[];
+  for (const f of families) {
+    if (!PIPELINE_FAMILIES.includes(f))
+      throw new Error(`unknown family '${f}' (${PIPELINE_FAMILIES.join(', ')})`);
+  }
+  const sizes = values.sizes!.split(',').map(Number);
+  const self = fileURLToPath(import.meta.url);
+  let failed = 0;
+  for (const family of families) {
+    for (const size of sizes) {
+      const args = ['--import', 'tsx', self, '--case', `${family}:${size}`];
+      if (values.export !== undefined) args.push('--export', resolve(values.export));
+      const run = spawnSync(process.execPath, ['--max-old-space-size=8192', ...args], { stdio: 'inherit' });
+      if (run.status !== 0) failed++;
+    }
+  }
+  process.exit(failed === 0 ? 0 : 1);
+}

@@ -1,0 +1,185 @@
+/**
+ * The prepared circuit: compiled once, reused by every analysis of an unchanged circuit, and solved
+ * again after value changes without compiling. Expected numbers come from closed forms (sources named
+ * beside each check) or from a fresh compile of the same values.
+ */
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import {
+  acAnalysis,
+  Circuit,
+  dcSweep,
+  GROUND,
+  operatingPoint,
+  PreparedCircuit,
+  prepareCircuit,
+} from '../../src/index.js';
+import { compileCount } from '../../src/mna/system.js';
+import { expectQuiescentError } from '../support/quiescent-error.js';
+
+/** A sensor bridge's reference arm: a supply, two resistors and a diode clamp across the lower one. */
+function referenceArm(): Circuit {
+  return new Circuit()
+    .voltageSource('supply', 'top', GROUND, { dc: 5, ac: 1 })
+    .resistor('upper', 'top', 'mid', '10k')
+    .resistor('lower', 'mid', GROUND, '10k')
+    .diode('clamp', 'mid', GROUND, { saturationCurrent: '1p' })
+    .capacitor('filter', 'mid', GROUND, '100n');
+}
+
+describe('the cached compile behind operatingPoint', () => {
+  it('does not compile an unchanged circuit a second time, for any analysis', () => {
+    const circuit = referenceArm();
+    const before = compileCount();
+    const op = operatingPoint(circuit);
+    operatingPoint(circuit);
+    operatingPoint(circuit, { temperature: 320 });
+    dcSweep(circuit, { source: 'supply', values: [1, 2, 3] });
+    acAnalysis(op, { frequencies: [10, 100] });
+    expect(compileCount() - before).toBe(1);
+  });
+
+  it('compiles again once the circuit has changed', () => {
+    const circuit = referenceArm();
+    const before = compileCount();
+    const first = operatingPoint(circuit).voltage('mid');
+    circuit.resistor('load', 'mid', GROUND, '10k');
+    const second = operatingPoint(circuit).voltage('mid');
+    expect(compileCount() - before).toBe(2);
+    // A third 10 kΩ in parallel lowers the divider's Thevenin resistance (common practice, no source).
+    expect(second).toBeLessThan(first);
+  });
+
+  it('gives a repeated solve the same answer as the first, bit for bit', () => {
+    const circuit = referenceArm();
+    const a = operatingPoint(circuit);
+    const b = operatingPoint(circuit);
+    expect(Array.from(b.x)).toEqual(Array.from(a.x));
+  });
+});
+
+describe('prepareCircuit', () => {
+  it('solves a divider after a value change as the closed form says, without compiling again', () => {
+    // v(mid) = V·R2/(R1 + R2) (voltage divider, common practice, no source).
+    const circuit = new Circuit()
+      .voltageSource('supply', 'top', GROUND, { dc: 12 })
+      .resistor('upper', 'top', 'mid', '3k')
+      .resistor('lower', 'mid', GROUND, '1k');
+    const prepared = prepareCircuit(circuit);
+    const before = compileCount();
+    for (const lower of [1e3, 2e3, 5e3, 9e3]) {
+      prepared.setValue('lower', 'resistance', lower);
+      expect(prepared.operatingPoint().voltage('mid')).toBeCloseTo((12 * lower) / (3e3 + lower), 12);
+    }
+    prepared.setValue('supply', 'dc', '6 V');
+    expect(prepared.operatingPoint().voltage('mid')).toBeCloseTo((6 * 9e3) / 12e3, 12);
+    expect(compileCount() - before).toBe(0);
+    expect(prepared.compilations).toBe(1);
+  });
+
+  it('leaves the circuit and earlier results as they were', () => {
+    const circuit = referenceArm();
+    const prepared = prepareCircuit(circuit);
+    const before = prepared.operatingPoint();
+    const mid = before.voltage('mid');
+    prepared.setValue('upper', 'resistance', '1k');
+    const after = prepared.operatingPoint();
+    expect(after.voltage('mid')).toBeGreaterThan(mid);
+    expect(before.voltage('mid')).toBe(mid);
+    expect(before.diode('clamp').current).toBeCloseTo(operatingPoint(circuit).diode('clamp').current, 15);
+    expect(circuit.element('upper')).toMatchObject({ resistance: 10e3 });
+  });
+
+  it('reads values back, model defaults included, and restores them on reset', () => {
+    const prepared = prepareCircuit(referenceArm());
+    expect(prepared.value('clamp', 'emissionCoefficient')).toBe(1);
+    prepared.setValue('clamp', 'emissionCoefficient', 1.8);
+    expect(prepared.value('clamp', 'emissionCoefficient')).toBe(1.8);
+    const changed = prepared.operatingPoint().voltage('mid');
+    prepared.reset();
+    expect(prepared.value('clamp', 'emissionCoefficient')).toBe(1);
+    expect(prepared.operatingPoint().voltage('mid')).not.toBeCloseTo(changed, 3);
+  });
+
+  it('compiles again when a value adds an unknown, and still answers', () => {
+    const prepared = prepareCircuit(referenceArm());
+    prepared.setValue('clamp', 'seriesResistance', 100);
+    expect(prepared.compilations).toBe(2);
+    const op = prepared.operatingPoint();
+    const d = op.diode('clamp');
+    // The series resistance drops i·R between the terminals and the junction (Ohm's law).
+    expect(d.voltage - d.junctionVoltage).toBeCloseTo(d.current * 100, 9);
+  });
+
+  it('is accepted by operatingPoint and by the AC analysis of its operating points', () => {
+    const prepared = prepareCircuit(referenceArm());
+    expect(prepared).toBeInstanceOf(PreparedCircuit);
+    const op = operatingPoint(prepared);
+    const ac = acAnalysis(op, { frequencies: [1] });
+    expect(ac.voltage('mid')[0]!.abs()).toBeGreaterThan(0);
+  });
+
+  it('names the element or parameter it cannot change', () => {
+    const prepared = prepareCircuit(referenceArm());
+    expectQuiescentError(() => prepared.setValue('missing', 'resistance', 1), 'unknown-element', 'missing');
+    expectQuiescentError(() => prepared.setValue('upper', 'capacitance', 1), 'invalid-value', 'upper');
+    expectQuiescentError(() => prepared.setValue('upper', 'resistance', -5), 'invalid-value', 'upper');
+    expectQuiescentError(() => prepared.setValue('clamp', 'saturationCurrent', 0), 'invalid-value', 'clamp');
+  });
+});
+
+describe('value changes on a prepared circuit', () => {
+  /** A ladder of resistors with a diode at every rung: random values, one topology. */
+  const ladderValues = fc.record({
+    supply: fc.double({ min: -10, max: 10, noNaN: true }),
+    series: fc.array(fc.double({ min: 10, max: 1e5, noNaN: true }), { minLength: 4, maxLength: 4 }),
+    shunt: fc.array(fc.double({ min: 10, max: 1e5, noNaN: true }), { minLength: 4, maxLength: 4 }),
+    saturation: fc.array(fc.double({ min: 1e-15, max: 1e-9, noNaN: true }), { minLength: 4, maxLength: 4 }),
+  });
+  type Ladder = typeof ladderValues extends fc.Arbitrary<infer T> ? T : never;
+
+  function ladder(v: Ladder): Circuit {
+    const c = new Circuit().voltageSource('supply', 'n0', GROUND, { dc: v.supply });
+    for (let k = 0; k < 4; k++) {
+      c.resistor(`series${k}`, `n${k}`, `n${k + 1}`, v.series[k]!)
+        .resistor(`shunt${k}`, `n${k + 1}`, GROUND, v.shunt[k]!)
+        .diode(`rung${k}`, `n${k + 1}`, GROUND, { saturationCurrent: v.saturation[k]! });
+    }
+    return c;
+  }
+
+  it('give the same answers as a fresh compile of the changed circuit', () => {
+    // Property (common practice, no source): a value change must be indistinguishable from
+    // building the circuit with that value.
+    const prepared = prepareCircuit(
+      ladder({
+        supply: 1,
+        series: [1, 1, 1, 1],
+        shunt: [1, 1, 1, 1],
+        saturation: [1e-14, 1e-14, 1e-14, 1e-14],
+      }),
+    );
+    fc.assert(
+      fc.property(ladderValues, (v) => {
+        prepared.setValue('supply', 'dc', v.supply);
+        for (let k = 0; k < 4; k++) {
+          prepared.setValues([
+            { element: `series${k}`, parameter: 'resistance', value: v.series[k]! },
+            { element: `shunt${k}`, parameter: 'resistance', value: v.shunt[k]! },
+            { element: `rung${k}`, parameter: 'saturationCurrent', value: v.saturation[k]! },
+          ]);
+        }
+        const changed = prepared.operatingPoint();
+        const fresh = operatingPoint(ladder(v));
+        for (let k = 1; k <= 4; k++) {
+          const expected = fresh.voltage(`n${k}`);
+          expect(Math.abs(changed.voltage(`n${k}`) - expected)).toBeLessThanOrEqual(
+            1e-6 * Math.abs(expected) + 1e-8,
+          );
+        }
+      }),
+      { seed: 20261204, numRuns: 200 },
+    );
+    expect(prepared.compilations).toBe(1);
+  });
+});
