@@ -454,12 +454,6 @@ function noiselessOption(options: unknown, path: readonly (string | number)[]): 
   return flag === true;
 }
 
-function describe(x: unknown): string {
-  if (typeof x === 'string') return JSON.stringify(x);
-  if (x === null) return 'null';
-  return typeof x;
-}
-
 function node(x: unknown, path: readonly (string | number)[]): string {
   if (typeof x !== 'string' || x.length === 0) {
     throw invalidCircuit(path, { kind: 'not-a-name', what: 'node', got: describeGiven(x) });
