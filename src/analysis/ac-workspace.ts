@@ -8,7 +8,6 @@
  * once, at ω = 0 and ω = 1, and each frequency only forms G + jωC and restamps the few devices whose
  * admittance is not of that form (the op-amp's pole). The nonlinear models are evaluated once per sweep.
  */
-
 import type { AcLoadContext, Device } from '../devices/device.js';
 import { KINDS } from '../devices/registry.js';
 import { createComplexSolver, type SparseComplexSolver } from '../linalg/index.js';
