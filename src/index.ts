@@ -64,6 +64,13 @@ export {
   zeros,
 } from './analysis/natural-frequencies.js';
 export { Noise, type NoiseContribution, type NoiseOptions, noise } from './analysis/noise.js';
+export {
+  type NoiseContributionJson,
+  type NoiseFigureJson,
+  type NoiseInputJson,
+  type NoiseJson,
+  noiseToJson,
+} from './analysis/noise-json.js';
 export { OperatingPoint } from './analysis/operating-point.js';
 export { DEFAULT_TEMPERATURE, type OperatingPointOptions } from './analysis/options.js';
 export { type Port, portImpedance } from './analysis/port-impedance.js';
@@ -158,19 +165,21 @@ export {
   type VoltageSourceRecord,
 } from './circuit/elements.js';
 export { type CircuitDocument, DOCUMENT_FORMAT, DOCUMENT_VERSION } from './circuit/json.js';
-export type { BjtModel } from './devices/bjt-model.js';
+export type { BjtModel } from './devices/bjt/bjt-model.js';
 export type { NoiseMechanism } from './devices/device.js';
-export type { DiodeModel } from './devices/diode-model.js';
+export type { DiodeModel } from './devices/diode/diode-model.js';
 export { BOLTZMANN, ELEMENTARY_CHARGE, thermalVoltage } from './devices/junction.js';
-export type { MosfetModel } from './devices/mosfet-model.js';
-export type { OpAmpOptions } from './devices/op-amp-model.js';
+export type { MosfetModel } from './devices/mosfet/mosfet-model.js';
+export type { OpAmpOptions } from './devices/op-amp/op-amp-model.js';
 export {
+  type CircuitProblem,
   type DetailsOf,
   type ErrorCode,
   type ErrorDetails,
   QuiescentError,
   type ResidualEntry,
   type StrategyAttempt,
+  type ValueRange,
 } from './errors/quiescent-error.js';
 export {
   type BjtEarlyVoltageFitOptions,
@@ -247,13 +256,6 @@ export {
   linearityVerdict,
 } from './report/linearity-table.js';
 export { loopGainPlotSvg } from './report/loop-gain-plot.js';
-export {
-  type NoiseContributionJson,
-  type NoiseFigureJson,
-  type NoiseInputJson,
-  type NoiseJson,
-  noiseToJson,
-} from './report/noise-json.js';
 export { type NoisePlotOptions, noisePlotSvg } from './report/noise-plot.js';
 export { formatNoise, type NoiseReportOptions, noiseTables } from './report/noise-table.js';
 export { formatStabilityReport, rootsTable, stabilityTables } from './report/stability-table.js';

@@ -7,10 +7,6 @@
 import { Complex } from 'complex.js';
 import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
-import type { AcReportOptions } from '../report/ac-table.js';
-import { acAnalysisHtml, bodePlot } from '../report/result-html.js';
-import { type AcAnalysisJson, acAnalysisToJson } from '../report/result-json.js';
-import { type MimeBundle, NOTEBOOK_DISPLAY, type RichOutput } from '../report/rich-output.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { requireInstance } from './arguments.js';
 import { currentReader, type ProbeReader, probeReader, voltageReader } from './distortion-probe.js';
@@ -24,6 +20,7 @@ import {
   type ResponsePeak,
   responsePeak,
 } from './resonance.js';
+import { type AcAnalysisJson, acAnalysisToJson } from './result-json.js';
 
 /** Options of {@link acAnalysis}. */
 export interface AcAnalysisOptions {
@@ -260,21 +257,6 @@ export class AcAnalysis {
   /** Plain data: the frequencies and the phasors of every node voltage and element current. */
   toJSON(): AcAnalysisJson {
     return acAnalysisToJson(this);
-  }
-
-  /** The response table as HTML (options as `acTable`), shown richly by a notebook (docs/reports.md, "Notebooks"). */
-  toHtml(options?: AcReportOptions): RichOutput {
-    return acAnalysisHtml(this, options);
-  }
-
-  /** The Bode plot of output (or output/input) as SVG, shown richly by a notebook. */
-  bodePlot(output: Probe, input?: Probe, title?: string): RichOutput {
-    return bodePlot(this, output, input, title);
-  }
-
-  /** What a notebook kernel shows for this analysis: its response table. */
-  [NOTEBOOK_DISPLAY](): MimeBundle {
-    return this.toHtml()[NOTEBOOK_DISPLAY]();
   }
 
   #ratio(output: Probe, input?: Probe): Complex[] {

@@ -8,32 +8,12 @@
  * once, at ω = 0 and ω = 1, and each frequency only forms G + jωC and restamps the few devices whose
  * admittance is not of that form (the op-amp's pole). The nonlinear models are evaluated once per sweep.
  */
-import type { ElementKind } from '../circuit/elements.js';
 import type { AcLoadContext, Device } from '../devices/device.js';
+import { KINDS } from '../devices/registry.js';
 import { createComplexSolver, type SparseComplexSolver } from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import { singularAt } from './newton.js';
 import type { OperatingPoint } from './operating-point.js';
-
-/**
- * Element kinds whose small-signal stamp is exactly G + jωC (G, C independent of ω) and whose AC
- * excitation does not depend on ω. Any other kind is restamped at every frequency.
- */
-const FREQUENCY_AFFINE_KINDS: ReadonlySet<ElementKind> = new Set<ElementKind>([
-  'resistor',
-  'capacitor',
-  'inductor',
-  'voltage-source',
-  'current-source',
-  'vcvs',
-  'vccs',
-  'ccvs',
-  'cccs',
-  'loop-probe',
-  'diode',
-  'bjt',
-  'mosfet',
-]);
 
 /** Relative residual above which a complex solve is refused as numerically singular. */
 const AC_RESIDUAL_LIMIT = 1e-9;
@@ -85,8 +65,8 @@ export class AcWorkspace {
     this.#solver = createComplexSolver(this.system.pattern, symbolic === null ? {} : { symbolic });
     this.#context = { x: op.x, omega: 0, Ar: this.Ar, Ai: this.Ai, br: this.sourceRe, bi: this.sourceIm };
 
-    const affine = devices.filter((d) => FREQUENCY_AFFINE_KINDS.has(d.record.kind));
-    this.#perFrequency = devices.filter((d) => !FREQUENCY_AFFINE_KINDS.has(d.record.kind));
+    const affine = devices.filter((d) => KINDS[d.record.kind].frequencyAffine);
+    this.#perFrequency = devices.filter((d) => !KINDS[d.record.kind].frequencyAffine);
     for (const d of devices) d.prepare?.(op.conditions);
     // G + jωC is linear in ω: its stamps at ω = 0 and ω = 1 give G and C.
     this.#stampAt(affine, 0);

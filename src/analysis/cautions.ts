@@ -6,7 +6,7 @@
 import { type ElementRecord, GROUND, terminalsOf } from '../circuit/elements.js';
 import type { Conditions } from '../devices/device.js';
 import { EXP_LIMIT } from '../devices/junction.js';
-import { isIdealOpAmp, OP_AMP_PARAMETERS } from '../devices/op-amp-model.js';
+import { isIdealOpAmp, OP_AMP_PARAMETERS } from '../devices/op-amp/op-amp-model.js';
 import { withDefaults } from '../devices/parameters.js';
 import type { CompiledSystem } from '../mna/system.js';
 import { forwardBias } from './junction-bias.js';

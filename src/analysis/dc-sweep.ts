@@ -10,7 +10,6 @@ import type { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
-import { type DcSweepJson, dcSweepToJson } from '../report/result-json.js';
 import { requireCircuit } from './arguments.js';
 import { parameterVariant } from './element-parameters.js';
 import {
@@ -23,6 +22,7 @@ import {
 import { type OperatingPointOptions, resolveOptions } from './options.js';
 import { type PreparedCircuit, preparedFor } from './prepared.js';
 import type { DeviceReport } from './reports.js';
+import { type DcSweepJson, dcSweepToJson } from './result-json.js';
 
 /** The values a sweep steps through, in the order given: any finite numbers. */
 export type SweepValues = readonly number[] | Float64Array;

@@ -5,15 +5,15 @@
  * parameter sweeps and value changes on a prepared circuit share, checked as the builder checks it.
  */
 import type { ElementRecord } from '../circuit/elements.js';
-import { BJT_PARAMETERS } from '../devices/bjt-model.js';
-import { DIODE_PARAMETERS } from '../devices/diode-model.js';
-import { MOSFET_PARAMETERS } from '../devices/mosfet-model.js';
+import { BJT_PARAMETERS } from '../devices/bjt/bjt-model.js';
+import { DIODE_PARAMETERS } from '../devices/diode/diode-model.js';
+import { MOSFET_PARAMETERS } from '../devices/mosfet/mosfet-model.js';
 import {
   checkOpAmpOptions,
   FINITE_MODEL_OPTIONS,
   isIdealOpAmp,
   OP_AMP_PARAMETERS,
-} from '../devices/op-amp-model.js';
+} from '../devices/op-amp/op-amp-model.js';
 import { type ParameterTable, parseParameters } from '../devices/parameters.js';
 import { invalidValue } from '../errors/messages.js';
 import type { QuiescentError } from '../errors/quiescent-error.js';

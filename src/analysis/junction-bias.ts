@@ -4,11 +4,10 @@
  */
 import type { ElementRecord } from '../circuit/elements.js';
 import type { JunctionProbe } from '../devices/device.js';
+import { descriptorOf } from '../devices/registry.js';
 
 /** The DC voltage of `probe` at `x` in its forward sense (anode − cathode, vbe, veb, vgs, vsg …), in V. */
 export function forwardBias(record: ElementRecord, probe: JunctionProbe, x: Float64Array): number {
-  const mirrored =
-    (record.kind === 'bjt' && record.polarity === 'pnp') ||
-    (record.kind === 'mosfet' && record.polarity === 'pmos');
+  const mirrored = descriptorOf(record).mirrored(record);
   return (mirrored ? -1 : 1) * (x[probe.plus]! - x[probe.minus]!);
 }

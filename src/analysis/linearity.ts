@@ -38,13 +38,13 @@ import {
   junctionNonlinearity,
 } from '../math/junction-nonlinearity.js';
 import { taylorAmplitudeForBound, taylorNonlinearity } from '../math/taylor-nonlinearity.js';
-import { type LinearityReportJson, linearityToJson } from '../report/result-json.js';
 import { AcAnalysis, type Probe } from './ac-analysis.js';
 import { requireInstance } from './arguments.js';
 import { HarmonicEstimator, ratio, relativeReal } from './distortion.js';
 import { describeProbe } from './distortion-probe.js';
 import { forwardBias } from './junction-bias.js';
 import { prepareDevices } from './newton.js';
+import { type LinearityReportJson, linearityToJson } from './result-json.js';
 
 /** Default budget of the first-order error bound: 10 % of the linear term. */
 export const DEFAULT_LINEARITY_BUDGET = 0.1;

@@ -8,7 +8,7 @@
  * then 1/(1 + T) = v(to) + i_p, exact for loops that pass signal both ways.
  */
 import { Complex } from 'complex.js';
-import type { LoopProbe } from '../devices/loop-probe.js';
+import type { LoopProbe } from '../devices/loop-probe/loop-probe.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { checkFrequencies } from './frequency-grid.js';

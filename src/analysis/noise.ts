@@ -8,12 +8,12 @@
 
 import type { NoiseGenerator, NoiseMechanism } from '../devices/device.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
-import { type NoiseJson, noiseToJson } from '../report/noise-json.js';
 import type { Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
 import { requireInstance, requireOptions } from './arguments.js';
 import { checkFrequencies } from './frequency-grid.js';
 import { integratePsd } from './noise-integral.js';
+import { type NoiseJson, noiseToJson } from './noise-json.js';
 import { OperatingPoint } from './operating-point.js';
 import { OutputFunctional } from './output-functional.js';
 

@@ -12,7 +12,7 @@
  */
 import type { ElementKind } from '../circuit/elements.js';
 import type { JunctionProbe, NonlinearCurrent } from '../devices/device.js';
-import { addCurrent } from '../mna/stamp.js';
+import { addCurrent } from '../devices/stamp.js';
 import { prepareDevices } from './newton.js';
 import type { OperatingPoint } from './operating-point.js';
 

@@ -8,10 +8,6 @@ import { thermalVoltage } from '../devices/junction.js';
 import { noConvergence, unknownElement, unknownNode } from '../errors/messages.js';
 import type { ResidualEntry, StrategyAttempt } from '../errors/quiescent-error.js';
 import type { CompiledSystem } from '../mna/system.js';
-import { type OperatingPointJson, operatingPointToJson } from '../report/operating-point-json.js';
-import { operatingPointHtml } from '../report/result-html.js';
-import { type MimeBundle, NOTEBOOK_DISPLAY, type RichOutput } from '../report/rich-output.js';
-import type { ReportOptions } from '../report/table.js';
 import { type Caution, cautionsOf } from './cautions.js';
 import {
   measureResidual,
@@ -24,6 +20,7 @@ import {
   solveLinear,
   worstResidualExcess,
 } from './newton.js';
+import { type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
 import type { ResolvedOptions } from './options.js';
 import type { BjtReport, DeviceReport, DiodeReport, MosfetReport, OpAmpReport } from './reports.js';
 
@@ -145,16 +142,6 @@ export class OperatingPoint {
    */
   toJSON(): OperatingPointJson {
     return operatingPointToJson(this);
-  }
-
-  /** The tables of this operating point as HTML, shown richly by a notebook (docs/reports.md, "Notebooks"). */
-  toHtml(options?: ReportOptions): RichOutput {
-    return operatingPointHtml(this, options);
-  }
-
-  /** What a notebook kernel shows for this operating point: its tables. */
-  [NOTEBOOK_DISPLAY](): MimeBundle {
-    return this.toHtml()[NOTEBOOK_DISPLAY]();
   }
 
   #typed(name: string, kind: string): DeviceReport {

@@ -2,14 +2,18 @@
  * The circuit builder. Each method checks its own arguments at once and appends one element record;
  * checks that need the whole circuit run when an analysis starts (see topology.ts).
  */
-import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt-model.js';
-import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode-model.js';
-import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet-model.js';
-import { checkOpAmpOptions, OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp-model.js';
+import { BJT_PARAMETERS, type BjtModel } from '../devices/bjt/bjt-model.js';
+import type { ValueSpec } from '../devices/descriptor.js';
+import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode/diode-model.js';
+import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet/mosfet-model.js';
+import { checkOpAmpOptions, OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
 import { parseParameters } from '../devices/parameters.js';
-import { duplicateName, invalidCircuit, invalidValue } from '../errors/messages.js';
-import { parseValue, type Unit } from '../values/index.js';
+import { KINDS } from '../devices/registry.js';
+import { duplicateName, invalidCircuit, invalidValue, unknownElement } from '../errors/messages.js';
+import { describeGiven } from '../errors/wording.js';
+import type { Unit } from '../values/index.js';
 import { checkMagnitude } from '../values/magnitude.js';
+import { readValue } from '../values/parse.js';
 import type { Value } from '../values/value.js';
 import { type AcExcitation, type ElementRecord, terminalsOf } from './elements.js';
 import { type CircuitDocument, circuitFromJson, circuitToJson } from './json.js';
@@ -120,7 +124,7 @@ export class Circuit {
       name,
       a: node(a, [...path, 'a']),
       b: node(b, [...path, 'b']),
-      resistance: positive(resistance, 'Ω', [...path, 'resistance']),
+      resistance: checked(KINDS.resistor.values.resistance, resistance, [...path, 'resistance']),
       ...(noiseless ? { noiseless: true as const } : {}),
     });
   }
@@ -133,7 +137,7 @@ export class Circuit {
       name,
       a: node(a, [...path, 'a']),
       b: node(b, [...path, 'b']),
-      capacitance: nonNegative(capacitance, 'F', [...path, 'capacitance']),
+      capacitance: checked(KINDS.capacitor.values.capacitance, capacitance, [...path, 'capacitance']),
     });
   }
 
@@ -145,7 +149,7 @@ export class Circuit {
       name,
       a: node(a, [...path, 'a']),
       b: node(b, [...path, 'b']),
-      inductance: nonNegative(inductance, 'H', [...path, 'inductance']),
+      inductance: checked(KINDS.inductor.values.inductance, inductance, [...path, 'inductance']),
     });
   }
 
@@ -155,7 +159,7 @@ export class Circuit {
    */
   voltageSource(name: string, plus: string, minus: string, spec: SourceSpec = {}): this {
     const path = this.#start(name);
-    const { dc, ac } = sourceSpec(spec, 'V', path);
+    const { dc, ac } = sourceSpec(spec, KINDS['voltage-source'].values.dc, path);
     return this.#add({
       kind: 'voltage-source',
       name,
@@ -169,7 +173,7 @@ export class Circuit {
   /** Add an independent current source; its positive value flows from `from`, through the source, into `to`. */
   currentSource(name: string, from: string, to: string, spec: SourceSpec = {}): this {
     const path = this.#start(name);
-    const { dc, ac } = sourceSpec(spec, 'A', path);
+    const { dc, ac } = sourceSpec(spec, KINDS['current-source'].values.dc, path);
     return this.#add({
       kind: 'current-source',
       name,
@@ -192,7 +196,7 @@ export class Circuit {
       outMinus,
       controlPlus,
       controlMinus,
-      gain: finite(gain, undefined, [...path, 'gain']),
+      gain: checked(KINDS.vcvs.values.gain, gain, [...path, 'gain']),
     });
   }
 
@@ -213,7 +217,10 @@ export class Circuit {
       outTo,
       controlPlus,
       controlMinus,
-      transconductance: finite(transconductance, 'S', [...path, 'transconductance']),
+      transconductance: checked(KINDS.vccs.values.transconductance, transconductance, [
+        ...path,
+        'transconductance',
+      ]),
     });
   }
 
@@ -230,7 +237,10 @@ export class Circuit {
       outPlus,
       outMinus,
       control: elementName(control, [...path, 'control']),
-      transresistance: finite(transresistance, 'Ω', [...path, 'transresistance']),
+      transresistance: checked(KINDS.ccvs.values.transresistance, transresistance, [
+        ...path,
+        'transresistance',
+      ]),
     });
   }
 
@@ -244,7 +254,7 @@ export class Circuit {
       outFrom,
       outTo,
       control: elementName(control, [...path, 'control']),
-      gain: finite(gain, undefined, [...path, 'gain']),
+      gain: checked(KINDS.cccs.values.gain, gain, [...path, 'gain']),
     });
   }
 
@@ -332,6 +342,65 @@ export class Circuit {
     });
   }
 
+  /**
+   * Remove the element `name`. Nodes only it touched disappear with it; an element that still names
+   * it (a current-controlled source) is reported when an analysis starts.
+   *
+   * @throws QuiescentError `unknown-element` when the circuit has no element of that name
+   */
+  remove(name: string): this {
+    const index = this.#indexOf(name, ['remove']);
+    this.#elements.splice(index, 1);
+    this.#byName.delete(name);
+    this.#revision++;
+    return this;
+  }
+
+  /**
+   * Replace the element `name` with what `add` adds, in its place in the element order. `add`
+   * receives this circuit and calls its builder methods; the new element may keep the old name.
+   *
+   * @example
+   * ```ts
+   * const c = new Circuit().voltageSource('supply', 'in', GROUND, { dc: 5 }).resistor('load', 'in', GROUND, '1k');
+   * c.replace('load', (circuit) => circuit.resistor('load', 'in', GROUND, '2k'));
+   * ```
+   * @throws QuiescentError `unknown-element` when the circuit has no element of that name; any error
+   *   of the builder call, in which case the circuit is left as it was
+   */
+  replace(name: string, add: (circuit: this) => unknown): this {
+    const index = this.#indexOf(name, ['replace']);
+    const old = this.#elements[index]!;
+    const before = this.#elements.length;
+    this.#elements.splice(index, 1);
+    this.#byName.delete(name);
+    try {
+      add(this);
+    } catch (error) {
+      for (const added of this.#elements.splice(before - 1)) this.#byName.delete(added.name);
+      this.#elements.splice(index, 0, old);
+      this.#byName.set(name, old);
+      throw error;
+    }
+    const added = this.#elements.splice(before - 1);
+    this.#elements.splice(index, 0, ...added);
+    this.#revision++;
+    return this;
+  }
+
+  /**
+   * A copy of the circuit without the elements named (an open-circuited load, say); this circuit is
+   * unchanged. With no names, a plain copy.
+   *
+   * @throws QuiescentError `unknown-element` when a name is not an element of the circuit
+   */
+  without(...names: string[]): Circuit {
+    for (const [i, name] of names.entries()) this.#indexOf(name, ['without', i]);
+    const copy = new Circuit();
+    for (const record of this.#elements) if (!names.includes(record.name)) copy.#add(record);
+    return copy;
+  }
+
   /** The circuit as a plain JSON document (see {@link CircuitDocument}). */
   toJSON(): CircuitDocument {
     return circuitToJson(this.#elements);
@@ -346,10 +415,16 @@ export class Circuit {
 
   #start(name: unknown): string[] {
     if (typeof name !== 'string' || name.length === 0) {
-      throw invalidCircuit(['name'], `an element name must be a non-empty string, not ${describe(name)}`);
+      throw invalidCircuit(['name'], { kind: 'not-a-name', what: 'element', got: describeGiven(name) });
     }
     if (this.#byName.has(name)) throw duplicateName(name);
     return [name];
+  }
+
+  #indexOf(name: unknown, path: readonly (string | number)[]): number {
+    const index = typeof name === 'string' ? this.#elements.findIndex((e) => e.name === name) : -1;
+    if (index < 0) throw unknownElement(String(name), undefined, path);
+    return index;
   }
 
   #add(record: ElementRecord): this {
@@ -367,42 +442,36 @@ export class Circuit {
 function noiselessOption(options: unknown, path: readonly (string | number)[]): boolean {
   if (options === undefined) return false;
   if (options === null || typeof options !== 'object' || Array.isArray(options)) {
-    throw invalidCircuit(path, 'resistor options must be an object { noiseless? }');
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'options', keys: ['noiseless'] });
   }
   for (const key of Object.keys(options)) {
     if (key !== 'noiseless')
-      throw invalidCircuit([...path, key], 'is not a resistor option; the option is noiseless');
+      throw invalidCircuit([...path, key], { kind: 'unknown-key', what: 'option', known: ['noiseless'] });
   }
   const flag = (options as { noiseless?: unknown }).noiseless;
   if (flag !== undefined && typeof flag !== 'boolean') {
-    throw invalidCircuit([...path, 'noiseless'], 'must be true or false');
+    throw invalidCircuit([...path, 'noiseless'], { kind: 'wrong-type', expected: 'boolean' });
   }
   return flag === true;
 }
 
-function describe(x: unknown): string {
-  if (typeof x === 'string') return JSON.stringify(x);
-  if (x === null) return 'null';
-  return typeof x;
-}
-
 function node(x: unknown, path: readonly (string | number)[]): string {
   if (typeof x !== 'string' || x.length === 0) {
-    throw invalidCircuit(path, `a node name must be a non-empty string, not ${describe(x)}`);
+    throw invalidCircuit(path, { kind: 'not-a-name', what: 'node', got: describeGiven(x) });
   }
   return x;
 }
 
 function elementName(x: unknown, path: readonly (string | number)[]): string {
   if (typeof x !== 'string' || x.length === 0) {
-    throw invalidCircuit(path, `must name the controlling element, not ${describe(x)}`);
+    throw invalidCircuit(path, { kind: 'not-a-name', what: 'controlling element', got: describeGiven(x) });
   }
   return x;
 }
 
 function pair(x: unknown, path: readonly (string | number)[]): [string, string] {
   if (!Array.isArray(x) || x.length !== 2) {
-    throw invalidCircuit(path, 'must be a pair of node names [plus, minus]');
+    throw invalidCircuit(path, { kind: 'not-a-pair' });
   }
   return [node(x[0], [...path, 0]), node(x[1], [...path, 1])];
 }
@@ -414,15 +483,16 @@ function terminalObject<K extends string, O extends string = never>(
   optional: readonly O[] = [],
 ): Record<K, string> & Partial<Record<O, string>> {
   if (x === null || typeof x !== 'object' || Array.isArray(x)) {
-    throw invalidCircuit(path, `terminals must be an object with ${required.join(', ')}`);
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'terminals', keys: required });
   }
   const obj = x as Record<string, unknown>;
   for (const key of Object.keys(obj)) {
     if (!(required as readonly string[]).includes(key) && !(optional as readonly string[]).includes(key)) {
-      throw invalidCircuit(
-        [...path, key],
-        `is not a terminal; the terminals are ${[...required, ...optional].join(', ')}`,
-      );
+      throw invalidCircuit([...path, key], {
+        kind: 'unknown-key',
+        what: 'terminal',
+        known: [...required, ...optional],
+      });
     }
   }
   const out: Record<string, string> = {};
@@ -437,71 +507,78 @@ function polarityOf<P extends string>(
   path: readonly (string | number)[],
 ): P {
   if (model === null || typeof model !== 'object') {
-    throw invalidCircuit(path, `a model object with a polarity (${allowed.join(' or ')}) is required`);
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'model', keys: allowed });
   }
   const p = (model as { polarity?: unknown }).polarity;
   if (typeof p !== 'string' || !(allowed as readonly string[]).includes(p)) {
-    throw invalidCircuit(
-      [...path, 'polarity'],
-      `must be ${allowed.map((a) => `'${a}'`).join(' or ')}, not ${describe(p)}`,
-    );
+    throw invalidCircuit([...path, 'polarity'], {
+      kind: 'not-one-of',
+      what: 'polarity',
+      allowed,
+      got: describeGiven(p),
+    });
   }
   return p as P;
 }
 
-function finite(v: unknown, unit: Unit | undefined, path: readonly (string | number)[]): number {
-  if (typeof v !== 'number' && typeof v !== 'string')
-    throw invalidValue(path, v, 'a number or a value string');
+function finite(v: unknown, unit: Unit | 'none', path: readonly (string | number)[]): number {
+  if (typeof v !== 'number' && typeof v !== 'string') throw invalidValue(path, v, { range: 'any', unit });
   // −0 becomes 0: JSON cannot carry the sign of zero, and a round trip must give the same record.
-  const x = parseValue(v, unit, path) || 0;
+  const x = readValue(v, unit, path) || 0;
   checkMagnitude(x, path, v);
   return x;
 }
 
-function positive(v: unknown, unit: Unit, path: readonly (string | number)[]): number {
-  const x = finite(v, unit, path);
-  if (!(x > 0)) throw invalidValue(path, v, `a positive value in ${unit}`);
+/** A value read in its unit and held to its range, as the kind's descriptor gives them. */
+function checked(spec: ValueSpec, v: unknown, path: readonly (string | number)[]): number {
+  const x = finite(v, spec.unit, path);
+  const ok = spec.range === 'positive' ? x > 0 : spec.range === 'non-negative' ? x >= 0 : true;
+  if (!ok) throw invalidValue(path, v, { range: spec.range, unit: spec.unit });
   return x;
 }
 
-function nonNegative(v: unknown, unit: Unit, path: readonly (string | number)[]): number {
-  const x = finite(v, unit, path);
-  if (!(x >= 0)) throw invalidValue(path, v, `a value of 0 or more in ${unit}`);
-  return x;
-}
-
-function sourceSpec(spec: unknown, unit: Unit, path: readonly string[]): { dc: number; ac: AcExcitation } {
+function sourceSpec(
+  spec: unknown,
+  value: ValueSpec,
+  path: readonly string[],
+): { dc: number; ac: AcExcitation } {
   if (spec === null || typeof spec !== 'object' || Array.isArray(spec)) {
-    throw invalidCircuit(path, 'a source takes an object { dc?, ac? }');
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'source' });
   }
   const s = spec as Record<string, unknown>;
   for (const key of Object.keys(s)) {
     if (key !== 'dc' && key !== 'ac')
-      throw invalidCircuit([...path, key], 'is not a source setting; use dc and ac');
+      throw invalidCircuit([...path, key], {
+        kind: 'unknown-key',
+        what: 'source setting',
+        known: ['dc', 'ac'],
+      });
   }
-  const dc = s.dc === undefined ? 0 : finite(s.dc, unit, [...path, 'dc']);
+  const dc = s.dc === undefined ? 0 : checked(value, s.dc, [...path, 'dc']);
+  const magnitude = { unit: value.unit, range: 'non-negative' } as const;
   let ac: AcExcitation = { magnitude: 0, phase: 0 };
   if (s.ac !== undefined) {
     if (typeof s.ac === 'number' || typeof s.ac === 'string') {
-      ac = { magnitude: nonNegative(s.ac, unit, [...path, 'ac']), phase: 0 };
+      ac = { magnitude: checked(magnitude, s.ac, [...path, 'ac']), phase: 0 };
     } else if (s.ac !== null && typeof s.ac === 'object' && !Array.isArray(s.ac)) {
       const a = s.ac as Record<string, unknown>;
       for (const key of Object.keys(a)) {
         if (key !== 'magnitude' && key !== 'phase') {
-          throw invalidCircuit(
-            [...path, 'ac', key],
-            'is not an AC setting; use magnitude and phase (degrees)',
-          );
+          throw invalidCircuit([...path, 'ac', key], {
+            kind: 'unknown-key',
+            what: 'AC setting',
+            known: ['magnitude', 'phase'],
+          });
         }
       }
-      const magnitude = nonNegative(a.magnitude, unit, [...path, 'ac', 'magnitude']);
+      const peak = checked(magnitude, a.magnitude, [...path, 'ac', 'magnitude']);
       const phase = a.phase === undefined ? 0 : a.phase;
       if (typeof phase !== 'number' || !Number.isFinite(phase)) {
         throw invalidValue([...path, 'ac', 'phase'], phase, 'a finite phase in degrees');
       }
-      ac = { magnitude, phase: phase || 0 };
+      ac = { magnitude: peak, phase: phase || 0 };
     } else {
-      throw invalidCircuit([...path, 'ac'], 'must be a magnitude or { magnitude, phase }');
+      throw invalidCircuit([...path, 'ac'], { kind: 'not-an-object', what: 'ac' });
     }
   }
   return { dc, ac };

@@ -2,8 +2,11 @@
  * The JSON form of a circuit: a versioned document of element records. Reading validates every
  * field and replays the builder, so a document is held to exactly the checks a program is.
  */
+
+import { ELEMENT_KINDS, isElementKind, KINDS } from '../devices/registry.js';
 import { invalidCircuit } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
+import { describeGiven, formatPath } from '../errors/wording.js';
 import type { Circuit } from './circuit.js';
 import type { ElementKind, ElementRecord } from './elements.js';
 
@@ -43,51 +46,12 @@ export function circuitToJson(elements: readonly ElementRecord[]): CircuitDocume
   return { format: DOCUMENT_FORMAT, version: DOCUMENT_VERSION, elements: out };
 }
 
-type FieldType = 'string' | 'number' | 'boolean' | 'ac' | 'object' | 'polarity';
-
-/** The fields of each kind of record, with their JSON types; optional fields end in '?'. */
-const FIELDS: Readonly<Record<ElementKind, Readonly<Record<string, FieldType>>>> = {
-  resistor: { a: 'string', b: 'string', resistance: 'number', 'noiseless?': 'boolean' },
-  capacitor: { a: 'string', b: 'string', capacitance: 'number' },
-  inductor: { a: 'string', b: 'string', inductance: 'number' },
-  'voltage-source': { plus: 'string', minus: 'string', 'dc?': 'number', 'ac?': 'ac' },
-  'current-source': { from: 'string', to: 'string', 'dc?': 'number', 'ac?': 'ac' },
-  vcvs: {
-    outPlus: 'string',
-    outMinus: 'string',
-    controlPlus: 'string',
-    controlMinus: 'string',
-    gain: 'number',
-  },
-  vccs: {
-    outFrom: 'string',
-    outTo: 'string',
-    controlPlus: 'string',
-    controlMinus: 'string',
-    transconductance: 'number',
-  },
-  ccvs: { outPlus: 'string', outMinus: 'string', control: 'string', transresistance: 'number' },
-  cccs: { outFrom: 'string', outTo: 'string', control: 'string', gain: 'number' },
-  'loop-probe': { from: 'string', to: 'string' },
-  'op-amp': { plus: 'string', minus: 'string', output: 'string', 'options?': 'object' },
-  diode: { anode: 'string', cathode: 'string', 'model?': 'object' },
-  bjt: { collector: 'string', base: 'string', emitter: 'string', polarity: 'polarity', 'model?': 'object' },
-  mosfet: {
-    drain: 'string',
-    gate: 'string',
-    source: 'string',
-    'body?': 'string',
-    polarity: 'polarity',
-    'model?': 'object',
-  },
-};
-
 function isPlainObject(x: unknown): x is Record<string, unknown> {
   return x !== null && typeof x === 'object' && !Array.isArray(x);
 }
 
 function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (string | number)[]): void {
-  const fields = FIELDS[kind];
+  const fields = KINDS[kind].json;
   const allowed = new Set(['kind', 'name']);
   for (const [spec, type] of Object.entries(fields)) {
     const optional = spec.endsWith('?');
@@ -96,7 +60,7 @@ function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (str
     const present = Object.hasOwn(raw, key);
     if (!present) {
       if (optional) continue;
-      throw invalidCircuit([...path, key], `is missing (a ${kind} needs ${key})`);
+      throw invalidCircuit([...path, key], { kind: 'missing', of: kind });
     }
     const v = raw[key];
     const ok =
@@ -112,143 +76,99 @@ function checkFields(raw: Record<string, unknown>, kind: ElementKind, path: (str
                 ? typeof v === 'number' || isPlainObject(v)
                 : isPlainObject(v);
     if (!ok)
-      throw invalidCircuit(
-        [...path, key],
-        `must be ${type === 'ac' ? 'a number or { magnitude, phase }' : `a ${type === 'polarity' ? 'string' : type}`}`,
-      );
+      throw invalidCircuit([...path, key], {
+        kind: 'wrong-type',
+        expected: type === 'polarity' ? 'string' : type,
+      });
   }
   for (const key of Object.keys(raw)) {
-    if (!allowed.has(key)) throw invalidCircuit([...path, key], `is not a field of a ${kind}`);
+    if (!allowed.has(key))
+      throw invalidCircuit([...path, key], {
+        kind: 'unknown-key',
+        what: 'field',
+        of: kind,
+        known: [...allowed],
+      });
   }
 }
 
 /**
- * Prefix the path of an error raised by the builder with the element's place in the document. The
- * builder's paths start with the element name (except when the name itself is bad) and keep the
- * polarity inside the model, where the document has it as a field of the element.
+ * Move an error raised by the builder to the element's place in the document. The builder's paths
+ * start with the element name (except when the name itself is bad); the kind's descriptor maps its
+ * argument paths to document fields (`out[0]` of a controlled source is `outPlus`), and the
+ * polarity, inside the model for the builder, is a field of the element in the document. The
+ * message is worded again from the moved details, so the path appears once.
  */
-function relocate(error: unknown, path: (string | number)[], name: string): never {
+function relocate(error: unknown, path: (string | number)[], name: string, kind: ElementKind): never {
   if (!(error instanceof QuiescentError)) throw error;
   const d = error.details;
-  const builderPath = 'path' in d && d.path !== undefined ? d.path : [];
-  let inner = builderPath[0] === name ? builderPath.slice(1) : builderPath;
+  if (d.code !== 'invalid-value' && d.code !== 'invalid-circuit' && d.code !== 'unknown-element') throw error;
+  const builderPath = d.path ?? [];
+  let inner: readonly (string | number)[] = builderPath[0] === name ? builderPath.slice(1) : builderPath;
   if (inner.length === 2 && inner[0] === 'model' && inner[1] === 'polarity') inner = ['polarity'];
+  const mapped = KINDS[kind].documentPaths[formatPath(inner)];
+  if (mapped !== undefined) inner = mapped;
   const where = [...path, ...inner];
-  const message = `${where
-    .map((p) => (typeof p === 'number' ? `[${p}]` : `.${p}`))
-    .join('')
-    .slice(1)}: ${error.message}`;
-  if (d.code === 'invalid-value') throw new QuiescentError({ ...d, path: where }, message);
-  if (d.code === 'invalid-circuit') throw new QuiescentError({ ...d, path: where }, message);
-  throw error;
+  if (d.code === 'unknown-element') throw new QuiescentError({ ...d, path: where });
+  throw new QuiescentError({ ...d, path: where, element: name });
 }
 
 /** Validate a document field by field and replay it into `circuit`. */
 export function circuitFromJson(json: unknown, circuit: Circuit): void {
-  if (!isPlainObject(json)) throw invalidCircuit([], 'a circuit document must be a JSON object');
+  if (!isPlainObject(json)) throw invalidCircuit([], { kind: 'not-an-object', what: 'document' });
   for (const key of Object.keys(json)) {
     if (key !== 'format' && key !== 'version' && key !== 'elements') {
-      throw invalidCircuit([key], 'is not a field of a circuit document (format, version, elements)');
+      throw invalidCircuit([key], {
+        kind: 'unknown-key',
+        what: 'document field',
+        known: ['format', 'version', 'elements'],
+      });
     }
   }
   if (json.format !== DOCUMENT_FORMAT) {
-    throw invalidCircuit(['format'], `must be '${DOCUMENT_FORMAT}'`);
+    throw invalidCircuit(['format'], {
+      kind: 'not-one-of',
+      what: 'format',
+      allowed: [DOCUMENT_FORMAT],
+      got: describeGiven(json.format),
+    });
   }
   if (json.version !== DOCUMENT_VERSION) {
-    throw invalidCircuit(
-      ['version'],
-      `version ${String(json.version)} is not supported (this release reads ${DOCUMENT_VERSION})`,
-    );
+    throw invalidCircuit(['version'], {
+      kind: 'unsupported-version',
+      got: String(json.version),
+      supported: DOCUMENT_VERSION,
+    });
   }
-  if (!Array.isArray(json.elements)) throw invalidCircuit(['elements'], 'must be an array of elements');
+  if (!Array.isArray(json.elements))
+    throw invalidCircuit(['elements'], { kind: 'not-an-object', what: 'elements' });
   json.elements.forEach((raw: unknown, i: number) => {
     const path: (string | number)[] = ['elements', i];
-    if (!isPlainObject(raw)) throw invalidCircuit(path, 'must be an object');
+    if (!isPlainObject(raw)) throw invalidCircuit(path, { kind: 'not-an-object', what: 'element' });
     const kind = raw.kind;
-    if (typeof kind !== 'string' || !Object.hasOwn(FIELDS, kind)) {
-      throw invalidCircuit(
-        [...path, 'kind'],
-        `${JSON.stringify(kind)} is not a kind of element (${Object.keys(FIELDS).join(', ')})`,
-      );
+    if (typeof kind !== 'string' || !isElementKind(kind)) {
+      throw invalidCircuit([...path, 'kind'], {
+        kind: 'not-one-of',
+        what: 'kind',
+        allowed: ELEMENT_KINDS,
+        got: String(JSON.stringify(kind)),
+      });
     }
-    if (typeof raw.name !== 'string') throw invalidCircuit([...path, 'name'], 'must be a string');
+    if (typeof raw.name !== 'string')
+      throw invalidCircuit([...path, 'name'], { kind: 'wrong-type', expected: 'string' });
     checkFields(raw, kind as ElementKind, path);
     if (isPlainObject(raw.model) && Object.hasOwn(raw.model, 'polarity')) {
       // The element's own polarity field would silently win over this one.
-      throw invalidCircuit(
-        [...path, 'model', 'polarity'],
-        `is not a model parameter of '${raw.name}'; polarity is a field of the element`,
-      );
+      throw invalidCircuit([...path, 'model', 'polarity'], { kind: 'polarity-in-model' }, raw.name);
     }
     try {
       replay(circuit, kind as ElementKind, raw);
     } catch (error) {
-      relocate(error, path, raw.name);
+      relocate(error, path, raw.name, kind as ElementKind);
     }
   });
 }
 
 function replay(c: Circuit, kind: ElementKind, r: Record<string, unknown>): void {
-  const s = (k: string) => r[k] as string;
-  const n = (k: string) => r[k] as number;
-  const name = s('name');
-  switch (kind) {
-    case 'resistor':
-      if (r.noiseless === undefined) c.resistor(name, s('a'), s('b'), n('resistance'));
-      else c.resistor(name, s('a'), s('b'), n('resistance'), { noiseless: r.noiseless as boolean });
-      return;
-    case 'capacitor':
-      c.capacitor(name, s('a'), s('b'), n('capacitance'));
-      return;
-    case 'inductor':
-      c.inductor(name, s('a'), s('b'), n('inductance'));
-      return;
-    case 'voltage-source':
-    case 'current-source': {
-      const spec: { dc?: number; ac?: number | { magnitude: number; phase?: number } } = {};
-      if (r.dc !== undefined) spec.dc = n('dc');
-      if (r.ac !== undefined) spec.ac = r.ac as number | { magnitude: number; phase?: number };
-      if (kind === 'voltage-source') c.voltageSource(name, s('plus'), s('minus'), spec);
-      else c.currentSource(name, s('from'), s('to'), spec);
-      return;
-    }
-    case 'vcvs':
-      c.vcvs(name, [s('outPlus'), s('outMinus')], [s('controlPlus'), s('controlMinus')], n('gain'));
-      return;
-    case 'vccs':
-      c.vccs(name, [s('outFrom'), s('outTo')], [s('controlPlus'), s('controlMinus')], n('transconductance'));
-      return;
-    case 'ccvs':
-      c.ccvs(name, [s('outPlus'), s('outMinus')], s('control'), n('transresistance'));
-      return;
-    case 'cccs':
-      c.cccs(name, [s('outFrom'), s('outTo')], s('control'), n('gain'));
-      return;
-    case 'loop-probe':
-      c.loopProbe(name, s('from'), s('to'));
-      return;
-    case 'op-amp':
-      if (r.options === undefined) c.opAmp(name, { plus: s('plus'), minus: s('minus'), output: s('output') });
-      else c.opAmp(name, { plus: s('plus'), minus: s('minus'), output: s('output') }, r.options as object);
-      return;
-    case 'diode':
-      c.diode(name, s('anode'), s('cathode'), (r.model ?? {}) as object);
-      return;
-    case 'bjt':
-      c.bjt(name, { collector: s('collector'), base: s('base'), emitter: s('emitter') }, {
-        ...(r.model as object | undefined),
-        polarity: s('polarity'),
-      } as never);
-      return;
-    case 'mosfet': {
-      const terminals: { drain: string; gate: string; source: string; body?: string } = {
-        drain: s('drain'),
-        gate: s('gate'),
-        source: s('source'),
-      };
-      if (r.body !== undefined) terminals.body = s('body');
-      c.mosfet(name, terminals, { ...(r.model as object | undefined), polarity: s('polarity') } as never);
-      return;
-    }
-  }
+  KINDS[kind].replay(c, r.name as string, r);
 }

@@ -3,11 +3,17 @@
  * current unknown, something touches ground, every node has a DC path to ground, and no loop is made
  * of voltage-defined branches alone. Each failure names the nodes and elements involved.
  */
+
+import { descriptorOf, ELEMENT_KINDS, KINDS } from '../devices/registry.js';
 import { floatingNodes, noGround, unknownElement, voltageLoop } from '../errors/messages.js';
 import { type ElementRecord, GROUND, hasCurrentUnknown, terminalsOf } from './elements.js';
 
 /** Node names that people use for ground in other conventions. */
 const GROUND_LIKE = /^(0|gnd|ground|earth|common|com|vss|agnd|dgnd)$/i;
+/** The kinds whose current is an unknown, in words: 'an inductor, a voltage source, a vcvs or a ccvs'. */
+const CURRENT_UNKNOWN_KINDS = ((nouns: string[]) => `${nouns.slice(0, -1).join(', ')} or ${nouns.at(-1)}`)(
+  ELEMENT_KINDS.filter((k) => KINDS[k].currentUnknown).map((k) => KINDS[k].noun),
+);
 
 /** A disjoint-set forest over node indices (union by size, path halving). */
 class DisjointSets {
@@ -40,77 +46,33 @@ class DisjointSets {
 
 /** Pairs of nodes joined by a DC-conducting path inside one element. */
 function dcConnections(e: ElementRecord): readonly (readonly [string, string])[] {
-  switch (e.kind) {
-    case 'resistor':
-    case 'inductor':
-      return [[e.a, e.b]];
-    case 'voltage-source':
-      return [[e.plus, e.minus]];
-    case 'loop-probe':
-      return [[e.from, e.to]];
-    case 'vcvs':
-    case 'ccvs':
-      return [[e.outPlus, e.outMinus]];
-    case 'op-amp':
-      // The output is driven with respect to ground.
-      return [[e.output, GROUND]];
-    case 'diode':
-      return [[e.anode, e.cathode]];
-    case 'bjt':
-      return [
-        [e.base, e.emitter],
-        [e.base, e.collector],
-      ];
-    case 'mosfet':
-      // The channel and the body tie carry a small conductance; the insulated gate carries none.
-      return [
-        [e.drain, e.source],
-        [e.body, e.source],
-      ];
-    case 'capacitor':
-    case 'current-source':
-    case 'vccs':
-    case 'cccs':
-      return [];
-  }
+  return descriptorOf(e).dcPaths(e);
 }
 
-/** Branches whose voltage is imposed: voltage sources, inductors (shorts at DC), controlled-voltage and ideal op-amp outputs. */
+/** The branch whose voltage the element imposes (voltage sources, inductors, driven outputs), if any. */
 function voltageBranch(e: ElementRecord): readonly [string, string] | undefined {
-  switch (e.kind) {
-    case 'voltage-source':
-      return [e.plus, e.minus];
-    case 'inductor':
-      return [e.a, e.b];
-    case 'loop-probe':
-      return [e.from, e.to];
-    case 'vcvs':
-    case 'ccvs':
-      return [e.outPlus, e.outMinus];
-    case 'op-amp':
-      return e.options?.outputResistance ? undefined : [e.output, GROUND];
-    default:
-      return undefined;
-  }
+  return descriptorOf(e).voltageBranch(e);
 }
 
 /** Run every whole-circuit check; throws the first failure in the order of the contract. */
 export function checkTopology(elements: readonly ElementRecord[]): void {
   const byName = new Map(elements.map((e) => [e.name, e] as const));
   for (const e of elements) {
-    if (e.kind === 'ccvs' || e.kind === 'cccs') {
-      const control = byName.get(e.control);
+    const field = descriptorOf(e).controlField;
+    if (field !== null) {
+      const controlName = (e as unknown as Readonly<Record<string, string>>)[field]!;
+      const control = byName.get(controlName);
       if (control === undefined) {
-        throw unknownElement(e.control, `the controlling element of '${e.name}' is not in the circuit`, [
+        throw unknownElement(controlName, `the controlling element of '${e.name}' is not in the circuit`, [
           e.name,
-          'control',
+          field,
         ]);
       }
       if (!hasCurrentUnknown(control)) {
         throw unknownElement(
-          e.control,
-          `cannot control '${e.name}': only a voltage source, inductor, vcvs, ccvs or loop probe has a current unknown`,
-          [e.name, 'control'],
+          controlName,
+          `cannot control '${e.name}': only ${CURRENT_UNKNOWN_KINDS} has a current unknown`,
+          [e.name, field],
         );
       }
     }

@@ -7,7 +7,7 @@
  * solution (x[n] is always 0), and slot nnz is the trash entry of the matrix values. Devices index
  * with them freely, which keeps every load free of branches on ground.
  */
-import type { ElementRecord } from '../circuit/elements.js';
+import type { ElementRecord } from './records.js';
 
 /** Numbering of unknowns, used while a circuit is compiled. */
 export interface AllocationContext {

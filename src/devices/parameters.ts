@@ -3,40 +3,23 @@
  * one resolver turns what the user gave (numbers or SI strings) into checked numbers.
  */
 import { invalidCircuit, invalidValue } from '../errors/messages.js';
-import { parseValue, type Unit } from '../values/index.js';
+import type { ValueRange } from '../errors/quiescent-error.js';
 import { checkMagnitude } from '../values/magnitude.js';
+import { readValue } from '../values/parse.js';
+import type { Unit } from '../values/units.js';
 
-/** The admissible range of a parameter. */
-export type ParameterRange =
-  | 'positive' // > 0, finite
-  | 'non-negative' // ≥ 0, finite
-  | 'positive-or-infinite' // > 0, Infinity allowed (the effect is then absent)
-  | 'at-least-one' // ≥ 1... emission coefficients use 'positive'; kept for gains
-  | 'grading' // in (0, 1)
-  | 'any' // any finite number
-  | 'any-or-infinite' // any number, ±Infinity allowed (a limit that is then absent)
-  | 'above-one'; // > 1, finite (a slope factor)
+/** The admissible range of a parameter (see `ValueRange`). */
+export type ParameterRange = ValueRange;
 
-/** What one model parameter is: its unit, default and admissible range. */
+/** What one model parameter is: its unit (`'none'` for a pure number), default and admissible range. */
 export interface ParameterSpec {
-  readonly unit?: Unit;
+  readonly unit: Unit | 'none';
   readonly defaultValue: number;
   readonly range: ParameterRange;
 }
 
 /** A table of parameter specifications, keyed by parameter name. */
 export type ParameterTable<K extends string> = Readonly<Record<K, ParameterSpec>>;
-
-const RANGE_WORDS: Readonly<Record<ParameterRange, string>> = {
-  positive: 'a finite number greater than 0',
-  'non-negative': 'a finite number of 0 or more',
-  'positive-or-infinite': 'a number greater than 0 (Infinity removes the effect)',
-  'at-least-one': 'a finite number of 1 or more',
-  grading: 'a number between 0 and 1 (exclusive)',
-  any: 'a finite number',
-  'any-or-infinite': 'a number (±Infinity removes the limit)',
-  'above-one': 'a finite number greater than 1',
-};
 
 function inRange(value: number, range: ParameterRange): boolean {
   switch (range) {
@@ -72,17 +55,18 @@ export function parseParameters<K extends string>(
 ): Partial<Record<K, number>> {
   if (given === undefined) return {};
   if (given === null || typeof given !== 'object' || Array.isArray(given)) {
-    throw invalidCircuit(path, `the model of ${article(kindName)} must be an object of parameters`);
+    throw invalidCircuit(path, { kind: 'not-an-object', what: 'model', of: article(kindName) });
   }
   const out: Partial<Record<K, number>> = {};
   for (const key of Object.keys(given)) {
     if (skip.includes(key)) continue;
     if (!Object.hasOwn(table, key)) {
-      const known = Object.keys(table).join(', ');
-      throw invalidCircuit(
-        [...path, key],
-        `is not a parameter of ${article(kindName)}; the parameters are ${known}`,
-      );
+      throw invalidCircuit([...path, key], {
+        kind: 'unknown-key',
+        what: 'parameter',
+        of: article(kindName),
+        known: Object.keys(table),
+      });
     }
     const k = key as K;
     const spec = table[k];
@@ -96,11 +80,12 @@ export function parseParameters<K extends string>(
     ) {
       value = raw;
     } else if (typeof raw === 'number' || typeof raw === 'string') {
-      value = parseValue(raw, spec.unit, [...path, key]);
+      value = readValue(raw, spec.unit, [...path, key]);
     } else {
-      throw invalidValue([...path, key], raw, RANGE_WORDS[spec.range]);
+      throw invalidValue([...path, key], raw, { range: spec.range, unit: spec.unit });
     }
-    if (!inRange(value, spec.range)) throw invalidValue([...path, key], raw, RANGE_WORDS[spec.range]);
+    if (!inRange(value, spec.range))
+      throw invalidValue([...path, key], raw, { range: spec.range, unit: spec.unit });
     checkMagnitude(value, [...path, key], raw);
     out[k] = value;
   }
@@ -124,3 +109,6 @@ export function withDefaults<K extends string>(
 function article(kindName: string): string {
   return /^[aeiou]/i.test(kindName) ? `an ${kindName}` : `a ${kindName}`;
 }
+
+/** Numeric parameters of a model, as given (the polarity is a field of the element, not a parameter). */
+export type GivenParameters<M> = { readonly [K in Exclude<keyof M, 'polarity'>]?: number };

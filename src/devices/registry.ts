@@ -1,48 +1,70 @@
-/** From element record to compiled device: the one place that knows every kind. */
-import type { ElementRecord } from '../circuit/elements.js';
-import { Bjt } from './bjt.js';
-import { Capacitor } from './capacitor.js';
-import { Cccs, Ccvs, Vccs, Vcvs } from './controlled-sources.js';
-import { CurrentSource } from './current-source.js';
+/** The registry of element kinds: one line per kind, and the lookups the rest of the library uses. */
+import { BJT } from './bjt/descriptor.js';
+import { CAPACITOR } from './capacitor/descriptor.js';
+import { CCCS } from './controlled-sources/cccs.js';
+import { CCVS } from './controlled-sources/ccvs.js';
+import { VCCS } from './controlled-sources/vccs.js';
+import { VCVS } from './controlled-sources/vcvs.js';
+import { CURRENT_SOURCE } from './current-source/descriptor.js';
+import type { AnyDescriptor, KindRegistry } from './descriptor.js';
 import type { Device } from './device.js';
-import { Diode } from './diode.js';
-import { Inductor } from './inductor.js';
-import { LoopProbe } from './loop-probe.js';
-import { Mosfet } from './mosfet.js';
-import { OpAmp } from './op-amp.js';
-import { Resistor } from './resistor.js';
-import { VoltageSource } from './voltage-source.js';
+import { DIODE } from './diode/descriptor.js';
+import { INDUCTOR } from './inductor/descriptor.js';
+import { LOOP_PROBE } from './loop-probe/descriptor.js';
+import { MOSFET } from './mosfet/descriptor.js';
+import { OP_AMP } from './op-amp/descriptor.js';
+import type { ElementKind, ElementRecord } from './records.js';
+import { RESISTOR } from './resistor/descriptor.js';
+import { VOLTAGE_SOURCE } from './voltage-source/descriptor.js';
+
+/** Every element kind's descriptor, keyed by kind. */
+export const KINDS: KindRegistry = {
+  resistor: RESISTOR,
+  capacitor: CAPACITOR,
+  inductor: INDUCTOR,
+  'voltage-source': VOLTAGE_SOURCE,
+  'current-source': CURRENT_SOURCE,
+  vcvs: VCVS,
+  vccs: VCCS,
+  ccvs: CCVS,
+  cccs: CCCS,
+  'loop-probe': LOOP_PROBE,
+  'op-amp': OP_AMP,
+  diode: DIODE,
+  bjt: BJT,
+  mosfet: MOSFET,
+};
+
+/** The kind names, in registry order. */
+export const ELEMENT_KINDS = Object.keys(KINDS) as readonly ElementKind[];
+
+/** Whether `kind` names an element kind. */
+export function isElementKind(kind: unknown): kind is ElementKind {
+  return typeof kind === 'string' && Object.hasOwn(KINDS, kind);
+}
+
+/** The descriptor of a record's kind, with its readers typed for any record. */
+export function descriptorOf(record: ElementRecord): AnyDescriptor {
+  return KINDS[record.kind] as unknown as AnyDescriptor;
+}
+
+/** The descriptor of a kind, with its readers typed for any record. */
+export function descriptorOfKind(kind: ElementKind): AnyDescriptor {
+  return KINDS[kind] as unknown as AnyDescriptor;
+}
 
 /** Build the compiled device of an element record. */
 export function createDevice(record: ElementRecord): Device {
-  switch (record.kind) {
-    case 'resistor':
-      return new Resistor(record);
-    case 'capacitor':
-      return new Capacitor(record);
-    case 'inductor':
-      return new Inductor(record);
-    case 'voltage-source':
-      return new VoltageSource(record);
-    case 'current-source':
-      return new CurrentSource(record);
-    case 'vcvs':
-      return new Vcvs(record);
-    case 'vccs':
-      return new Vccs(record);
-    case 'ccvs':
-      return new Ccvs(record);
-    case 'cccs':
-      return new Cccs(record);
-    case 'loop-probe':
-      return new LoopProbe(record);
-    case 'op-amp':
-      return new OpAmp(record);
-    case 'diode':
-      return new Diode(record);
-    case 'bjt':
-      return new Bjt(record);
-    case 'mosfet':
-      return new Mosfet(record);
-  }
+  return descriptorOf(record).create(record);
+}
+
+/** The nodes an element touches, in terminal order, with each terminal's record field. */
+export function terminalsOf(record: ElementRecord): readonly (readonly [role: string, node: string])[] {
+  const fields = record as unknown as Readonly<Record<string, string>>;
+  return descriptorOf(record).terminals.map((t) => [t.field, fields[t.field]!] as const);
+}
+
+/** Whether an element's current is an unknown of the equations (so it can control a ccvs or cccs). */
+export function hasCurrentUnknown(record: ElementRecord): boolean {
+  return descriptorOf(record).currentUnknown;
 }

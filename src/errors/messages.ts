@@ -1,35 +1,54 @@
 /**
- * The English of every error, in one place. Checks build details as data and call these at the
- * boundary, so that wording stays consistent and can be reviewed at a glance.
+ * The constructors of every error: each takes what a check found, as data, and returns the error;
+ * the words come from `describeError` (wording.ts), so call sites never write a message.
  */
 import {
-  formatPath,
-  listNames,
+  type CircuitProblem,
   QuiescentError,
   type ResidualEntry,
   type StrategyAttempt,
+  type ValueRange,
 } from './quiescent-error.js';
+import { describeGiven, listNames, rangeWords } from './wording.js';
 
-const at = (path: readonly (string | number)[]): string => (path.length > 0 ? `${formatPath(path)}: ` : '');
+/** What a value was expected to be: a shared range with its unit, or a phrase for a one-off rule. */
+export type Expectation =
+  | string
+  | {
+      /** The admissible range. */
+      readonly range: ValueRange;
+      /** The unit, `'none'` for a pure number; left out when the value has no unit rule. */
+      readonly unit?: string;
+    }
+  | {
+      /** What was expected, in words, without the unit (`'a resistance'`). */
+      readonly expected: string;
+      /** The unit, `'none'` for a pure number. */
+      readonly unit?: string;
+      /** Why the value was rejected (a wrong unit symbol, say). */
+      readonly reason?: string;
+    };
 
-function show(value: unknown): string {
-  if (typeof value === 'string') return JSON.stringify(value);
-  if (typeof value === 'number') return String(value);
-  if (value === undefined) return 'undefined';
-  if (value === null) return 'null';
-  return typeof value;
-}
-
-/** A value is missing, mistyped or out of range. */
+/** A value is missing, mistyped, in a wrong unit or out of range. */
 export function invalidValue(
   path: readonly (string | number)[],
   value: unknown,
-  expected: string,
+  expected: Expectation,
 ): QuiescentError {
-  return new QuiescentError(
-    { code: 'invalid-value', path, value },
-    `${at(path)}${show(value)} is not ${expected}`,
-  );
+  if (typeof expected === 'string')
+    return new QuiescentError({ code: 'invalid-value', path, value, expected });
+  if ('range' in expected) {
+    const { range, unit } = expected;
+    return new QuiescentError({
+      code: 'invalid-value',
+      path,
+      value,
+      expected: rangeWords(range),
+      range,
+      ...(unit === undefined ? {} : { unit }),
+    });
+  }
+  return new QuiescentError({ code: 'invalid-value', path, value, ...expected });
 }
 
 /** How a value given where another was expected reads in a message: its class, or its kind. */
@@ -42,7 +61,7 @@ function kindOf(value: unknown): string {
     if (typeof name !== 'string' || name === 'Object' || name === '') return 'a plain object';
     return `${/^[AEIOU]/.test(name) ? 'an' : 'a'} ${name}`;
   }
-  return show(value);
+  return describeGiven(value);
 }
 
 /**
@@ -57,94 +76,71 @@ export function wrongArgument(
 ): QuiescentError {
   const message = `${argument}: expected ${expected}, got ${kindOf(value)}`;
   return code === 'invalid-circuit'
-    ? new QuiescentError({ code, path: [argument] }, message)
-    : new QuiescentError({ code, path: [argument], value }, message);
+    ? new QuiescentError({ code, path: [argument], problem: { kind: 'other', text: message } }, message)
+    : new QuiescentError({ code, path: [argument], value, expected }, message);
 }
 
 /** An element name is used twice. */
 export function duplicateName(name: string): QuiescentError {
-  return new QuiescentError(
-    { code: 'duplicate-name', name },
-    `an element named '${name}' already exists; element names must be unique`,
-  );
+  return new QuiescentError({ code: 'duplicate-name', name });
 }
 
-/** A builder call or JSON document is malformed. */
-export function invalidCircuit(path: readonly (string | number)[], problem: string): QuiescentError {
-  return new QuiescentError({ code: 'invalid-circuit', path }, `${at(path)}${problem}`);
+/** A builder call or JSON document is malformed: `problem` says how, as data. */
+export function invalidCircuit(
+  path: readonly (string | number)[],
+  problem: CircuitProblem | string,
+  element?: string,
+): QuiescentError {
+  if (typeof problem === 'string') problem = { kind: 'other', text: problem };
+  return new QuiescentError(
+    element === undefined
+      ? { code: 'invalid-circuit', path, problem }
+      : { code: 'invalid-circuit', path, problem, element },
+  );
 }
 
 /** An analysis names a node the circuit lacks. */
 export function unknownNode(node: string, path: readonly (string | number)[] = []): QuiescentError {
   return new QuiescentError(
-    { code: 'unknown-node', node },
-    `${at(path)}the circuit has no node named '${node}'`,
+    path.length > 0 ? { code: 'unknown-node', node, path } : { code: 'unknown-node', node },
   );
 }
 
 /** An analysis or controlled source names an element the circuit lacks, or one without the needed quantity. */
 export function unknownElement(
   element: string,
-  why = 'the circuit has no element of that name',
+  reason = 'the circuit has no element of that name',
   path: readonly (string | number)[] = [],
 ): QuiescentError {
-  return new QuiescentError({ code: 'unknown-element', element, path }, `${at(path)}'${element}': ${why}`);
+  return new QuiescentError({ code: 'unknown-element', element, path, reason });
 }
 
 /** Nothing connects to ground; `groundLikeNodes` are nodes named as if they were meant to be it. */
 export function noGround(groundLikeNodes: readonly string[] = []): QuiescentError {
-  const hint =
-    groundLikeNodes.length > 0
-      ? `; node ${listNames(groundLikeNodes)} looks meant as ground: name it 'gnd' (or use the GROUND constant)`
-      : '';
-  return new QuiescentError(
-    { code: 'no-ground', groundLikeNodes },
-    `no element connects to ground (node 'gnd'); every circuit needs a reference node${hint}`,
-  );
+  return new QuiescentError({ code: 'no-ground', groundLikeNodes });
 }
 
 /** Some nodes have no DC path to ground. */
 export function floatingNodes(nodes: readonly string[]): QuiescentError {
-  const which = nodes.length === 1 ? `node ${listNames(nodes)} has` : `nodes ${listNames(nodes)} have`;
-  return new QuiescentError(
-    { code: 'floating-node', nodes },
-    `${which} no DC path to ground (capacitors, current sources and transistor gates carry no DC current); ` +
-      'add a resistor to ground or connect them to the rest of the circuit',
-  );
+  return new QuiescentError({ code: 'floating-node', nodes });
 }
 
 /** A loop of voltage-defined branches (voltage sources, inductors, controlled-source and op-amp outputs). */
 export function voltageLoop(elements: readonly string[], nodes: readonly string[]): QuiescentError {
-  return new QuiescentError(
-    { code: 'singular', elements, nodes, reason: 'voltage-loop' },
-    `${elements.length === 1 ? `element ${listNames(elements)} forms` : `elements ${listNames(elements)} form`} ` +
-      'a loop of voltage sources, inductors or driven outputs ' +
-      `through node${nodes.length === 1 ? '' : 's'} ${listNames(nodes)}, so ${elements.length === 1 ? 'its current is' : 'their currents are'} not determined`,
-  );
+  return new QuiescentError({ code: 'singular', elements, nodes, reason: 'voltage-loop' });
 }
 
-/** The matrix became singular while solving. */
+/** The matrix became singular while solving; `context` says where (`'at the operating point'`). */
 export function singularMatrix(
   elements: readonly string[],
   nodes: readonly string[],
   context: string,
   valueRange?: number,
 ): QuiescentError {
-  const parts: string[] = [];
-  if (nodes.length > 0) parts.push(`node${nodes.length > 1 ? 's' : ''} ${listNames(nodes)}`);
-  if (elements.length > 0) parts.push(`element${elements.length > 1 ? 's' : ''} ${listNames(elements)}`);
-  // Entries more than about 1e16 apart lose the smaller when added: the dependence may be rounding.
-  const hint =
-    valueRange !== undefined && valueRange > 1e15
-      ? `; the matrix entries span ${valueRange.toExponential(0)}, beyond the 16 digits of double precision, ` +
-        'so a conductance or gain that small beside one that large is lost when they are added: ' +
-        'the dependence may come from the values, not the topology'
-      : '';
   return new QuiescentError(
     valueRange === undefined
-      ? { code: 'singular', elements, nodes, reason: 'matrix' }
-      : { code: 'singular', elements, nodes, reason: 'matrix', valueRange },
-    `the circuit equations have no unique solution ${context}; the trouble involves ${parts.join(' and ')}${hint}`,
+      ? { code: 'singular', elements, nodes, reason: 'matrix', context }
+      : { code: 'singular', elements, nodes, reason: 'matrix', context, valueRange },
   );
 }
 
@@ -207,38 +203,23 @@ export function noConvergence(details: {
   lastResidualNorm: number;
   residualsWithinTolerance: boolean;
 }): QuiescentError {
-  const tried = details.strategies.map((s) => `${s.strategy} (${s.iterations} iterations)`).join(', ');
-  const worst = details.worstResiduals
-    .map((r) => `${r.kind} '${r.name}' (${r.residual.toExponential(2)} ${r.kind === 'node' ? 'A' : 'V'})`)
-    .join(', ');
-  const where = details.residualsWithinTolerance
-    ? `every residual is within tolerance but the updates never settled; closest to their limit: ${worst}`
-    : `largest residuals at ${worst}`;
-  const devices = details.devices.length > 0 ? `; devices still moving: ${listNames(details.devices)}` : '';
-  return new QuiescentError(
-    { code: 'no-convergence', ...details },
-    `the operating point could not be found after ${tried}; ${where}${devices}`,
-  );
+  return new QuiescentError({ code: 'no-convergence', ...details });
 }
 
 /** A ratio to a fundamental was asked where the output carries no signal. */
-export function noSignal(output: string, frequencies: readonly number[], why: string): QuiescentError {
-  const where =
-    frequencies.length === 0
-      ? ''
-      : frequencies.length === 1
-        ? ` at ${frequencies[0]} Hz`
-        : ` at any of the ${frequencies.length} frequencies from ${Math.min(...frequencies)} Hz to ${Math.max(...frequencies)} Hz`;
+export function noSignal(
+  output: string,
+  frequencies: readonly number[] = [],
+  reason?: string,
+): QuiescentError {
   return new QuiescentError(
-    { code: 'no-signal', output, frequencies },
-    `the output ${output} carries no signal${where} (${why}), so no ratio to its fundamental exists`,
+    reason === undefined
+      ? { code: 'no-signal', output, frequencies }
+      : { code: 'no-signal', output, frequencies, reason },
   );
 }
 
-/** A long run was stopped through its AbortSignal. */
+/** A long run (`'Monte Carlo'`, say) was stopped through its AbortSignal after `done` of `total` steps. */
 export function cancelled(run: string, done: number, total: number): QuiescentError {
-  return new QuiescentError(
-    { code: 'cancelled', run },
-    `the ${run} run was stopped through its AbortSignal after ${done} of ${total} samples`,
-  );
+  return new QuiescentError({ code: 'cancelled', run, done, total });
 }

@@ -10,7 +10,7 @@ import { DEFAULT_TEMPERATURE } from '../analysis/options.js';
 import { operatingPoint } from '../analysis/prepared.js';
 import { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
-import type { BjtModel } from '../devices/bjt-model.js';
+import type { BjtModel } from '../devices/bjt/bjt-model.js';
 import { thermalVoltage } from '../devices/junction.js';
 import { invalidValue } from '../errors/messages.js';
 import {

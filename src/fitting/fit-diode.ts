@@ -9,7 +9,7 @@ import { DEFAULT_TEMPERATURE } from '../analysis/options.js';
 import { operatingPoint } from '../analysis/prepared.js';
 import { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
-import type { DiodeModel } from '../devices/diode-model.js';
+import type { DiodeModel } from '../devices/diode/diode-model.js';
 import { thermalVoltage } from '../devices/junction.js';
 import {
   FIT_JUNCTION_CONDUCTANCE,

@@ -11,7 +11,7 @@ import { operatingPoint } from '../analysis/prepared.js';
 import { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
 import { thermalVoltage } from '../devices/junction.js';
-import type { MosfetModel } from '../devices/mosfet-model.js';
+import type { MosfetModel } from '../devices/mosfet/mosfet-model.js';
 import {
   FIT_JUNCTION_CONDUCTANCE,
   type FitResult,

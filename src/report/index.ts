@@ -1,19 +1,10 @@
-export { probeLabel, ratioLabel } from '../analysis/probe-label.js';
-export { type AcReportOptions, acTable, formatAcAnalysis } from './ac-table.js';
-export { type DcSweepReportOptions, dcSweepTable, formatDcSweep } from './dc-sweep-table.js';
-export { currentDirection } from './element-currents.js';
-export { type HistogramOptions, histogramSvg } from './histogram-svg.js';
-export { escapeHtml, htmlTable } from './html-table.js';
+export { currentDirection } from '../analysis/element-currents.js';
 export {
-  formatMonteCarlo,
-  formatWorstCase,
-  monteCarloTable,
-  type ToleranceReportOptions,
-  worstCaseTable,
-} from './monte-carlo-table.js';
-export { type DeviceJson, type OperatingPointJson, operatingPointToJson } from './operating-point-json.js';
-export { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
-export { acAnalysisHtml, bodePlot, operatingPointHtml } from './result-html.js';
+  type DeviceJson,
+  type OperatingPointJson,
+  operatingPointToJson,
+} from '../analysis/operating-point-json.js';
+export { probeLabel, ratioLabel } from '../analysis/probe-label.js';
 export {
   type AcAnalysisJson,
   acAnalysisToJson,
@@ -24,7 +15,20 @@ export {
   linearityToJson,
   type OutputLinearityJson,
   type PhasorsJson,
-} from './result-json.js';
+} from '../analysis/result-json.js';
+export { type AcReportOptions, acTable, formatAcAnalysis } from './ac-table.js';
+export { type DcSweepReportOptions, dcSweepTable, formatDcSweep } from './dc-sweep-table.js';
+export { type HistogramOptions, histogramSvg } from './histogram-svg.js';
+export { escapeHtml, htmlTable } from './html-table.js';
+export {
+  formatMonteCarlo,
+  formatWorstCase,
+  monteCarloTable,
+  type ToleranceReportOptions,
+  worstCaseTable,
+} from './monte-carlo-table.js';
+export { formatOperatingPoint, operatingPointTables } from './operating-point-table.js';
+export { acAnalysisHtml, bodePlot, operatingPointHtml } from './result-html.js';
 export { type MimeBundle, NOTEBOOK_DISPLAY, RichOutput } from './rich-output.js';
 export {
   type BodeCurve,

@@ -2,13 +2,14 @@
  * The operating point as text: node voltages, element currents, then one table per device kind with
  * each device's operating values and small-signal parameters, all in engineering notation.
  */
+
+import { currentDirection } from '../analysis/element-currents.js';
 import type { OperatingPoint } from '../analysis/operating-point.js';
-import type { BjtReport, DiodeReport, MosfetReport } from '../analysis/reports.js';
 import { GROUND } from '../circuit/elements.js';
+import type { ReportSpec } from '../devices/descriptor.js';
+import { ELEMENT_KINDS, KINDS } from '../devices/registry.js';
 import { requireOptions, requireShape } from '../errors/arguments.js';
 import { formatValue } from '../values/format.js';
-import type { Unit } from '../values/units.js';
-import { currentDirection } from './element-currents.js';
 import {
   cell,
   DEFAULT_REPORT_DIGITS,
@@ -18,47 +19,8 @@ import {
   type TextTable,
 } from './table.js';
 
-/** One numeric column of a device table: the report field, its heading and its unit. */
-interface FieldColumn<R> {
-  readonly field: keyof R & string;
-  readonly header: string;
-  readonly unit?: Unit;
-}
-
 /** The temperature in the heading to a hundredth of a kelvin (298.15 K), whatever the table's digits. */
 const TEMPERATURE_DIGITS = 6;
-
-const DIODE_COLUMNS: readonly FieldColumn<DiodeReport>[] = [
-  { field: 'voltage', header: 'voltage', unit: 'V' },
-  { field: 'current', header: 'current', unit: 'A' },
-  { field: 'resistance', header: 'r_d', unit: 'Ω' },
-  { field: 'capacitance', header: 'capacitance', unit: 'F' },
-];
-
-const BJT_COLUMNS: readonly FieldColumn<BjtReport>[] = [
-  { field: 'vbe', header: 'vbe', unit: 'V' },
-  { field: 'vce', header: 'vce', unit: 'V' },
-  { field: 'ic', header: 'ic', unit: 'A' },
-  { field: 'ib', header: 'ib', unit: 'A' },
-  { field: 'gm', header: 'gm', unit: 'S' },
-  { field: 'rpi', header: 'rpi', unit: 'Ω' },
-  { field: 'ro', header: 'ro', unit: 'Ω' },
-  { field: 'cpi', header: 'cpi', unit: 'F' },
-  { field: 'cmu', header: 'cmu', unit: 'F' },
-];
-
-const MOSFET_COLUMNS: readonly FieldColumn<MosfetReport>[] = [
-  { field: 'vgs', header: 'vgs', unit: 'V' },
-  { field: 'vds', header: 'vds', unit: 'V' },
-  { field: 'id', header: 'id', unit: 'A' },
-  { field: 'thresholdVoltage', header: 'Vth', unit: 'V' },
-  { field: 'overdrive', header: 'Vov', unit: 'V' },
-  { field: 'gm', header: 'gm', unit: 'S' },
-  { field: 'gds', header: 'gds', unit: 'S' },
-  { field: 'gmb', header: 'gmb', unit: 'S' },
-  { field: 'cgs', header: 'cgs', unit: 'F' },
-  { field: 'cgd', header: 'cgd', unit: 'F' },
-];
 
 /**
  * The tables of an operating point as data, for callers that draw them their own way (HTML, say):
@@ -100,21 +62,13 @@ export function operatingPointTables(op: OperatingPoint, options: ReportOptions 
       }),
     },
   ];
-  const names = (kind: string) => records.filter((r) => r.kind === kind).map((r) => r.name);
-  const diodes = names('diode');
-  const bjts = names('bjt');
-  const mosfets = names('mosfet');
-  if (diodes.length > 0) {
-    const reports = diodes.map((name) => op.diode(name));
-    tables.push(deviceTable('Diodes', diodes, reports, DIODE_COLUMNS, false, digits));
-  }
-  if (bjts.length > 0) {
-    const reports = bjts.map((name) => op.bjt(name));
-    tables.push(deviceTable('Bipolar transistors', bjts, reports, BJT_COLUMNS, true, digits));
-  }
-  if (mosfets.length > 0) {
-    const reports = mosfets.map((name) => op.mosfet(name));
-    tables.push(deviceTable('MOSFETs', mosfets, reports, MOSFET_COLUMNS, true, digits));
+  for (const kind of ELEMENT_KINDS) {
+    const spec = KINDS[kind].report;
+    if (spec === null) continue;
+    const names = records.filter((r) => r.kind === kind).map((r) => r.name);
+    if (names.length === 0) continue;
+    const reports = names.map((name) => op.device(name) as unknown as Readonly<Record<string, unknown>>);
+    tables.push(deviceTable(spec, names, reports, digits));
   }
   return tables;
 }
@@ -148,22 +102,20 @@ export function formatOperatingPoint(op: OperatingPoint, options: ReportOptions 
   return [heading, ...warnings, ...operatingPointTables(op, options).map(renderTable)].join('\n\n');
 }
 
-function deviceTable<R extends object>(
-  title: string,
+function deviceTable(
+  spec: ReportSpec,
   names: readonly string[],
-  reports: readonly R[],
-  fields: readonly FieldColumn<R>[],
-  withRegion: boolean,
+  reports: readonly Readonly<Record<string, unknown>>[],
   digits: number,
 ): TextTable {
   const columns: TableColumn[] = [{ header: 'device' }];
-  if (withRegion) columns.push({ header: 'region' });
-  for (const f of fields) columns.push({ header: f.header, align: 'right' });
+  if (spec.withRegion) columns.push({ header: 'region' });
+  for (const c of spec.columns) columns.push({ header: c.header, align: 'right' });
   const rows = reports.map((report, i) => {
     const row = [names[i]!];
-    if (withRegion) row.push(String((report as { readonly region?: string }).region ?? ''));
-    for (const f of fields) row.push(cell(report[f.field] as number, f.unit, digits));
+    if (spec.withRegion) row.push(String(report.region ?? ''));
+    for (const c of spec.columns) row.push(cell(report[c.field] as number, c.unit, digits));
     return row;
   });
-  return { title, columns, rows };
+  return { title: spec.title, columns, rows };
 }

@@ -82,14 +82,19 @@ function readSuffix(text: string): Suffix | undefined {
   return undefined;
 }
 
-/** What a value of `unit` is, for messages: `a resistance in Ω`, or `a value` without a unit. */
-function expected(unit: Unit | undefined): string {
-  return unit === undefined ? 'a valid value' : `a ${quantityName(unit)} in ${unit}`;
+/** The unit a value is read in: a {@link Unit}, `'none'` for a pure number, or undefined for any. */
+export type ExpectedUnit = Unit | 'none' | undefined;
+
+/** What a value of `unit` is, for messages: `a resistance`, or `a valid value` without a unit. */
+function expected(unit: ExpectedUnit): string {
+  if (unit === 'none') return 'a pure number';
+  return unit === undefined ? 'a valid value' : `a ${quantityName(unit)}`;
 }
 
 /** What may follow the number, for messages. */
-function suffixHelp(unit: Unit | undefined): string {
+function suffixHelp(unit: ExpectedUnit): string {
   const prefixes = `an optional SI prefix (${PREFIX_LIST})`;
+  if (unit === 'none') return `expected only ${prefixes}`;
   if (unit === undefined)
     return `expected ${prefixes} followed by an optional unit symbol such as Ω, F or Hz`;
   if (unitHasSymbol(unit)) return `expected ${prefixes} followed by an optional ${unit}`;
@@ -97,8 +102,9 @@ function suffixHelp(unit: Unit | undefined): string {
 }
 
 /** Why `symbol` (of `found`) does not fit `unit`. */
-function mismatchReason(symbol: string, found: Unit, unit: Unit, prefixed: boolean): string {
+function mismatchReason(symbol: string, found: Unit, unit: Unit | 'none', prefixed: boolean): string {
   let reason = `${symbol} is the unit of ${quantityName(found)}`;
+  if (unit === 'none') return `${reason}; write a pure number with an optional SI prefix and no unit`;
   if (found === 'K' && !prefixed) reason += '; the prefix kilo is a lowercase k';
   else if (found.toLowerCase() === unit.toLowerCase()) reason += '; unit symbols are case-sensitive';
   if (!unitHasSymbol(unit))
@@ -109,10 +115,14 @@ function mismatchReason(symbol: string, found: Unit, unit: Unit, prefixed: boole
 function reject(
   path: readonly (string | number)[],
   value: unknown,
-  unit: Unit | undefined,
+  unit: ExpectedUnit,
   reason: string,
 ): QuiescentError {
-  return invalidValue(path, value, `${expected(unit)} (${reason})`);
+  return invalidValue(path, value, {
+    expected: expected(unit),
+    ...(unit === undefined ? {} : { unit }),
+    reason,
+  });
 }
 
 /**
@@ -153,6 +163,24 @@ export function parseValue(
   if (unit !== undefined && !isUnit(unit)) {
     throw invalidValue(['unit'], unit, `a unit symbol (expected one of ${UNITS.join(', ')})`);
   }
+  return readValue(text, unit, path);
+}
+
+/**
+ * Reads a value as {@link parseValue} does, where `unit` may also be `'none'`: a pure number (a
+ * gain, a current ratio, an emission coefficient), whose text takes an SI prefix but no unit symbol.
+ *
+ * @param text - the value
+ * @param unit - the unit the value is expected in, `'none'` for a pure number
+ * @param path - where the value sits, for the error's details and message
+ * @returns the value in SI base units
+ * @throws QuiescentError `'invalid-value'`, as {@link parseValue}; a unit symbol on a pure number too
+ */
+export function readValue(
+  text: string | number,
+  unit: ExpectedUnit,
+  path: readonly (string | number)[],
+): number {
   if (typeof text === 'number') {
     if (Number.isFinite(text)) return text;
     throw reject(path, text, unit, 'it must be a finite number');

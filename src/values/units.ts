@@ -9,8 +9,8 @@ import { invalidValue } from '../errors/messages.js';
 
 /**
  * A unit symbol. The first ten are the units of the quantities a value may carry; `'A/V²'` (the
- * gain factor of a field-effect transistor), `'1/V'` and `'V^½'` are spelled for formatting only,
- * and {@link parseValue} accepts no symbol for them.
+ * gain factor of a field-effect transistor), `'1/V'`, `'V^½'`, `'V/K'`, `'V/√Hz'` and `'A/√Hz'` are the
+ * compound units, which {@link parseValue} reads back as `formatValue` writes them.
  *
  * @example
  * ```ts
@@ -18,7 +18,23 @@ import { invalidValue } from '../errors/messages.js';
  * formatValue(4700, unit); // '4.7 kΩ'
  * ```
  */
-export type Unit = 'Ω' | 'F' | 'H' | 'V' | 'A' | 'Hz' | 's' | 'S' | 'K' | 'eV' | 'A/V²' | '1/V' | 'V^½';
+export type Unit =
+  | 'Ω'
+  | 'F'
+  | 'H'
+  | 'V'
+  | 'A'
+  | 'Hz'
+  | 's'
+  | 'S'
+  | 'K'
+  | 'eV'
+  | 'A/V²'
+  | '1/V'
+  | 'V^½'
+  | 'V/K'
+  | 'V/√Hz'
+  | 'A/√Hz';
 
 /**
  * Every {@link Unit}, in the order of the type.
@@ -42,6 +58,9 @@ export const UNITS: readonly Unit[] = [
   'A/V²',
   '1/V',
   'V^½',
+  'V/K',
+  'V/√Hz',
+  'A/√Hz',
 ];
 
 const QUANTITIES: Readonly<Record<Unit, string>> = {
@@ -58,6 +77,9 @@ const QUANTITIES: Readonly<Record<Unit, string>> = {
   'A/V²': 'gain factor',
   '1/V': 'reciprocal voltage',
   'V^½': 'square root of voltage',
+  'V/K': 'temperature coefficient of voltage',
+  'V/√Hz': 'voltage noise density',
+  'A/√Hz': 'current noise density',
 };
 
 /**
@@ -117,6 +139,11 @@ const UNIT_SYMBOLS = new Map<string, Unit>([
   ['1/V', '1/V'],
   ['V^½', 'V^½'],
   ['V^0.5', 'V^½'],
+  ['V/K', 'V/K'],
+  ['V/√Hz', 'V/√Hz'],
+  ['V/sqrt(Hz)', 'V/√Hz'],
+  ['A/√Hz', 'A/√Hz'],
+  ['A/sqrt(Hz)', 'A/√Hz'],
 ]);
 
 /**

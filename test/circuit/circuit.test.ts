@@ -1,5 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { Circuit, type ErrorCode, GROUND, QuiescentError } from '../../src/index.js';
+import {
+  Circuit,
+  type ErrorCode,
+  GROUND,
+  operatingPoint,
+  portImpedance,
+  QuiescentError,
+} from '../../src/index.js';
 
 /**
  * The builder's contract: every method checks its own arguments at once, returns the circuit, and
@@ -410,6 +417,80 @@ describe('Circuit builder', () => {
   });
 
   describe('rejects bad model parameters', () => {
+    it.each([
+      [
+        'a MOSFET gain factor in farads',
+        () =>
+          new Circuit().mosfet(
+            'M1',
+            { drain: 'd', gate: 'g', source: GROUND },
+            { polarity: 'nmos', gainFactor: '2 mF' },
+          ),
+        'M1.model.gainFactor',
+        'A/V²',
+      ],
+      [
+        'a channel-length modulation in ohms',
+        () =>
+          new Circuit().mosfet(
+            'M1',
+            { drain: 'd', gate: 'g', source: GROUND },
+            { polarity: 'nmos', channelLengthModulation: '0.02 Ω' },
+          ),
+        'M1.model.channelLengthModulation',
+        '1/V',
+      ],
+      [
+        'a current gain in volts',
+        () =>
+          new Circuit().bjt(
+            'Q1',
+            { collector: 'c', base: 'b', emitter: GROUND },
+            { polarity: 'npn', forwardBeta: '100 V' },
+          ),
+        'Q1.model.forwardBeta',
+        'none',
+      ],
+      [
+        'a voltage gain in volts',
+        () => new Circuit().vcvs('amplifier', ['out', GROUND], ['in', GROUND], '10 V'),
+        'amplifier.gain',
+        'none',
+      ],
+    ] as const)('rejects a unit symbol on a quantity without that unit: %s', (_, build, path, unit) => {
+      // docs/devices.md, parameter tables: each parameter states its unit; a pure number has none
+      const error = expectRejected(build, 'invalid-value', path);
+      expect(error.details).toMatchObject({ code: 'invalid-value', unit });
+      if (unit !== 'none') expect(error.message).toContain(unit);
+      else expect(error.message).toContain('pure number');
+    });
+
+    it('accepts an SI prefix on a pure number and on a parameter whose unit has no symbol', () => {
+      // BIPM, SI Brochure, 9th ed., 2019, §5.4.7: prefixes apply to the unit one as well (common practice)
+      const c = new Circuit()
+        .vcvs('amplifier', ['out', GROUND], ['in', GROUND], '10k')
+        .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', gainFactor: '2m' });
+      expect(c.element('amplifier')).toMatchObject({ gain: 10000 });
+      expect(c.element('M1')).toMatchObject({ model: { gainFactor: 0.002 } });
+    });
+
+    it('carries the expected range and unit in the details of an out-of-range parameter', () => {
+      // common practice, no source: errors as data
+      const error = expectRejected(
+        () => new Circuit().diode('D1', 'a', 'b', { saturationCurrent: -1 }),
+        'invalid-value',
+      );
+      expect(error.details).toEqual({
+        code: 'invalid-value',
+        path: ['D1', 'model', 'saturationCurrent'],
+        value: -1,
+        expected: 'a positive value',
+        range: 'positive',
+        unit: 'A',
+      });
+      expect(error.message).toBe('D1.model.saturationCurrent: -1 is not a positive value in A');
+    });
+
     it('rejects a parameter the model does not have with invalid-circuit naming it', () => {
       // API.md, "Device models": the parameter names are fixed
       expectRejected(
@@ -542,5 +623,70 @@ describe('Circuit builder', () => {
         .opAmp('U1', { plus: 'a', minus: 'b', output: 'c' }, { gainBandwidth: Number.POSITIVE_INFINITY });
       expect(c.elements).toHaveLength(3);
     });
+  });
+});
+
+describe('Circuit builder removes and replaces elements', () => {
+  /** A 10 V supply behind a 1 kΩ / 1 kΩ divider, loaded by 500 Ω. */
+  const loadedDivider = () =>
+    new Circuit()
+      .voltageSource('supply', 'in', GROUND, { dc: 10 })
+      .resistor('upper', 'in', 'out', '1k')
+      .resistor('lower', 'out', GROUND, '1k')
+      .resistor('load', 'out', GROUND, 500);
+
+  it('gives the unloaded output impedance of a divider from a copy without its load', () => {
+    // Thévenin's theorem (Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed., 2013, §4.5):
+    // the divider's output impedance is upper ∥ lower = 500 Ω; with the load also across it, 250 Ω.
+    const circuit = loadedDivider();
+    const unloaded = circuit.without('load');
+    const at1k = { frequencies: [1e3] };
+    expect(portImpedance(operatingPoint(unloaded), { plus: 'out' }, at1k)[0]!.re).toBeCloseTo(500, 9);
+    expect(portImpedance(operatingPoint(circuit), { plus: 'out' }, at1k)[0]!.re).toBeCloseTo(250, 9);
+    expect(circuit.element('load')).toBeDefined();
+    expect(unloaded.element('load')).toBeUndefined();
+    expect(operatingPoint(unloaded).voltage('out')).toBeCloseTo(5, 12);
+  });
+
+  it('removes an element, bumping the revision and dropping nodes only it touched', () => {
+    // common practice, no source
+    const circuit = loadedDivider().resistor('probe', 'out', 'spare', '1M');
+    const revision = circuit.revision;
+    circuit.remove('probe');
+    expect(circuit.revision).toBeGreaterThan(revision);
+    expect(circuit.nodes).not.toContain('spare');
+    expect(circuit.elements.map((e) => e.name)).toEqual(['supply', 'upper', 'lower', 'load']);
+    // The divider with 500 Ω across its lower leg: 10 · 333.3 / 1333.3 = 2.5 V (Ohm's law).
+    expect(operatingPoint(circuit).voltage('out')).toBeCloseTo(2.5, 12);
+  });
+
+  it('replaces an element in its place, and a failed replacement leaves the circuit as it was', () => {
+    // common practice, no source
+    const circuit = loadedDivider();
+    const revision = circuit.revision;
+    circuit.replace('load', (c) => c.resistor('load', 'out', GROUND, '1k'));
+    expect(circuit.revision).toBeGreaterThan(revision);
+    expect(circuit.elements.map((e) => e.name)).toEqual(['supply', 'upper', 'lower', 'load']);
+    // 1 kΩ ∥ 1 kΩ = 500 Ω below 1 kΩ: 10 · 500 / 1500 V.
+    expect(operatingPoint(circuit).voltage('out')).toBeCloseTo(10 / 3, 12);
+    const before = circuit.toJSON();
+    expectRejected(
+      () => circuit.replace('load', (c) => c.resistor('load', 'out', GROUND, -1)),
+      'invalid-value',
+      'load.resistance',
+    );
+    expectRejected(
+      () => circuit.replace('load', (c) => c.resistor('upper', 'out', GROUND, 1)),
+      'duplicate-name',
+      'upper',
+    );
+    expect(circuit.toJSON()).toEqual(before);
+  });
+
+  it('rejects a name the circuit does not have', () => {
+    // common practice, no source
+    expectRejected(() => loadedDivider().remove('sense'), 'unknown-element', 'sense');
+    expectRejected(() => loadedDivider().replace('sense', () => undefined), 'unknown-element', 'sense');
+    expectRejected(() => loadedDivider().without('load', 'sense'), 'unknown-element', 'sense');
   });
 });

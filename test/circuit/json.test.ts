@@ -169,7 +169,7 @@ describe('Circuit JSON documents', () => {
       const doc = dividerDocument();
       doc.elements[3]!.resistance = '3k';
       const error = expectRejected(doc, 'invalid-circuit', 'elements[3].resistance');
-      expect(error.details).toEqual({ code: 'invalid-circuit', path: ['elements', 3, 'resistance'] });
+      expect(error.details).toMatchObject({ code: 'invalid-circuit', path: ['elements', 3, 'resistance'] });
     });
 
     it('names the path of a missing field', () => {
@@ -219,7 +219,7 @@ describe('Circuit JSON documents', () => {
       const empty = dividerDocument();
       empty.elements[2]!.name = '';
       const error = expectRejected(empty, 'invalid-circuit', 'elements[2].name');
-      expect(error.details).toEqual({ code: 'invalid-circuit', path: ['elements', 2, 'name'] });
+      expect(error.details).toMatchObject({ code: 'invalid-circuit', path: ['elements', 2, 'name'] });
     });
 
     it('rejects an element that is not an object, and elements that are not an array', () => {
@@ -263,6 +263,38 @@ describe('Circuit JSON documents', () => {
       expectRejected(doc, 'invalid-value', 'elements[0].ac.phase');
     });
 
+    it('prints the path once, in the document, with the element it belongs to', () => {
+      // common practice, no source: one fault, one place named
+      const doc = dividerDocument();
+      doc.elements[3]!.resistance = -5;
+      const error = expectRejected(doc, 'invalid-value', 'elements[3].resistance');
+      expect(error.message).toBe("elements[3].resistance ('R2'): -5 is not a positive value in Ω");
+      expect(error.details).toMatchObject({ element: 'R2', range: 'positive', unit: 'Ω', value: -5 });
+    });
+
+    it("names a controlled source's document field, not the builder's argument", () => {
+      // common practice, no source: the path points into the document the user wrote
+      const doc = {
+        format: DOCUMENT_FORMAT,
+        version: DOCUMENT_VERSION,
+        elements: [
+          { kind: 'voltage-source', name: 'drive', plus: 'in', minus: GROUND, dc: 1 },
+          {
+            kind: 'vcvs',
+            name: 'buffer',
+            outPlus: 'out',
+            outMinus: GROUND,
+            controlPlus: '',
+            controlMinus: GROUND,
+            gain: 2,
+          },
+        ],
+      };
+      const error = expectRejected(doc, 'invalid-circuit', 'elements[1].controlPlus');
+      expect(error.details).toMatchObject({ path: ['elements', 1, 'controlPlus'] });
+      expect(error.message).not.toContain('control[0]');
+    });
+
     it('reports a bad polarity at the element field where the document keeps it', () => {
       // API.md: polarity 'npn' | 'pnp'; common practice, no source: the path points into the document
       const doc = {
@@ -271,7 +303,12 @@ describe('Circuit JSON documents', () => {
         elements: [{ kind: 'bjt', name: 'Q1', collector: 'c', base: 'b', emitter: GROUND, polarity: 'NPN' }],
       };
       const error = expectRejected(doc, 'invalid-circuit', 'elements[0].polarity', 'Q1');
-      expect(error.details).toEqual({ code: 'invalid-circuit', path: ['elements', 0, 'polarity'] });
+      expect(error.details).toMatchObject({ code: 'invalid-circuit', path: ['elements', 0, 'polarity'] });
+      // The details say what the message says: which values are allowed and what was given.
+      expect(error.details).toMatchObject({
+        element: 'Q1',
+        problem: { kind: 'not-one-of', what: 'polarity', allowed: ['npn', 'pnp'], got: '"NPN"' },
+      });
     });
 
     it('rejects a polarity inside the model, which would contradict the element field', () => {

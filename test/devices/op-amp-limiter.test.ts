@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { limiterKnee, limitOutput } from '../../src/devices/op-amp-limiter.js';
+import { limiterKnee, limitOutput } from '../../src/devices/op-amp/op-amp-limiter.js';
 
 // The bounds are the op-amp's output-limit rule of docs/devices.md ("Op-amp"): smooth, monotonic,
 // continuously differentiable, never beyond a limit, within 1 mV of the linear value while that is

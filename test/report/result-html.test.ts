@@ -3,6 +3,7 @@ import { acAnalysis } from '../../src/analysis/ac-analysis.js';
 import { Circuit, GROUND, logSweep, operatingPoint } from '../../src/index.js';
 import { acTable } from '../../src/report/ac-table.js';
 import { htmlTable } from '../../src/report/html-table.js';
+import { acAnalysisHtml, bodePlot, operatingPointHtml } from '../../src/report/result-html.js';
 import { NOTEBOOK_DISPLAY, RichOutput } from '../../src/report/rich-output.js';
 
 // A 9 V rail divided 2:1 by 20 kΩ over 10 kΩ, with 1 µF across the lower leg.
@@ -42,30 +43,30 @@ describe('htmlTable', () => {
 
 describe('results in a notebook', () => {
   it('show an operating point as its HTML tables, with the text report as the plain stand-in', () => {
-    const bundle = op[NOTEBOOK_DISPLAY]();
+    const bundle = operatingPointHtml(op)[NOTEBOOK_DISPLAY]();
     const html = bundle['text/html']!;
     expect(html.match(/<table class="quiescent">/g)!.length).toBeGreaterThanOrEqual(2);
     // The divider: 9 V · 10 kΩ/(20 kΩ + 10 kΩ) = 3 V at the tap (Ohm's law).
     expect(bodyRows(html)).toContainEqual(['tap', '3 V']);
     expect(bundle['text/plain']).toMatch(/^Operating point at 298\.15 K/);
-    expect(String(op.toHtml())).toBe(html);
+    expect(String(operatingPointHtml(op))).toBe(html);
   });
 
   it('show an AC analysis as its response table', () => {
-    const bundle = ac[NOTEBOOK_DISPLAY]();
-    expect(bundle['text/html']).toBe(ac.toHtml().text);
+    const bundle = acAnalysisHtml(ac)[NOTEBOOK_DISPLAY]();
+    expect(bundle['text/html']).toBe(acAnalysisHtml(ac).text);
     expect(bundle['text/plain']).toContain('Small-signal response');
   });
 
   it('show a Bode plot as SVG from one call, titled and labelled with the probes', () => {
-    const plot = ac.bodePlot('tap', 'supply');
+    const plot = bodePlot(ac, 'tap', 'supply');
     expect(plot).toBeInstanceOf(RichOutput);
     const bundle = plot[NOTEBOOK_DISPLAY]();
     expect(bundle['image/svg+xml']!.startsWith('<svg')).toBe(true);
     expect(bundle['image/svg+xml']).toContain('>Bode plot of tap ÷ supply</text>');
     expect(bundle['image/svg+xml']).toContain('data-label="tap ÷ supply"');
     expect(bundle['text/html']).toBeUndefined();
-    expect(ac.bodePlot('tap', undefined, 'Tap').text).toContain('>Tap</text>');
+    expect(bodePlot(ac, 'tap', undefined, 'Tap').text).toContain('>Tap</text>');
   });
 
   it('use the symbol the notebook kernels look for', () => {

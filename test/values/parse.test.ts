@@ -55,7 +55,7 @@ function rejection(text: unknown, unit?: Unit, path: readonly (string | number)[
 function expectRejected(text: string, unit: Unit | undefined, ...fragments: string[]): void {
   const error = rejection(text, unit);
   expect(error.code).toBe('invalid-value');
-  expect(error.details).toEqual({ code: 'invalid-value', path: PATH, value: text });
+  expect(error.details).toMatchObject({ code: 'invalid-value', path: PATH, value: text });
   expect(error.message.startsWith(`R1.resistance: ${JSON.stringify(text)} is not `)).toBe(true);
   for (const fragment of fragments) expect(error.message).toContain(fragment);
 }
@@ -247,7 +247,7 @@ describe('parseValue rejects what it cannot read', () => {
     }
     for (const x of [Number.NaN, Number.POSITIVE_INFINITY, Number.NEGATIVE_INFINITY]) {
       const error = rejection(x, 'Ω');
-      expect(error.details).toEqual({ code: 'invalid-value', path: PATH, value: x });
+      expect(error.details).toMatchObject({ code: 'invalid-value', path: PATH, value: x });
       expect(error.message).toBe(`R1.resistance: ${x} is not a resistance in Ω (it must be a finite number)`);
     }
   });
@@ -337,14 +337,29 @@ describe('parseValue rejects what it cannot read', () => {
     for (const value of [null, undefined, true, {}, [1]]) {
       const error = rejection(value, 'F');
       expect(error.code).toBe('invalid-value');
-      expect(error.details).toEqual({ code: 'invalid-value', path: PATH, value });
+      expect(error.details).toMatchObject({ code: 'invalid-value', path: PATH, value });
       expect(error.message).toContain('expected a number or a string');
     }
   });
 
+  it('carries in its details what the message says: the expected quantity, its unit and the reason', () => {
+    const error = rejection('10F', 'Ω');
+    expect(error.details).toEqual({
+      code: 'invalid-value',
+      path: PATH,
+      value: '10F',
+      expected: 'a resistance',
+      unit: 'Ω',
+      reason: 'F is the unit of capacitance',
+    });
+    expect(error.message).toBe(
+      'R1.resistance: "10F" is not a resistance in Ω (F is the unit of capacitance)',
+    );
+  });
+
   it('rejects an unknown unit argument', () => {
     const error = rejection('1', 'ohm' as Unit);
-    expect(error.details).toEqual({ code: 'invalid-value', path: ['unit'], value: 'ohm' });
+    expect(error.details).toMatchObject({ code: 'invalid-value', path: ['unit'], value: 'ohm' });
     expect(error.message).toContain('unit: "ohm" is not a unit symbol');
   });
 
@@ -353,7 +368,7 @@ describe('parseValue rejects what it cannot read', () => {
     expect(error.message.startsWith('elements[3].resistance: "1kk" is not a resistance in Ω')).toBe(true);
     const bare = rejection('1kk', undefined, []);
     expect(bare.message.startsWith('"1kk" is not a valid value')).toBe(true);
-    expect(bare.details).toEqual({ code: 'invalid-value', path: [], value: '1kk' });
+    expect(bare.details).toMatchObject({ code: 'invalid-value', path: [], value: '1kk' });
     expect(() => parseValue('1kk')).toThrow(/^"1kk" is not a valid value/);
   });
 });
