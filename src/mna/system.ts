@@ -59,12 +59,19 @@ export interface DeviceLookup {
 }
 
 function deviceLookup(index: ReadonlyMap<string, number>, devices: readonly Device[]): DeviceLookup {
-  return {
-    get(name) {
-      const k = index.get(name);
-      return k === undefined ? undefined : devices[k];
-    },
-  };
+  return new DeviceTable(index, devices);
+}
+
+/** Devices by name through the position table: a value change makes one of these, not a map. */
+class DeviceTable implements DeviceLookup {
+  constructor(
+    readonly index: ReadonlyMap<string, number>,
+    readonly devices: readonly Device[],
+  ) {}
+  get(name: string): Device | undefined {
+    const k = this.index.get(name);
+    return k === undefined ? undefined : this.devices[k];
+  }
 }
 
 let compilations = 0;
@@ -317,60 +324,97 @@ export function withRecords(
  * numbering and pattern, or null if it does not fit (it asks for other unknowns or entries).
  */
 export function rebind(system: CompiledSystem, k: number, record: ElementRecord): Device | null {
-  const device = createDevice(record);
-  const recorded = system.allocations[k]!;
-  const { labels, nodeIndex, branchIndex, pattern, nnz, n } = system;
-  let cursor = 0;
-  let fits = true;
-  const replay = (kind: UnknownLabel['kind'], name: string): number => {
-    const index = recorded[cursor++];
-    const label = index === undefined ? undefined : labels[index];
+  let binder = binders.get(system.pattern);
+  if (binder === undefined || binder.system.labels !== system.labels) {
+    binder = new Rebinder(system);
+    binders.set(system.pattern, binder);
+  }
+  return binder.rebind(k, record);
+}
+
+/** One rebinder per pattern: value changes (a Monte Carlo sample, say) create no contexts or closures. */
+const binders = new WeakMap<CscPattern, Rebinder>();
+
+/**
+ * The allocation and bind contexts of {@link rebind} as one object whose state is reset per call: the
+ * recorded unknowns of the element being rebound are replayed, and slots are looked up in the pattern.
+ */
+class Rebinder implements AllocationContext, BindContext {
+  #recorded: readonly number[] = [];
+  #cursor = 0;
+  #fits = true;
+  readonly #lookups: Pick<BindContext, 'node' | 'branchOf'>;
+
+  constructor(readonly system: CompiledSystem) {
+    this.#lookups = lookups(system.nodeIndex, system.branchIndex);
+  }
+
+  rebind(k: number, record: ElementRecord): Device | null {
+    const device = createDevice(record);
+    this.#recorded = this.system.allocations[k]!;
+    this.#cursor = 0;
+    this.#fits = true;
+    device.allocateNodes?.(this);
+    device.allocateBranches?.(this);
+    if (!this.#fits || this.#cursor !== this.#recorded.length) return null;
+    device.bind(this);
+    return this.#fits ? device : null;
+  }
+
+  node(name: string): number {
+    return this.#lookups.node(name);
+  }
+
+  branchOf(name: string): number {
+    return this.#lookups.branchOf(name);
+  }
+
+  internalNode(owner: string, label: string): number {
+    return this.#replay('node', `${owner}#${label}`);
+  }
+
+  branch(owner: string): number {
+    return this.#replay('branch', owner);
+  }
+
+  #replay(kind: UnknownLabel['kind'], name: string): number {
+    const index = this.#recorded[this.#cursor++];
+    const label = index === undefined ? undefined : this.system.labels[index];
     if (label === undefined || label.kind !== kind || label.name !== name) {
-      fits = false;
-      return n;
+      this.#fits = false;
+      return this.system.n;
     }
     return index!;
-  };
-  const allocation: AllocationContext = {
-    node: (name) => nodeIndex.get(name) ?? -1,
-    internalNode: (owner, label) => replay('node', `${owner}#${label}`),
-    branch: (owner) => replay('branch', owner),
-  };
-  device.allocateNodes?.(allocation);
-  device.allocateBranches?.(allocation);
-  if (!fits || cursor !== recorded.length) return null;
-  const { Ap, Ai } = pattern;
-  const bind: BindContext = {
-    ...lookups(nodeIndex, branchIndex),
-    slots(pairs) {
-      const target = new Int32Array(pairs.length / 2);
-      for (let t = 0; t < target.length; t++) {
-        const i = pairs[2 * t]!;
-        const j = pairs[2 * t + 1]!;
-        if (i >= n || j >= n) {
-          target[t] = nnz;
-          continue;
-        }
-        // Rows are sorted within each column of the pattern.
-        let lo = Ap[j]!;
-        let hi = Ap[j + 1]! - 1;
-        let found = -1;
-        while (lo <= hi) {
-          const mid = (lo + hi) >> 1;
-          const row = Ai[mid]!;
-          if (row === i) {
-            found = mid;
-            break;
-          }
-          if (row < i) lo = mid + 1;
-          else hi = mid - 1;
-        }
-        if (found < 0) fits = false;
-        target[t] = found < 0 ? nnz : found;
+  }
+
+  slots(pairs: readonly number[]): Int32Array {
+    const { n, nnz } = this.system;
+    const { Ap, Ai } = this.system.pattern;
+    const target = new Int32Array(pairs.length / 2);
+    for (let t = 0; t < target.length; t++) {
+      const i = pairs[2 * t]!;
+      const j = pairs[2 * t + 1]!;
+      if (i >= n || j >= n) {
+        target[t] = nnz;
+        continue;
       }
-      return target;
-    },
-  };
-  device.bind(bind);
-  return fits ? device : null;
+      // Rows are sorted within each column of the pattern.
+      let lo = Ap[j]!;
+      let hi = Ap[j + 1]! - 1;
+      let found = -1;
+      while (lo <= hi) {
+        const mid = (lo + hi) >> 1;
+        const row = Ai[mid]!;
+        if (row === i) {
+          found = mid;
+          break;
+        }
+        if (row < i) lo = mid + 1;
+        else hi = mid - 1;
+      }
+      if (found < 0) this.#fits = false;
+      target[t] = found < 0 ? nnz : found;
+    }
+    return target;
+  }
 }
