@@ -261,6 +261,7 @@ export { formatNoise, type NoiseReportOptions, noiseTables } from './report/nois
 export { formatStabilityReport, rootsTable, stabilityTables } from './report/stability-table.js';
 export {
   type AcMeasureForm,
+  type CancelSignal,
   type Distribution,
   type JobHooks,
   type Measure,
@@ -275,6 +276,7 @@ export {
   monteCarlo,
   monteCarloJob,
   runMonteCarloJob,
+  type ScriptLocation,
   type SpecLimits,
   type Tolerance,
   WILSON_Z,

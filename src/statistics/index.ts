@@ -14,6 +14,7 @@ export {
   mergeMonteCarlo,
   type SpecLimits,
 } from './monte-carlo-result.js';
+export type { CancelSignal, ScriptLocation } from './signals.js';
 export { type MeasureSummary, WILSON_Z, type YieldEstimate } from './summary.js';
 export type { Distribution, Tolerance } from './tolerances.js';
 export {

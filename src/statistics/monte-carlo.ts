@@ -5,12 +5,14 @@
  * job (the circuit's JSON document, the options without callbacks, a range of samples) and the
  * parts are merged in sample order, so the result is the same, bit for bit, for any worker count.
  */
+
 import workerpool from 'workerpool';
 import type { Circuit } from '../circuit/circuit.js';
 import { cancelled, invalidValue } from '../errors/messages.js';
 import { type ErrorDetails, QuiescentError } from '../errors/quiescent-error.js';
 import { JobRun, type MonteCarloJobOptions, monteCarloJob, rangeOf } from './job.js';
 import { type MonteCarlo, type MonteCarloJson, mergeMonteCarlo } from './monte-carlo-result.js';
+import type { CancelSignal, ScriptLocation } from './signals.js';
 import { defaultWorkerScript, scriptArgument } from './worker-script.js';
 
 /** Options of {@link monteCarlo}: the run's options, the operating-point options, and how to run. */
@@ -20,12 +22,12 @@ export interface MonteCarloOptions extends MonteCarloJobOptions {
   /** Called as samples finish, with the samples done and the samples of the range. */
   readonly onProgress?: (done: number, total: number) => void;
   /** Stops the run with a `cancelled` error when aborted. */
-  readonly signal?: AbortSignal;
+  readonly signal?: CancelSignal;
   /**
    * The worker module, for bundled browser builds that serve it from their own URL (default: the
    * module shipped beside the library, `quiescent/dist/monte-carlo-worker.js`).
    */
-  readonly workerScript?: string | URL;
+  readonly workerScript?: string | ScriptLocation;
 }
 
 /** How long the calling thread computes before it lets other work (progress, an abort) run, in ms. */

@@ -3,6 +3,7 @@
  * (`monte-carlo-worker.js`), or, when the library runs from its TypeScript sources, a small module
  * that loads the TypeScript worker through the development loader.
  */
+import type { ScriptLocation } from './signals.js';
 
 /** The URL of the worker module for worker threads (Node) and module web workers (browsers). */
 export function defaultWorkerScript(): URL {
@@ -16,7 +17,7 @@ export function defaultWorkerScript(): URL {
  * The script argument for the pool: a file path for a `file:` URL (Node's worker threads take a path
  * string, not a URL string), the URL's text otherwise (browsers).
  */
-export function scriptArgument(script: string | URL): string {
+export function scriptArgument(script: string | ScriptLocation): string {
   if (typeof script === 'string') return script;
   if (script.protocol !== 'file:') return script.href;
   const path = decodeURIComponent(script.pathname);
