@@ -14,16 +14,7 @@ import {
   operatingPoint,
   QuiescentError,
 } from '../../src/index.js';
-
-function thrown(run: () => unknown): QuiescentError {
-  try {
-    run();
-  } catch (e) {
-    if (e instanceof QuiescentError) return e;
-    throw new Error(`expected a QuiescentError, got ${String(e)}`);
-  }
-  throw new Error('expected a QuiescentError, nothing was thrown');
-}
+import { thrown } from '../support/quiescent-error.js';
 
 const divider = () =>
   new Circuit()

@@ -256,6 +256,15 @@ export class Mosfet implements Device {
     const sign = this.sign;
     if (this.chargeBased) return this.chargeBasedReport(vgs, vds, vbs);
     return {
+      ...this.commonReport(vgs, vds, vbs),
+      thresholdVoltage: sign * this.vth,
+      overdrive: this.regionNow === 'cutoff' ? 0 : (this.reversed ? vgs - vds : vgs) - this.vth,
+    };
+  }
+  /** The fields both channel laws report, after an evaluation at mirrored (vgs, vds, vbs). */
+  private commonReport(vgs: number, vds: number, vbs: number): Record<string, number | string> {
+    const sign = this.sign;
+    return {
       vgs: sign * vgs,
       vds: sign * vds,
       vbs: sign * vbs,
@@ -266,8 +275,6 @@ export class Mosfet implements Device {
       cgs: this.p.gateSourceCapacitance,
       cgd: this.p.gateDrainCapacitance,
       region: this.regionNow,
-      thresholdVoltage: sign * this.vth,
-      overdrive: this.regionNow === 'cutoff' ? 0 : (this.reversed ? vgs - vds : vgs) - this.vth,
     };
   }
   /**
@@ -280,16 +287,7 @@ export class Mosfet implements Device {
     const forwardCoefficient = state[4]!;
     const n = this.p.slopeFactor;
     return {
-      vgs: sign * vgs,
-      vds: sign * vds,
-      vbs: sign * vbs,
-      id: this.id + this.junctionConductance * vds,
-      gm: this.gm,
-      gds: this.gds,
-      gmb: this.gmb,
-      cgs: this.p.gateSourceCapacitance,
-      cgd: this.p.gateDrainCapacitance,
-      region: this.regionNow,
+      ...this.commonReport(vgs, vds, vbs),
       thresholdVoltage: sign * this.vth0,
       overdrive: vgs - this.vth0,
       inversion: inversionLevel(forwardCoefficient),
