@@ -12,7 +12,6 @@ import {
   linearSweep,
   logSweep,
   operatingPoint,
-  QuiescentError,
 } from '../../src/index.js';
 import { thrown } from '../support/quiescent-error.js';
 
