@@ -97,7 +97,7 @@ describe('quasiStaticHarmonics', () => {
     ['an unknown element', { output: { element: 'R7' } }, 'unknown-element'],
   ] as const) {
     it(`refuses ${what} with ${code}`, () => {
-      // Source: the contract's error table.
+      // Source: the error table of docs/circuit-api.md, "Errors".
       try {
         quasiStaticHarmonics(diodeAttenuator(0.001), options as never);
         expect.unreachable('quasiStaticHarmonics accepted a bad argument');
