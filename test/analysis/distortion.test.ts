@@ -264,8 +264,8 @@ describe('the distortion estimate of transistor stages against the quasi-static 
   }
 
   it('handles a pnp stage as the mirror of the npn one', () => {
-    // Source: the mirror symmetry of the transport model (the contract: a pnp obeys the npn equations
-    // in the mirrored voltages), checked by the quasi-static check.
+    // Source: the mirror symmetry of the transport model (docs/devices.md, "Bipolar transistor": a
+    // pnp obeys the npn equations in the mirrored voltages), checked by the quasi-static check.
     const c = new Circuit()
       .voltageSource('VEE', 'vee', GROUND, { dc: -10 })
       .voltageSource('VB', 'b', GROUND, { dc: -0.65, ac: 0.003 })
@@ -299,7 +299,7 @@ describe('distortion arguments', () => {
     ['a malformed probe', { output: 42 }, 'invalid-value'],
   ] as const) {
     it(`refuses ${what} with ${code}`, () => {
-      // Source: the contract's error table.
+      // Source: docs/linearity.md, "The distortion estimate (method of nonlinear currents)".
       try {
         distortion(ac, options as never);
         expect.unreachable('distortion accepted a bad argument');
