@@ -165,7 +165,8 @@ describe('the diode in reverse breakdown', () => {
 
 describe('the diode temperature law', () => {
   it('gives Is itself at the reference temperature', () => {
-    // API contract: the law is 1 at T = Tref. Shockley: at 1 mA the junction sits at n·Vt·ln(I/Is + 1).
+    // docs/devices.md, "Temperature law of the saturation current": the law is 1 at T = Tref.
+    // Shockley: at 1 mA the junction sits at n·Vt·ln(I/Is + 1).
     const model = { saturationCurrent: 3e-15, referenceTemperature: 320 };
     const d = operatingPoint(currentDriven(1e-3, model), {
       temperature: 320,
