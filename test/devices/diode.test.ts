@@ -4,14 +4,14 @@ import { expectRelativelyClose } from '../support/close.js';
 import { diodeSeriesResistorSolution } from '../support/diode-series-resistor.js';
 
 const VT = thermalVoltage(298.15);
-const IS = 1e-14;
+const saturationCurrent = 1e-14;
 
 /** A supply V into a resistor R into the anode of diode D1, cathode to ground. */
 function seriesLoop(supply: number, resistance: number, model: object = {}): Circuit {
   return new Circuit()
     .voltageSource('V1', 'in', GROUND, { dc: supply })
     .resistor('R1', 'in', 'a', resistance)
-    .diode('D1', 'a', GROUND, { saturationCurrent: IS, ...model });
+    .diode('D1', 'a', GROUND, { saturationCurrent, ...model });
 }
 
 /** The diode driven by a DC current source, anode to cathode. */
@@ -36,7 +36,7 @@ describe('a diode in series with a resistor', () => {
           const ref = diodeSeriesResistorSolution({
             supply,
             resistance: 1000 + seriesResistance,
-            saturationCurrent: IS,
+            saturationCurrent,
             emissionCoefficient,
             thermalVoltage: VT,
           });
@@ -68,7 +68,7 @@ describe('a diode in series with a resistor', () => {
         const ref = diodeSeriesResistorSolution({
           supply,
           resistance: 1000,
-          saturationCurrent: IS,
+          saturationCurrent,
           emissionCoefficient,
           thermalVoltage: VT,
         });
@@ -147,19 +147,19 @@ describe('the diode in reverse breakdown', () => {
     const ref = diodeSeriesResistorSolution({
       supply: 12 - 5,
       resistance: 1000,
-      saturationCurrent: IS,
+      saturationCurrent,
       emissionCoefficient: 1,
       thermalVoltage: VT,
     });
     const d = op.diode('D1');
-    expectRelativelyClose(-d.current, ref.current + IS, 1e-9, 'breakdown current');
+    expectRelativelyClose(-d.current, ref.current + saturationCurrent, 1e-9, 'breakdown current');
     expectRelativelyClose(-d.voltage, 5 + ref.junctionVoltage, 1e-9, 'voltage beyond −BV');
   });
 
   it('passes only about −Is above −breakdownVoltage', () => {
     // Shockley law: i → −Is in reverse bias; e^(−4/Vt) of breakdown current is negligible at 1 V above −BV.
     const op = operatingPoint(seriesLoop(-4, 1000, { breakdownVoltage: 5 }), { junctionConductance: 1e-30 });
-    expectRelativelyClose(op.diode('D1').current, -IS, 1e-6, 'reverse current');
+    expectRelativelyClose(op.diode('D1').current, -saturationCurrent, 1e-6, 'reverse current');
   });
 });
 
@@ -218,7 +218,7 @@ describe('the junction conductance option', () => {
     // Common practice, no source: in reverse bias the junction passes −Is plus g·v.
     const op = operatingPoint(seriesLoop(-10, 1000), { junctionConductance: 1e-9 });
     const d = op.diode('D1');
-    expectRelativelyClose(d.current, -IS + 1e-9 * d.voltage, 1e-6, 'reverse current');
+    expectRelativelyClose(d.current, -saturationCurrent + 1e-9 * d.voltage, 1e-6, 'reverse current');
     expectRelativelyClose(d.conductance, 1e-9, 1e-6, 'reverse conductance');
   });
 });
