@@ -32,7 +32,7 @@ describe('acAnalysis on a common-emitter stage', () => {
     const gain = acAnalysis(op, { frequencies: [1e3] }).gain('c', 'b')[0]!;
     expectRelativelyClose(gain.re, -q.gm * parallel(RC, q.ro), 1e-7, 'v(c)/v(b)');
     expect(Math.abs(gain.im)).toBe(0);
-    // r_o is finite and matters here: (VA + vce)/ic within a percent.
+    // r_o is finite and matters here: (V_A + vce)/ic within a percent.
     expectRelativelyClose(q.ro, (80 + q.vce) / q.ic, 1e-2, 'r_o');
   });
 

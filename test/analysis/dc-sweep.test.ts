@@ -104,7 +104,7 @@ describe('dcSweep over an element parameter', () => {
         sweep.points[k]!.diode('D1').current,
         ref.current,
         1e-10,
-        `current at Rs = ${rs}`,
+        `current at R_S = ${rs}`,
       );
     });
   });
@@ -124,7 +124,7 @@ describe('dcSweep over temperature', () => {
     sweep.points.forEach((p, k) => {
       expect(p.thermalVoltage).toBe(thermalVoltage(values[k]!));
     });
-    // At the reference temperature Is is unchanged, so Banwell & Jayakumar (2000) applies as is.
+    // At the reference temperature I_S is unchanged, so Banwell & Jayakumar (2000) applies as is.
     expectRelativelyClose(sweep.voltage('a')[1]!, lambert(5, 1000).junctionVoltage, 1e-10, 'v(a) at Tref');
     // Common practice, no source: the forward voltage falls as the temperature rises.
     const v = sweep.voltage('a');

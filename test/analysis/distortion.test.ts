@@ -97,7 +97,7 @@ describe('the distortion estimate of a diode attenuator', () => {
 
   it('sees a shunt capacitor at 2f, not at f, when it solves for the 2nd harmonic', () => {
     // Source: the nonlinear-current algebra worked by hand for one node (Wambacq & Sansen, 1998, ch. 3):
-    // with Y(ω) = G + g₁ + jωC, V₁ = G·A/Y(ω), the current g₂·V₁²/2 (g₂ = Is·e^{v/nVt}/(2·(nVt)²))
+    // with Y(ω) = G + g₁ + jωC, V₁ = G·A/Y(ω), the current g₂·V₁²/2 (g₂ = I_S·e^{v/nVt}/(2·(nVt)²))
     // drives the node at 2f through Y(2ω): V₂ = −g₂·V₁²/(2·Y(2ω)).
     const amplitude = 0.001;
     const circuit = diodeAttenuator(amplitude).capacitor('C1', 'a', GROUND, '1u');

@@ -193,7 +193,7 @@ describe('linear DC operating point', () => {
 
     it('solves a vccs that feeds back on its own control voltage', () => {
       // nodal analysis with a dependent source (Alexander & Sadiku, 5th ed., 2013, §3.2, from memory):
-      // Is = vx/R + gm·vx, so vx = Is/(1/R + gm)
+      // the source current i_s = vx/R + gm·vx, so vx = i_s/(1/R + gm)
       const [is, r, gm] = [1e-3, 10e3, 4e-4];
       const op = operatingPoint(
         new Circuit()

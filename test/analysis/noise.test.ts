@@ -150,7 +150,7 @@ describe('shot noise of a diode', () => {
     const op = operatingPoint(c, TIGHT);
     const d = op.diode('sensor');
     const nz = noise(op, { output: 'a', frequencies: [1e3] });
-    const is = 1e-14 * 1; // at the reference temperature, Is(T) = Is
+    const is = 1e-14 * 1; // at the reference temperature, I_S(T) = I_S
     const exponential = d.current - 1e-12 * d.junctionVoltage; // the junction conductance's share taken out
     const z = parallel(R, d.resistance);
     const shot = Math.sqrt(2 * ELEMENTARY_CHARGE * (exponential + 2 * is)) * z;
@@ -167,7 +167,7 @@ describe('shot noise of a diode', () => {
     const op = operatingPoint(c, TIGHT);
     const d = op.diode('sensor');
     const nz = noise(op, { output: 'a', frequencies: [1e3] });
-    // The series noise current 4kT/Rs across Rs sees Rs ∥ (r_d + R), divided down to the anode.
+    // The series noise current 4kT/R_S across R_S sees R_S ∥ (r_d + R), divided down to the anode.
     const rs = 50;
     const rd = d.resistance;
     const across = Math.sqrt(fourKT(op.temperature) / rs) * parallel(rs, rd + 10e3);

@@ -31,7 +31,7 @@ describe('examples/voltage-controlled-attenuator', () => {
       expect(Math.abs(s.diodeCurrent - diodeCurrent(s.control)) / s.diodeCurrent).toBeLessThan(1e-6);
   });
 
-  it('attenuates as the divider of 4.7 kΩ and r_d ‖ 22 kΩ, with r_d = n·Vt/(I_D + Is)', () => {
+  it('attenuates as the divider of 4.7 kΩ and r_d ‖ 22 kΩ, with r_d = n·Vt/(I_D + I_S)', () => {
     // Small-signal diode resistance (Sedra & Smith, Microelectronic Circuits, 7th ed., 2015, §4.3; from memory).
     for (const s of curve) {
       const rd = (N * VT) / (diodeCurrent(s.control) + saturationCurrent);
