@@ -12,7 +12,7 @@ import { Circuit, dcSweep, GROUND, operatingPoint, prepareCircuit } from '../src
 
 const SUPPLY = 5;
 const RESISTORS = [1e3, 2.2e3, 3.3e3, 4.7e3, 10e3];
-const IS = 1e-14;
+const saturationCurrent = 1e-14;
 const VT = (1.380649e-23 * 298.15) / 1.602176634e-19;
 
 function ladder(): Circuit {
@@ -28,7 +28,7 @@ const floorState = { v: new Float64Array(4), J: new Float64Array(16), f: new Flo
 function handNewton(): number {
   const { v, J, f } = floorState;
   v.fill(0);
-  const vCritical = VT * Math.log(VT / (Math.SQRT2 * IS));
+  const vCritical = VT * Math.log(VT / (Math.SQRT2 * saturationCurrent));
   for (let iteration = 0; iteration < 200; iteration++) {
     J.fill(0);
     for (let k = 0; k < 4; k++) {
@@ -37,8 +37,8 @@ function handNewton(): number {
       const gRight = k < 3 ? 1 / RESISTORS[k + 1]! : 1 / RESISTORS[4]!;
       const right = k < 3 ? v[k + 1]! : 0;
       const e = Math.exp(v[k]! / VT);
-      const gd = (IS * e) / VT + 1e-12;
-      f[k] = gLeft * (v[k]! - left) + gRight * (v[k]! - right) + IS * (e - 1) + 1e-12 * v[k]!;
+      const gd = (saturationCurrent * e) / VT + 1e-12;
+      f[k] = gLeft * (v[k]! - left) + gRight * (v[k]! - right) + saturationCurrent * (e - 1) + 1e-12 * v[k]!;
       J[5 * k] = gLeft + gRight + gd;
       if (k > 0) J[4 * k + k - 1] = -gLeft;
       if (k < 3) J[4 * k + k + 1] = -gRight;

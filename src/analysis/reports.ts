@@ -52,7 +52,7 @@ export interface BjtReport {
   /** 1/(∂ib/∂vbe) at constant vce, in Ω. */
   readonly rpi: number;
   /**
-   * 1/(∂ic/∂vce) at constant vbe, in Ω: about (VA + vce)/ic with the Early effect in forward-active
+   * 1/(∂ic/∂vce) at constant vbe, in Ω: about (V_A + vce)/ic with the Early effect in forward-active
    * operation; without it only the reverse-biased junction slopes the output, so `ro` is astronomically
    * large (of order 1e40 Ω or more), though finite.
    */

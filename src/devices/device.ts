@@ -1,5 +1,5 @@
 /**
- * The device contract. Every element kind implements it, so that adding a device never touches the
+ * The device interface. Every element kind implements it, so that adding a device never touches the
  * analyses. A device never sees the matrix layout: it asks the binding context for integer slots once,
  * then adds its conductances and currents at those slots on every load.
  *

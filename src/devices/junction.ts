@@ -20,7 +20,7 @@ export function thermalVoltage(temperature: number): number {
 /**
  * Saturation current at temperature T from its value at Tref, in the usual form derived from the
  * intrinsic carrier density (e.g. Sze & Ng, Physics of Semiconductor Devices, 3rd ed., 2007):
- * Is(T) = Is·(T/Tref)^(p/n)·exp((Eg/(n·Vt(T)))·(T/Tref − 1)), with Eg in volts.
+ * I_S(T) = I_S·(T/Tref)^(p/n)·exp((E_g/(n·Vt(T)))·(T/Tref − 1)), with E_g in volts.
  */
 export function saturationCurrentAt(
   isRef: number,
@@ -64,7 +64,7 @@ export function boundedExpCurvature(a: number): number {
 
 /**
  * The critical voltage of a junction, where its current-voltage curve bends most sharply (the point
- * of minimum radius of curvature): n·Vt·ln(n·Vt/(√2·Is)). Steps above it are damped.
+ * of minimum radius of curvature): n·Vt·ln(n·Vt/(√2·I_S)). Steps above it are damped.
  */
 export function criticalVoltage(nVt: number, saturationCurrent: number): number {
   return nVt * Math.log(nVt / (Math.SQRT2 * saturationCurrent));

@@ -1,5 +1,5 @@
 /**
- * The sparse complex solver behind the ComplexLinearSolver contract: the real solver's policy
+ * The sparse complex solver behind the ComplexLinearSolver interface: the real solver's policy
  * (analyse once, factor, refactor with fallback, analyse again before reporting a column) on split
  * real and imaginary arrays. It reuses a
  * real symbolic analysis when given one (options.symbolic), since jωC entries sit on the pattern
@@ -16,7 +16,7 @@ import { luSolveComplex, luSolveTransposeComplex } from './triangular-complex.js
 import type { ComplexLinearSolver, CscPattern, FactorStatus } from './types.js';
 import { computeRowScaleComplex, createLuWorkspace } from './workspace.js';
 
-/** A sparse complex solver: the contract plus the transpose solve and statistics. */
+/** A sparse complex solver: the interface plus the transpose solve and statistics. */
 export interface SparseComplexSolver extends ComplexLinearSolver {
   /** The symbolic analysis, once the first factor() has computed it (or the one given). */
   readonly symbolic: SymbolicLu | null;

@@ -1,5 +1,5 @@
 /**
- * The sparse real solver behind the RealLinearSolver contract: symbolic analysis on the first
+ * The sparse real solver behind the RealLinearSolver interface: symbolic analysis on the first
  * values, a fresh factorization, then refactorizations on the kept pivot order that fall back to a
  * fresh factorization when a pivot fails the threshold test (the refactor-or-factor policy of KLU,
  * Davis & Palamadai Natarajan, ACM TOMS 37, 2010). A fresh factorization that finds no acceptable
@@ -55,7 +55,7 @@ export interface LuStatistics {
   readonly nnzU: number;
 }
 
-/** A sparse real solver: the contract plus several right-hand sides and statistics. */
+/** A sparse real solver: the interface plus several right-hand sides and statistics. */
 export interface SparseRealSolver extends RealLinearSolver {
   /** The symbolic analysis, once the first factor() has computed it. */
   readonly symbolic: SymbolicLu | null;

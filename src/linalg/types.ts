@@ -1,5 +1,5 @@
 /**
- * The contract between the analyses and the linear solvers.
+ * The interface between the analyses and the linear solvers.
  *
  * Key to the names (after CSparse): a matrix of order `n` in compressed-column form keeps
  * `Ap` (column pointers, length n+1), `Ai` (row indices, length nnz) and its values apart,

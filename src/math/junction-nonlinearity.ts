@@ -4,7 +4,7 @@
  *
  * Exponential junction, driven by v(t) = v̂·cos ωt around its bias, x = v̂/(n·Vt):
  *   i(t) = I_Q·e^(x·cos ωt) = I_Q·(I0(x) + 2·Σ_{k≥1} Ik(x)·cos kωt)      (A&S 9.6.34)
- * (I_Q the quiescent current, the −Is term of the diode law left out), so
+ * (I_Q the quiescent current, the −I_S term of the diode law left out), so
  * - the k-th harmonic relative to the fundamental is Ik(x)/I1(x);
  * - the mean current rises by the factor I0(x): the mean shift relative to I_Q is I0(x) − 1;
  * - the first-order Taylor remainder e^u − 1 − u, relative to the linear term u, is at most

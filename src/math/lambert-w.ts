@@ -86,7 +86,7 @@ export function lambertW0(x: number): number {
  * W0(e^logX), the Lambert W function of an argument given by its natural logarithm, for any finite
  * real logX. It solves w + ln w = logX directly, so e^logX may lie far outside the double range
  * (logX > 709.78): for example the exact current of a diode in series with a resistor at a large
- * supply voltage needs W0 of exp((V + Is·R)/(n·Vt)), an exponent of several thousand.
+ * supply voltage needs W0 of exp((V + I_S·R)/(n·Vt)), an exponent of several thousand.
  *
  * @param logX - ln of the argument of W0, finite
  * @returns W0(e^logX), to within a few units in the last place (0 where e^logX underflows)

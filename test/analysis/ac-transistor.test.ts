@@ -32,7 +32,7 @@ describe('acAnalysis on a common-emitter stage', () => {
     const gain = acAnalysis(op, { frequencies: [1e3] }).gain('c', 'b')[0]!;
     expectRelativelyClose(gain.re, -q.gm * parallel(RC, q.ro), 1e-7, 'v(c)/v(b)');
     expect(Math.abs(gain.im)).toBe(0);
-    // r_o is finite and matters here: (VA + vce)/ic within a percent.
+    // r_o is finite and matters here: (V_A + vce)/ic within a percent.
     expectRelativelyClose(q.ro, (80 + q.vce) / q.ic, 1e-2, 'r_o');
   });
 
@@ -198,15 +198,15 @@ describe('acAnalysis on a diode attenuator', () => {
     // Source: the diode small-signal model with series resistance and junction capacitance (Sedra and
     // Smith, from memory): H = Z_D/(R + Z_D).
     const R = 4.7e3;
-    const RS = 5;
+    const seriesResistance = 5;
     const c = new Circuit()
       .voltageSource('Vin', 'in', GROUND, { dc: 5, ac: 1 })
       .resistor('R1', 'in', 'a', R)
-      .diode('D1', 'a', GROUND, { seriesResistance: RS, junctionCapacitance: 4e-12, transitTime: 1e-9 });
+      .diode('D1', 'a', GROUND, { seriesResistance, junctionCapacitance: 4e-12, transitTime: 1e-9 });
     const op = operatingPoint(c);
     const d = op.diode('D1');
     const f = 3e6;
-    const zd = new Complex(d.conductance, 2 * Math.PI * f * d.capacitance).inverse().add(RS);
+    const zd = new Complex(d.conductance, 2 * Math.PI * f * d.capacitance).inverse().add(seriesResistance);
     const expected = zd.div(zd.add(R));
     const gain = acAnalysis(op, { frequencies: [f] }).gain('a', 'in')[0]!;
     expect(gain.sub(expected).abs()).toBeLessThan(1e-10 * expected.abs());

@@ -4,7 +4,7 @@ import { expectRelativelyClose } from '../support/close.js';
 import { diodeSeriesResistorSolution } from '../support/diode-series-resistor.js';
 import { thrown } from '../support/quiescent-error.js';
 
-const IS = 1e-14;
+const saturationCurrent = 1e-14;
 /** The reference has no junction conductance; tight tolerances make the comparison exact. */
 const EXACT = { junctionConductance: 1e-30, relativeTolerance: 1e-12 };
 
@@ -12,7 +12,7 @@ function loop(): Circuit {
   return new Circuit()
     .voltageSource('V1', 'in', GROUND, { dc: 5 })
     .resistor('R1', 'in', 'a', '1k')
-    .diode('D1', 'a', GROUND, { saturationCurrent: IS });
+    .diode('D1', 'a', GROUND, { saturationCurrent });
 }
 
 function lambert(supply: number, resistance: number, temperature = 298.15) {
@@ -20,7 +20,7 @@ function lambert(supply: number, resistance: number, temperature = 298.15) {
   return diodeSeriesResistorSolution({
     supply,
     resistance,
-    saturationCurrent: IS,
+    saturationCurrent,
     emissionCoefficient: 1,
     thermalVoltage: thermalVoltage(temperature),
   });
@@ -51,7 +51,7 @@ describe('dcSweep over a source value', () => {
       const c = new Circuit()
         .voltageSource('V1', 'in', GROUND, { dc: v })
         .resistor('R1', 'in', 'a', '1k')
-        .diode('D1', 'a', GROUND, { saturationCurrent: IS });
+        .diode('D1', 'a', GROUND, { saturationCurrent });
       return sum + operatingPoint(c).iterations;
     }, 0);
     expect(sweep.iterations).toBeLessThan(cold);
@@ -104,7 +104,7 @@ describe('dcSweep over an element parameter', () => {
         sweep.points[k]!.diode('D1').current,
         ref.current,
         1e-10,
-        `current at Rs = ${rs}`,
+        `current at R_S = ${rs}`,
       );
     });
   });
@@ -124,7 +124,7 @@ describe('dcSweep over temperature', () => {
     sweep.points.forEach((p, k) => {
       expect(p.thermalVoltage).toBe(thermalVoltage(values[k]!));
     });
-    // At the reference temperature Is is unchanged, so Banwell & Jayakumar (2000) applies as is.
+    // At the reference temperature I_S is unchanged, so Banwell & Jayakumar (2000) applies as is.
     expectRelativelyClose(sweep.voltage('a')[1]!, lambert(5, 1000).junctionVoltage, 1e-10, 'v(a) at Tref');
     // Common practice, no source: the forward voltage falls as the temperature rises.
     const v = sweep.voltage('a');

@@ -97,7 +97,7 @@ describe('the distortion estimate of a diode attenuator', () => {
 
   it('sees a shunt capacitor at 2f, not at f, when it solves for the 2nd harmonic', () => {
     // Source: the nonlinear-current algebra worked by hand for one node (Wambacq & Sansen, 1998, ch. 3):
-    // with Y(ω) = G + g₁ + jωC, V₁ = G·A/Y(ω), the current g₂·V₁²/2 (g₂ = Is·e^{v/nVt}/(2·(nVt)²))
+    // with Y(ω) = G + g₁ + jωC, V₁ = G·A/Y(ω), the current g₂·V₁²/2 (g₂ = I_S·e^{v/nVt}/(2·(nVt)²))
     // drives the node at 2f through Y(2ω): V₂ = −g₂·V₁²/(2·Y(2ω)).
     const amplitude = 0.001;
     const circuit = diodeAttenuator(amplitude).capacitor('C1', 'a', GROUND, '1u');
@@ -264,8 +264,8 @@ describe('the distortion estimate of transistor stages against the quasi-static 
   }
 
   it('handles a pnp stage as the mirror of the npn one', () => {
-    // Source: the mirror symmetry of the transport model (the contract: a pnp obeys the npn equations
-    // in the mirrored voltages), checked by the quasi-static check.
+    // Source: the mirror symmetry of the transport model (docs/devices.md, "Bipolar transistor": a
+    // pnp obeys the npn equations in the mirrored voltages), checked by the quasi-static check.
     const c = new Circuit()
       .voltageSource('VEE', 'vee', GROUND, { dc: -10 })
       .voltageSource('VB', 'b', GROUND, { dc: -0.65, ac: 0.003 })
@@ -299,7 +299,7 @@ describe('distortion arguments', () => {
     ['a malformed probe', { output: 42 }, 'invalid-value'],
   ] as const) {
     it(`refuses ${what} with ${code}`, () => {
-      // Source: the contract's error table.
+      // Source: docs/linearity.md, "The distortion estimate (method of nonlinear currents)".
       try {
         distortion(ac, options as never);
         expect.unreachable('distortion accepted a bad argument');

@@ -44,7 +44,7 @@ describe('logSweep', () => {
   });
 
   it('refuses zero, negative, non-finite and reversed arguments', () => {
-    // Source: the contract's `invalid-value` for every bad input (API.md).
+    // Source: docs/analyses-ac.md, "Options" (`invalid-value` for every bad argument).
     expectInvalid(() => logSweep(0, 10, 10), 'start');
     expectInvalid(() => logSweep(-1, 10, 10), 'start');
     expectInvalid(() => logSweep(1, Number.POSITIVE_INFINITY, 10), 'stop');
@@ -72,7 +72,7 @@ describe('linearSweep', () => {
   });
 
   it('refuses non-finite ends and a count that is not a whole number of at least 2', () => {
-    // Source: the contract's `invalid-value` for every bad input (API.md).
+    // Source: docs/analyses-ac.md, "Options" (`invalid-value` for every bad argument).
     expectInvalid(() => linearSweep(Number.NaN, 1, 3), 'start');
     expectInvalid(() => linearSweep(0, Number.POSITIVE_INFINITY, 3), 'stop');
     expectInvalid(() => linearSweep(0, 1, 1), 'count');

@@ -102,7 +102,8 @@ const RUNS = { numRuns: 100 };
 
 describe('random linear resistor networks with sources', () => {
   it('obey Kirchhoff’s current law at every node, from the element currents', () => {
-    // Kirchhoff's current law; every element current flows from its first node to its second (API.md)
+    // Kirchhoff's current law; every element current flows from its first node to its second
+    // (docs/circuit-api.md, "Sign conventions")
     fc.assert(
       fc.property(network, (branches) => {
         const c = build(branches);
@@ -122,7 +123,8 @@ describe('random linear resistor networks with sources', () => {
   });
 
   it('obey Tellegen’s theorem: the sum of v·i over all elements is zero', () => {
-    // Tellegen, 1952; every element current here follows the passive sign convention (API.md)
+    // Tellegen, 1952; every element current here follows the passive sign convention
+    // (docs/circuit-api.md, "Sign conventions")
     fc.assert(
       fc.property(network, (branches) => {
         const c = build(branches);

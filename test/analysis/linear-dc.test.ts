@@ -178,9 +178,9 @@ describe('linear DC operating point', () => {
       expectClose(op.current('E1'), (25 * 0.9) / 2000, 'i(E1)');
     });
 
-    it('drives a load with the current of a vccs, in the direction of the contract', () => {
-      // Alexander & Sadiku, 5th ed., 2013, §2.2 (from memory): i = gm·v_ctrl; API.md: gm·V(ctrl)
-      // flows from outFrom through the source into outTo
+    it('drives a load with the current of a vccs, in the direction of the documented sign convention', () => {
+      // Alexander & Sadiku, 5th ed., 2013, §2.2 (from memory): i = gm·v_ctrl; docs/circuit-api.md, "Elements":
+      // gm·V(ctrl) flows from outFrom through the source into outTo
       const op = operatingPoint(
         new Circuit()
           .voltageSource('V1', 'in', GROUND, { dc: 2 })
@@ -193,7 +193,7 @@ describe('linear DC operating point', () => {
 
     it('solves a vccs that feeds back on its own control voltage', () => {
       // nodal analysis with a dependent source (Alexander & Sadiku, 5th ed., 2013, §3.2, from memory):
-      // Is = vx/R + gm·vx, so vx = Is/(1/R + gm)
+      // the source current i_s = vx/R + gm·vx, so vx = i_s/(1/R + gm)
       const [is, r, gm] = [1e-3, 10e3, 4e-4];
       const op = operatingPoint(
         new Circuit()
@@ -206,7 +206,7 @@ describe('linear DC operating point', () => {
 
     it('sets a ccvs output from the current of its controlling voltage source', () => {
       // Alexander & Sadiku, 5th ed., 2013, §2.2 (from memory): v = r·i_ctrl; the source current
-      // follows the passive sign convention of API.md
+      // follows the passive sign convention of docs/circuit-api.md, "Sign conventions"
       const op = operatingPoint(
         new Circuit()
           .voltageSource('V1', 'in', GROUND, { dc: 5 })
@@ -263,7 +263,8 @@ describe('linear DC operating point', () => {
       const vout = -10 * 0.7;
       expectClose(op.voltage('out'), vout, 'v(out)');
       expect(Math.abs(op.voltage('minus'))).toBeLessThan(1e-15); // virtual ground
-      // API.md: the op-amp current flows out of its output into the circuit, here into Rl and Rf.
+      // docs/circuit-api.md, "Elements": the op-amp current flows out of its output into the
+      // circuit, here into Rl and Rf.
       expectClose(op.current('U1'), vout / 2000 + vout / 10000, 'i(U1)');
     });
 
@@ -363,8 +364,8 @@ describe('linear DC operating point', () => {
     });
 
     it('loses output voltage across its output resistance as the load grows heavier', () => {
-      // Model of API.md: v(out) = A·(v+ − v−) − Ro·i_out. With the load RL and the feedback
-      // divider (conductance Gf = 1/(Rf + Rg)) at the output, i_out = v(out)·(1/RL + Gf), so
+      // Model of docs/devices.md, "Op-amp": v(out) = A·(v+ − v−) − Ro·i_out. With the load RL and
+      // the feedback divider (conductance Gf = 1/(Rf + Rg)) at the output, i_out = v(out)·(1/RL + Gf), so
       // v(out) = A·vin/(1 + Aβ + Ro·(1/RL + Gf)) (derived from the model; Sedra & Smith, 7th ed.,
       // 2015, §11.3, from memory, for the feedback view)
       const ro = 75;
@@ -425,7 +426,7 @@ describe('linear DC operating point', () => {
 
   describe('iterations', () => {
     it('solves a linear circuit in one step', () => {
-      // API.md, "Linear DC": one solve, iterations 1
+      // docs/analyses.md, "Strategies": one solve, iterations 1
       const circuits = [
         new Circuit().voltageSource('V1', 'a', GROUND, { dc: 1 }).resistor('R1', 'a', GROUND, 1),
         new Circuit()
@@ -440,7 +441,8 @@ describe('linear DC operating point', () => {
   });
 
   describe('sign conventions of op.current', () => {
-    // API.md, "Sign conventions"; the passive sign convention of Alexander & Sadiku, 5th ed., 2013, §1.5
+    // docs/circuit-api.md, "Sign conventions"; the passive sign convention of Alexander & Sadiku,
+    // 5th ed., 2013, §1.5
 
     const circuit = () =>
       new Circuit()
@@ -491,7 +493,7 @@ describe('linear DC operating point', () => {
     }
 
     it('rejects a node the circuit lacks with unknown-node, naming it', () => {
-      // API.md, "Errors"
+      // docs/circuit-api.md, "Errors"
       const op = solved();
       expectRejected(() => op.voltage('nowhere'), 'unknown-node', 'nowhere');
       expectRejected(() => op.voltage('a', 'elsewhere'), 'unknown-node', 'elsewhere');
@@ -499,7 +501,7 @@ describe('linear DC operating point', () => {
     });
 
     it('rejects an element the circuit lacks, or one without a device report, with unknown-element', () => {
-      // API.md, "Errors" and "Analyses": op.device answers for diodes and transistors
+      // docs/circuit-api.md, "Errors"; docs/analyses.md, "Results": op.device answers for diodes and transistors
       const op = solved();
       expectRejected(() => op.current('R9'), 'unknown-element', 'R9');
       expectRejected(() => op.current('a'), 'unknown-element', 'a');
@@ -508,7 +510,7 @@ describe('linear DC operating point', () => {
     });
 
     it('answers for ground as a node at 0 V', () => {
-      // API.md: voltages are taken with respect to GROUND by default
+      // docs/analyses.md, "Results": voltages are taken with respect to GROUND by default
       const op = solved();
       expect(op.voltage(GROUND)).toBe(0);
       expectClose(op.voltage(GROUND, 'a'), -1, 'v(gnd, a)');

@@ -52,7 +52,7 @@ describe('formatLinearity', () => {
   });
 
   it('ends with a verdict naming the worst junction and the scale that meets the budget', () => {
-    // Source: the definitions of withinBudget and maxInputScale (the contract).
+    // Source: the definitions of withinBudget and maxInputScale (docs/analyses.md, "Linearity report").
     const verdict = linearityVerdict(report);
     expect(text.endsWith(verdict)).toBe(true);
     expect(report.withinBudget).toBe(false);

@@ -45,8 +45,8 @@ describe('linearity of a MOSFET channel', () => {
   });
 
   it('leaves out a channel in the triode region', () => {
-    // Source: the contract (channels are judged in saturation only). 5 kΩ at 10 V pulls the drain to
-    // about 0.6 V with V_ov = 2.3 V: triode by the square law's own boundary vds < V_ov.
+    // Source: docs/linearity.md, "Junction entries" (channels are judged in saturation only).
+    // 5 kΩ at 10 V pulls the drain to about 0.6 V with V_ov = 2.3 V: triode by the square law's own boundary vds < V_ov.
     const c = new Circuit()
       .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
       .voltageSource('VG', 'g', GROUND, { dc: 3, ac: 0.01 })
@@ -78,8 +78,8 @@ describe('linearity of a diode', () => {
   });
 
   it('reports the frequency of the largest amplitude, the lowest one on a tie', () => {
-    // Source: the contract's definition of the worst frequency. Without capacitance every frequency
-    // gives the same amplitude; with 10 nF across the junction the amplitude falls with frequency.
+    // Source: the worst frequency as docs/linearity.md, "Junction entries", defines it. Without
+    // capacitance every frequency gives the same amplitude; with 10 nF across the junction the amplitude falls with frequency.
     const flat = linearity(
       acAnalysis(operatingPoint(diodeAttenuator(0.001)), { frequencies: [1e3, 10, 100] }),
     );
@@ -154,7 +154,7 @@ describe('maxInputScale', () => {
   }
 
   it('is Infinity when no junction carries signal', () => {
-    // Source: the contract (Infinity where no junction carries signal).
+    // Source: docs/linearity.md, "Junction entries" (Infinity where no junction carries signal).
     const c = new Circuit()
       .voltageSource('V1', 'in', GROUND, { dc: 0.7 })
       .resistor('R1', 'in', 'a', 20)
@@ -168,7 +168,7 @@ describe('maxInputScale', () => {
 
 describe('the linearity budget', () => {
   it('defaults to 0.1 and flags each junction by errorBound ≤ budget', () => {
-    // Source: the contract (default budget 0.1).
+    // Source: docs/linearity.md, "Junction entries" (default budget 0.1).
     const report = linearity(acAnalysis(operatingPoint(mixedCircuit(0.05)), { frequencies: [1] }));
     expect(report.budget).toBe(0.1);
     for (const j of report.junctions) expect(j.withinBudget).toBe(j.errorBound <= 0.1);
@@ -178,7 +178,7 @@ describe('the linearity budget', () => {
 
   for (const budget of [0, -0.1, Number.NaN, Number.POSITIVE_INFINITY, '0.1']) {
     it(`refuses a budget of ${String(budget)} with invalid-value naming the budget`, () => {
-      // Source: the contract's error table (a value out of range is invalid-value).
+      // Source: docs/linearity.md, "The verdict at an output" (a budget out of range is invalid-value).
       const ac = acAnalysis(operatingPoint(diodeAttenuator(0.001)), { frequencies: [1] });
       try {
         linearity(ac, { budget: budget as number });
@@ -195,8 +195,8 @@ describe('the linearity budget', () => {
 describe('junction bias', () => {
   for (const polarity of ['npn', 'pnp'] as const) {
     it(`marks the reverse-biased collector junction of an ${polarity} stage and scales the drive without it`, () => {
-      // Source: the contract's sign conventions (vbe, vbc in the forward sense are vbe/vbc for npn and
-      // veb/vcb for pnp); forward-active operation has the emitter junction on and the collector one off
+      // Source: docs/devices.md, "Bipolar transistor" (vbe, vbc in the forward sense are vbe/vbc for
+      // npn and veb/vcb for pnp); forward-active operation has the emitter junction on and the collector one off
       // (common practice, no source).
       const s = polarity === 'npn' ? 1 : -1;
       const c = new Circuit()

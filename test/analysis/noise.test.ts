@@ -150,7 +150,7 @@ describe('shot noise of a diode', () => {
     const op = operatingPoint(c, TIGHT);
     const d = op.diode('sensor');
     const nz = noise(op, { output: 'a', frequencies: [1e3] });
-    const is = 1e-14 * 1; // at the reference temperature, Is(T) = Is
+    const is = 1e-14 * 1; // at the reference temperature, I_S(T) = I_S
     const exponential = d.current - 1e-12 * d.junctionVoltage; // the junction conductance's share taken out
     const z = parallel(R, d.resistance);
     const shot = Math.sqrt(2 * ELEMENTARY_CHARGE * (exponential + 2 * is)) * z;
@@ -167,7 +167,7 @@ describe('shot noise of a diode', () => {
     const op = operatingPoint(c, TIGHT);
     const d = op.diode('sensor');
     const nz = noise(op, { output: 'a', frequencies: [1e3] });
-    // The series noise current 4kT/Rs across Rs sees Rs ∥ (r_d + R), divided down to the anode.
+    // The series noise current 4kT/R_S across R_S sees R_S ∥ (r_d + R), divided down to the anode.
     const rs = 50;
     const rd = d.resistance;
     const across = Math.sqrt(fourKT(op.temperature) / rs) * parallel(rs, rd + 10e3);
@@ -227,12 +227,12 @@ describe('a common-emitter stage', () => {
   // Circuits, 5th ed., Wiley 2009, §11.4 (bipolar transistor noise): collector shot noise 2qI_C,
   // base shot noise 2qI_B; referred to the input source through the gain g_m·R_C·r_π/(R_S + r_π),
   // the collector's becomes (2qI_C/g_m²)·((R_S + r_π)/r_π)² and the base's 2qI_B·R_S².
-  const RS = 2e3;
+  const sourceResistance = 2e3;
   const RC = 4.7e3;
   const c = new Circuit()
     .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
     .voltageSource('signal', 'src', GROUND, { dc: 0.66, ac: 1 })
-    .resistor('source', 'src', 'b', RS, { noiseless: true })
+    .resistor('source', 'src', 'b', sourceResistance, { noiseless: true })
     .resistor('load', 'vcc', 'c', RC, { noiseless: true })
     .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, { polarity: 'npn', forwardBeta: 150 });
   const op = operatingPoint(c, TIGHT);
@@ -243,14 +243,16 @@ describe('a common-emitter stage', () => {
   it('puts the collector and base shot noise at the output', () => {
     expect(q.region).toBe('forward-active');
     const collector = Math.sqrt(q2 * q.ic) * RC;
-    const base = Math.sqrt(q2 * q.ib) * parallel(RS, q.rpi) * q.gm * RC;
+    const base = Math.sqrt(q2 * q.ib) * parallel(sourceResistance, q.rpi) * q.gm * RC;
     expectRelativelyClose(share(nz, 'Q1', 'shot', 'collector'), collector, 1e-6, 'collector shot');
     expectRelativelyClose(share(nz, 'Q1', 'shot', 'base'), base, 1e-6, 'base shot');
     expectRelativelyClose(nz.outputDensity[0]!, Math.hypot(collector, base), 1e-6, 'total');
   });
 
   it('refers it to the input as 2qI_B·R_S² + (2qI_C/g_m²)·((R_S + r_π)/r_π)²', () => {
-    const referred = q2 * q.ib * RS ** 2 + ((q2 * q.ic) / q.gm ** 2) * ((RS + q.rpi) / q.rpi) ** 2;
+    const referred =
+      q2 * q.ib * sourceResistance ** 2 +
+      ((q2 * q.ic) / q.gm ** 2) * ((sourceResistance + q.rpi) / q.rpi) ** 2;
     expectRelativelyClose(nz.inputDensity![0]!, Math.sqrt(referred), 1e-6, 'input-referred');
   });
 });
@@ -295,7 +297,7 @@ describe('an op-amp in a non-inverting amplifier', () => {
   // The noise-gain formula of an op-amp stage (W. Jung, ed., Op Amp Applications Handbook, Analog
   // Devices / Newnes 2005, §1.7 "Op amp noise"): with noise gain G = 1 + R_F/R_G,
   // e_out² = G²·(e_n² + i_n²·R_S² + 4kT·R_S) + i_n²·R_F² + 4kT·R_F + 4kT·R_G·(R_F/R_G)².
-  const RS = 1e3;
+  const sourceResistance = 1e3;
   const RF = 99e3;
   const RG = 1e3;
   const en = 8e-9;
@@ -303,7 +305,7 @@ describe('an op-amp in a non-inverting amplifier', () => {
   const build = (finite: boolean) =>
     new Circuit()
       .voltageSource('microphone', 'src', GROUND, { dc: 0, ac: 1 })
-      .resistor('source', 'src', 'p', RS)
+      .resistor('source', 'src', 'p', sourceResistance)
       .resistor('feedback', 'out', 'n', RF)
       .resistor('ground leg', 'n', GROUND, RG)
       .opAmp(
@@ -322,7 +324,7 @@ describe('an op-amp in a non-inverting amplifier', () => {
     const e2 = en * en * (1 + 100 / f);
     const i2 = inoise * inoise * (1 + 1e3 / f);
     return Math.sqrt(
-      G * G * (e2 + i2 * RS * RS + fourKT(T) * RS) +
+      G * G * (e2 + i2 * sourceResistance * sourceResistance + fourKT(T) * sourceResistance) +
         i2 * RF * RF +
         fourKT(T) * RF +
         fourKT(T) * RG * (RF / RG) ** 2,

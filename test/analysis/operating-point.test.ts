@@ -23,7 +23,7 @@ describe('operatingPoint strategies', () => {
   });
 
   it('records plain Newton when it succeeds', () => {
-    // Source: the contract's strategy names and attempts (API.md).
+    // Source: the strategy names and attempts of docs/analyses.md, "Strategies".
     const op = operatingPoint(diodeChain(3));
     expect(op.strategy).toBe('newton');
     expect(op.attempts).toEqual([{ strategy: 'newton', iterations: op.iterations, converged: true }]);

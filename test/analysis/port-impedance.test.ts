@@ -125,12 +125,12 @@ describe('portImpedance of transistor and op-amp outputs', () => {
   it("gives an emitter follower's output impedance R_E ‖ r_o ‖ (R_s + r_π)/(1 + g_m·r_π)", () => {
     // Source: hybrid-π analysis of the common-collector stage; approximately (R_s/(β + 1) + 1/g_m) ‖ R_E.
     // A. S. Sedra and K. C. Smith, "Microelectronic Circuits", emitter follower (from memory).
-    const RS = 1e3;
+    const sourceResistance = 1e3;
     const RE = 2.2e3;
     const c = new Circuit()
       .voltageSource('Vcc', 'vcc', GROUND, { dc: 12 })
       .voltageSource('Vin', 'in', GROUND, { dc: 6, ac: 1 })
-      .resistor('Rs', 'in', 'b', RS)
+      .resistor('Rs', 'in', 'b', sourceResistance)
       .bjt(
         'Q1',
         { collector: 'vcc', base: 'b', emitter: 'e' },
@@ -141,12 +141,27 @@ describe('portImpedance of transistor and op-amp outputs', () => {
     const q = op.bjt('Q1');
     const beta0 = q.gm * q.rpi;
     const z = portImpedance(op, { plus: 'e' }, { frequencies: [1e3] })[0]!;
-    expectRelativelyClose(z.re, parallel(RE, q.ro, (RS + q.rpi) / (1 + beta0)), 1e-6, 'exact Z_out');
+    expectRelativelyClose(
+      z.re,
+      parallel(RE, q.ro, (sourceResistance + q.rpi) / (1 + beta0)),
+      1e-6,
+      'exact Z_out',
+    );
     expect(Math.abs(z.im)).toBe(0);
-    expectRelativelyClose(z.re, parallel(RS / (beta0 + 1) + 1 / q.gm, RE), 2e-2, 'textbook Z_out');
+    expectRelativelyClose(
+      z.re,
+      parallel(sourceResistance / (beta0 + 1) + 1 / q.gm, RE),
+      2e-2,
+      'textbook Z_out',
+    );
     // The same stage seen from its driving source: R_s + r_π + (β0 + 1)·(R_E ‖ r_o) (same source).
     const zin = acAnalysis(op, { frequencies: [1e3] }).sourceImpedance('Vin')[0]!;
-    expectRelativelyClose(zin.re, RS + q.rpi + (beta0 + 1) * parallel(RE, q.ro), 1e-6, 'Z_in seen by Vin');
+    expectRelativelyClose(
+      zin.re,
+      sourceResistance + q.rpi + (beta0 + 1) * parallel(RE, q.ro),
+      1e-6,
+      'Z_in seen by Vin',
+    );
   });
 
   it("divides an op-amp's output resistance by the loop gain: R_out/(1 + Aβ + R_out/(R1 + R2))", () => {

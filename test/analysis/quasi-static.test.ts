@@ -41,8 +41,8 @@ describe('quasiStaticHarmonics', () => {
   it('matches the Fourier series of the logarithm for a diode driven by a current source', () => {
     // Source: ln(1 + a·cos θ) = ln((1 + √(1 − a²))/2) + 2·Σ_k (−1)^(k+1)·(r^k/k)·cos kθ,
     // r = (1 − √(1 − a²))/a (Gradshteyn & Ryzhik, Table of Integrals, 7th ed., 2007, 1.514). The
-    // junction voltage is n·Vt·ln((I + Is)/Is) with I = I0 + Î·cos θ, so its h-th harmonic is
-    // 2·n·Vt·(−1)^(h+1)·r^h/h with a = Î/(I0 + Is). The drive's phase of 30° shifts harmonic h by 30°·h.
+    // junction voltage is n·Vt·ln((I + I_S)/I_S) with I = I0 + Î·cos θ, so its h-th harmonic is
+    // 2·n·Vt·(−1)^(h+1)·r^h/h with a = Î/(I0 + I_S). The drive's phase of 30° shifts harmonic h by 30°·h.
     const i0 = 1e-3;
     const peak = 4e-4;
     const c = new Circuit()
@@ -97,7 +97,7 @@ describe('quasiStaticHarmonics', () => {
     ['an unknown element', { output: { element: 'R7' } }, 'unknown-element'],
   ] as const) {
     it(`refuses ${what} with ${code}`, () => {
-      // Source: the contract's error table.
+      // Source: the error table of docs/circuit-api.md, "Errors".
       try {
         quasiStaticHarmonics(diodeAttenuator(0.001), options as never);
         expect.unreachable('quasiStaticHarmonics accepted a bad argument');

@@ -9,8 +9,9 @@ import {
 } from '../../src/index.js';
 
 /**
- * The builder's contract: every method checks its own arguments at once, returns the circuit, and
- * rejects bad input with a QuiescentError whose message names the element. The ranges checked here
+ * What the builder promises (docs/circuit-api.md, introduction and "Elements"): every method
+ * checks its own arguments at once, returns the circuit, and rejects bad input with a
+ * QuiescentError whose message names the element. The ranges checked here
  * (a resistance is positive, a capacitance or inductance is not negative, a unit symbol must fit
  * the quantity) are the physical ones of any circuits text, e.g. C. K. Alexander and M. N. O.
  * Sadiku, Fundamentals of Electric Circuits, 5th ed., 2013, ch. 2 and 6 (from memory); the SI
@@ -92,14 +93,15 @@ describe('Circuit builder', () => {
     });
 
     it('defaults a source to no DC value and no AC signal', () => {
-      // API.md, "Building a circuit": dc and ac are optional (common practice, no source)
+      // docs/circuit-api.md, "Sources and their AC excitation": dc and ac are optional (common practice, no source)
       const c = new Circuit().voltageSource('V1', 'a', GROUND).currentSource('I1', 'a', GROUND, {});
       expect(c.element('V1')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
       expect(c.element('I1')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
     });
 
     it('accepts zero for a capacitance and an inductance, and negative source values and gains', () => {
-      // API.md: zero is a valid capacitance; a source or a controlled gain may have either sign
+      // docs/circuit-api.md, "Elements": zero is a valid capacitance; a source or a controlled gain
+      // may have either sign
       // (Alexander & Sadiku, 5th ed., 2013, §2.2 and §4.2, from memory)
       const c = new Circuit()
         .capacitor('C1', 'a', GROUND, 0)
@@ -121,7 +123,7 @@ describe('Circuit builder', () => {
     });
 
     it('ties the MOSFET body to its source when no body is given, and keeps the polarity', () => {
-      // API.md, "Building a circuit": body defaults to source
+      // docs/circuit-api.md, "Elements": body defaults to source
       const c = new Circuit().mosfet('M1', { drain: 'd', gate: 'g', source: 's' }, { polarity: 'pmos' });
       expect(c.element('M1')).toMatchObject({ source: 's', body: 's', polarity: 'pmos' });
     });
@@ -148,12 +150,12 @@ describe('Circuit builder', () => {
       ['an empty element name', () => new Circuit().resistor('', 'a', 'b', 1)],
       ['a number as element name', () => new Circuit().resistor(7 as unknown as string, 'a', 'b', 1)],
     ])('rejects %s with invalid-circuit', (_, build) => {
-      // API.md: element names are non-empty strings
+      // docs/circuit-api.md, "Elements": element names are non-empty strings
       expectRejected(build, 'invalid-circuit', 'name');
     });
 
     it('rejects an empty node name, naming the element and the terminal', () => {
-      // API.md: node names are non-empty strings
+      // docs/circuit-api.md, "Elements": node names are non-empty strings
       expectRejected(() => new Circuit().resistor('R1', '', 'b', 1), 'invalid-circuit', 'R1.a');
       expectRejected(() => new Circuit().capacitor('C1', 'a', '', 1), 'invalid-circuit', 'C1.b');
       expectRejected(
@@ -170,7 +172,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects an empty controlling-element name of a ccvs or cccs', () => {
-      // API.md: the controlling element is named
+      // docs/circuit-api.md, "Elements": the controlling element is named
       expectRejected(() => new Circuit().ccvs('H1', ['a', GROUND], '', 1), 'invalid-circuit', 'H1.control');
       expectRejected(() => new Circuit().cccs('F1', ['a', GROUND], '', 1), 'invalid-circuit', 'F1.control');
     });
@@ -178,7 +180,7 @@ describe('Circuit builder', () => {
 
   describe('rejects duplicate names', () => {
     it('rejects a second element of the same name with duplicate-name, whatever its kind', () => {
-      // API.md: element names are unique within a circuit
+      // docs/circuit-api.md, "Elements": element names are unique within a circuit
       const c = new Circuit().resistor('X1', 'a', GROUND, 1);
       const error = expectRejected(() => c.capacitor('X1', 'a', GROUND, 1e-9), 'duplicate-name', 'X1');
       expect(error.details).toEqual({ code: 'duplicate-name', name: 'X1' });
@@ -275,7 +277,7 @@ describe('Circuit builder', () => {
 
   describe('rejects malformed source settings', () => {
     it('rejects an unknown source setting with invalid-circuit naming it', () => {
-      // API.md: a source takes { dc?, ac? }
+      // docs/circuit-api.md, "Sources and their AC excitation": a source takes { dc?, ac? }
       expectRejected(
         () => new Circuit().voltageSource('V1', 'a', GROUND, { dc: 1, amplitude: 2 } as never),
         'invalid-circuit',
@@ -289,7 +291,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects a source setting that is not an object', () => {
-      // API.md: a source takes { dc?, ac? }
+      // docs/circuit-api.md, "Sources and their AC excitation": a source takes { dc?, ac? }
       expectRejected(
         () => new Circuit().voltageSource('V1', 'a', GROUND, 5 as never),
         'invalid-circuit',
@@ -310,7 +312,7 @@ describe('Circuit builder', () => {
 
   describe('rejects bad terminal maps', () => {
     it('rejects output and control pairs that are not two node names', () => {
-      // API.md: out and control are [plus, minus] pairs
+      // docs/circuit-api.md, "Elements": out and control are [plus, minus] pairs
       expectRejected(
         () => new Circuit().vcvs('E1', ['a'] as unknown as [string, string], ['b', 'c'], 1),
         'invalid-circuit',
@@ -330,7 +332,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects an op-amp terminal map with a missing or an unknown terminal', () => {
-      // API.md: op-amp terminals are { plus, minus, output }
+      // docs/circuit-api.md, "Elements": op-amp terminals are { plus, minus, output }
       expectRejected(
         () => new Circuit().opAmp('U1', { plus: 'a', minus: 'b' } as never),
         'invalid-circuit',
@@ -345,7 +347,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects transistor terminal maps with a missing or an unknown terminal', () => {
-      // API.md: bjt { collector, base, emitter }; mosfet { drain, gate, source, body? }
+      // docs/circuit-api.md, "Elements": bjt { collector, base, emitter }; mosfet { drain, gate, source, body? }
       expectRejected(
         () => new Circuit().bjt('Q1', { collector: 'c', base: 'b' } as never, { polarity: 'npn' }),
         'invalid-circuit',
@@ -384,7 +386,7 @@ describe('Circuit builder', () => {
       ['nmos', 'a MOSFET polarity'],
       ['', 'an empty string'],
     ])('rejects %s (%s) as a bipolar polarity', (polarity) => {
-      // API.md: model.polarity is 'npn' | 'pnp'
+      // docs/devices.md, "Bipolar transistor": model.polarity is 'npn' | 'pnp'
       expectRejected(
         () => new Circuit().bjt('Q9', { collector: 'c', base: 'b', emitter: 'e' }, { polarity } as never),
         'invalid-circuit',
@@ -393,7 +395,7 @@ describe('Circuit builder', () => {
     });
 
     it.each([['PMOS'], ['npn'], ['p']])('rejects %s as a MOSFET polarity', (polarity) => {
-      // API.md: model.polarity is 'nmos' | 'pmos'
+      // docs/devices.md, "MOSFET": model.polarity is 'nmos' | 'pmos'
       expectRejected(
         () => new Circuit().mosfet('M9', { drain: 'd', gate: 'g', source: 's' }, { polarity } as never),
         'invalid-circuit',
@@ -402,7 +404,8 @@ describe('Circuit builder', () => {
     });
 
     it('requires a model with a polarity for a transistor', () => {
-      // API.md: the transistor model (with its polarity) is required
+      // docs/circuit-api.md, "Elements"; docs/devices.md, "Bipolar transistor" and "MOSFET": the model
+      // (with its polarity) is required
       expectRejected(
         () => new Circuit().bjt('Q1', { collector: 'c', base: 'b', emitter: 'e' }, undefined as never),
         'invalid-circuit',
@@ -492,7 +495,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects a parameter the model does not have with invalid-circuit naming it', () => {
-      // API.md, "Device models": the parameter names are fixed
+      // docs/devices.md, introduction: the parameter names are fixed
       expectRejected(
         () => new Circuit().diode('D1', 'a', 'b', { saturationcurrent: 1e-14 } as never),
         'invalid-circuit',
@@ -515,7 +518,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects a model that is not an object', () => {
-      // API.md, "Device models": a model is an object of parameters
+      // docs/devices.md, introduction: a model is an object of parameters
       expectRejected(() => new Circuit().diode('D1', 'a', 'b', [] as never), 'invalid-circuit', 'D1.model');
       expectRejected(
         () => new Circuit().opAmp('U1', { plus: 'a', minus: 'b', output: 'c' }, 3 as never),
@@ -601,14 +604,14 @@ describe('Circuit builder', () => {
         'U4.options.outputResistance',
       ],
     ])('rejects %s with invalid-value', (_, build, path) => {
-      // ranges of API.md, "Device models" (Is > 0, resistances and capacitances ≥ 0, 0 < m < 1);
+      // ranges of the parameter tables of docs/devices.md (I_S > 0, resistances and capacitances ≥ 0, 0 < m < 1);
       // physical meaning: A. S. Sedra and K. C. Smith, Microelectronic Circuits, 7th ed., 2015,
       // ch. 4 and 6 (from memory)
       expectRejected(build, 'invalid-value', path);
     });
 
     it('accepts Infinity where it removes an effect, and zero for capacitances and transit times', () => {
-      // API.md, "Device models": zero removes capacitances; Infinity is the default breakdown voltage
+      // docs/devices.md, introduction and "Diode": zero removes capacitances; Infinity is the default breakdown voltage
       const c = new Circuit()
         .diode('D1', 'a', 'b', {
           breakdownVoltage: Number.POSITIVE_INFINITY,

@@ -212,7 +212,7 @@ describe('Circuit JSON documents', () => {
     });
 
     it('rejects a name that is not a non-empty string', () => {
-      // API.md: element names are non-empty strings
+      // docs/circuit-api.md, "Elements": element names are non-empty strings
       const doc = dividerDocument();
       doc.elements[1]!.name = 5;
       expectRejected(doc, 'invalid-circuit', 'elements[1].name');
@@ -255,7 +255,7 @@ describe('Circuit JSON documents', () => {
     });
 
     it('names the path of a bad AC setting', () => {
-      // API.md: ac is a magnitude or { magnitude, phase }
+      // docs/circuit-api.md, "Sources and their AC excitation": ac is a magnitude or { magnitude, phase }
       const doc = dividerDocument();
       doc.elements[0]!.ac = 'big';
       expectRejected(doc, 'invalid-circuit', 'elements[0].ac');
@@ -296,7 +296,7 @@ describe('Circuit JSON documents', () => {
     });
 
     it('reports a bad polarity at the element field where the document keeps it', () => {
-      // API.md: polarity 'npn' | 'pnp'; common practice, no source: the path points into the document
+      // docs/devices.md, "Bipolar transistor": polarity 'npn' | 'pnp'; common practice, no source: the path points into the document
       const doc = {
         format: DOCUMENT_FORMAT,
         version: DOCUMENT_VERSION,
@@ -332,7 +332,7 @@ describe('Circuit JSON documents', () => {
     });
 
     it('names the path of a bad model parameter', () => {
-      // API.md, "Device models": Is > 0
+      // docs/devices.md, "Diode": saturationCurrent > 0
       const doc = {
         format: DOCUMENT_FORMAT,
         version: DOCUMENT_VERSION,
@@ -345,7 +345,7 @@ describe('Circuit JSON documents', () => {
     });
 
     it('rejects a duplicate name with duplicate-name', () => {
-      // API.md: element names are unique
+      // docs/circuit-api.md, "Elements": element names are unique
       const doc = dividerDocument();
       doc.elements[3]!.name = 'R1';
       expectRejected(doc, 'duplicate-name', 'R1');

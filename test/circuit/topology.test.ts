@@ -79,8 +79,8 @@ describe('topology checks before solving', () => {
 
     it('reports a cut set of current sources and capacitors as the nodes it cuts off', () => {
       // Chua, Desoer & Kuh, 1987 (from memory): a cut set of current sources (capacitors open at
-      // DC) leaves the potential of one side undetermined; the contract reports it as floating-node,
-      // which comes before singular
+      // DC) leaves the potential of one side undetermined; docs/circuit-api.md, "Errors", reports it
+      // as floating-node, which comes before singular
       const c = new Circuit()
         .voltageSource('V1', 'in', GROUND, { dc: 5 })
         .resistor('R1', 'in', 'a', 1e3)
@@ -180,7 +180,7 @@ describe('topology checks before solving', () => {
 
   describe('unknown-element', () => {
     it('rejects a ccvs whose controlling element is not in the circuit, naming both', () => {
-      // API.md, "Building a circuit": controlling elements are checked when an analysis starts
+      // docs/circuit-api.md, introduction: controlling elements are checked when an analysis starts
       const c = new Circuit()
         .voltageSource('V1', 'a', GROUND, { dc: 1 })
         .resistor('R1', 'a', GROUND, 1e3)
@@ -191,7 +191,7 @@ describe('topology checks before solving', () => {
     });
 
     it('rejects a cccs whose controlling element is not in the circuit', () => {
-      // API.md, "Building a circuit"
+      // docs/circuit-api.md, introduction
       const c = new Circuit()
         .voltageSource('V1', 'a', GROUND, { dc: 1 })
         .resistor('R1', 'a', GROUND, 1e3)
@@ -206,7 +206,7 @@ describe('topology checks before solving', () => {
       ['a capacitor', (c: Circuit) => c.capacitor('X', 'a', GROUND, 1e-9)],
       ['an op-amp', (c: Circuit) => c.opAmp('X', { plus: GROUND, minus: 'o', output: 'o' })],
     ])('rejects %s as the controlling element, as it has no current unknown', (_, add) => {
-      // API.md: the controlling element is a voltage source, an inductor, a vcvs or a ccvs
+      // docs/circuit-api.md, "Elements": the controlling element is a voltage source, an inductor, a vcvs or a ccvs
       const c = new Circuit().voltageSource('V1', 'a', GROUND, { dc: 1 }).resistor('R1', 'a', GROUND, 1e3);
       add(c);
       c.cccs('F1', [GROUND, 'b'], 'X', 2).resistor('R2', 'b', GROUND, 1e3);
@@ -215,7 +215,7 @@ describe('topology checks before solving', () => {
   });
 
   describe('order of precedence: no-ground, then floating-node, then singular', () => {
-    // API.md, "Errors": where several apply, the first in this order is reported
+    // docs/circuit-api.md, "Errors": where several apply, the first in this order is reported
 
     it('reports no-ground when the circuit also floats and has a voltage loop', () => {
       const c = new Circuit()

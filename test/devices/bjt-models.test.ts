@@ -165,7 +165,7 @@ describe('the temperature exponent of β', () => {
 
 describe('the diffusion capacitance cpi', () => {
   it('is never negative in any region (property)', () => {
-    // docs/devices.md: cpi = Cbe(vbe) + τF·∂(Is·e_f/q_h)/∂vbe, non-negative by construction.
+    // docs/devices.md: cpi = Cbe(vbe) + τF·∂(I_S·e_f/q_h)/∂vbe, non-negative by construction.
     fc.assert(
       fc.property(
         fc.double({ min: -3, max: 1.1, noNaN: true }).map(noSubnormal),
@@ -199,8 +199,8 @@ describe('the diffusion capacitance cpi', () => {
     );
   });
 
-  it('equals τF times the slope of the forward transport current Is·e_f/q_h', () => {
-    // Central difference of Is·e_f/q_h at vbe = 0.75 V, knee 2 mA, in saturation (vbc = 0.6 V) where
+  it('equals τF times the slope of the forward transport current I_S·e_f/q_h', () => {
+    // Central difference of I_S·e_f/q_h at vbe = 0.75 V, knee 2 mA, in saturation (vbc = 0.6 V) where
     // the old τF·gm rule failed (common practice, no source).
     const [is, ik, tau] = [1e-15, 2e-3, 1e-9];
     const forward = (v: number) => {
@@ -232,7 +232,7 @@ describe('the diffusion capacitance cpi', () => {
 
 describe('the knee current in the nonlinear currents', () => {
   it('gives the exact second and third derivatives of the collector current in vbe', () => {
-    // Central differences of ic(vbe) at vbc = −2 V, VA = 40 V, knee 1 mA near the knee (common
+    // Central differences of ic(vbe) at vbc = −2 V, V_A = 40 V, knee 1 mA near the knee (common
     // practice, no source): five-point stencils, step 0.5 mV (second) and 2 mV (third).
     const collector = (vbe: number) => operatingPoint(stage(vbe), BARE).bjt('Q1').ic;
     const stage = (vbe: number) =>

@@ -42,26 +42,28 @@ describe('the bipolar transistor in forward-active operation', () => {
     expectRelativelyClose(q.ro, 60 / q.ic, 5 / 60 + 1e-6, 'r_o ≈ V_A/I_C');
   });
 
-  it('gives ie = ic + ib and ic = β·ib·(1 + vce/VA)', () => {
-    // Transport Ebers-Moll model of the contract, forward-active, reverse terms negligible. The
-    // junction conductance is made negligible: 1e-12 S × 3.7 V would be 5e-6 of the 0.7 µA base current.
+  it('gives ie = ic + ib and ic = β·ib·(1 + vce/V_A)', () => {
+    // Transport Ebers-Moll model of docs/devices.md, "Bipolar transistor", forward-active, reverse
+    // terms negligible. The junction conductance is made negligible: 1e-12 S × 3.7 V would be 5e-6
+    // of the 0.7 µA base current.
     const q = biased(0.65, 5, model, { junctionConductance: 1e-30 });
     expectRelativelyClose(q.ie, q.ic + q.ib, 1e-15, 'ie');
-    // The reverse leakage Is/βR = 1e-15 A is 1.5e-9 of the base current.
+    // The reverse leakage I_S/βR = 1e-15 A is 1.5e-9 of the base current.
     expectRelativelyClose(q.ic / q.ib, 120 * (1 + 5 / 60), 1e-8, 'ic/ib');
     expect(q.region).toBe('forward-active');
     expect(q.ro).toBeGreaterThan(0);
   });
 
   it('has an r_o beyond 1e15 Ω without the Early effect (only the reverse junction slopes the output)', () => {
-    // API contract: without earlyVoltage the factor (1 + vce/VA) is 1.
+    // docs/devices.md, "Bipolar transistor": without earlyVoltage the factor (1 + vce/V_A) is 1.
     expect(biased(0.65, 5, { polarity: 'npn' }).ro).toBeGreaterThan(1e15);
   });
 });
 
 describe('the pnp transistor', () => {
   it('has ic and ib positive, vbe and vce negative, in forward-active operation', () => {
-    // API contract sign conventions; the pnp obeys the npn law in the mirrored voltages.
+    // docs/circuit-api.md, "Sign conventions", and docs/devices.md, "Bipolar transistor": the pnp
+    // obeys the npn law in the mirrored voltages.
     const model = { forwardBeta: 80, earlyVoltage: 40 };
     const c = new Circuit()
       .voltageSource('Veb', 'e', 'b', { dc: 0.66 })

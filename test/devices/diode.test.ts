@@ -4,14 +4,14 @@ import { expectRelativelyClose } from '../support/close.js';
 import { diodeSeriesResistorSolution } from '../support/diode-series-resistor.js';
 
 const VT = thermalVoltage(298.15);
-const IS = 1e-14;
+const saturationCurrent = 1e-14;
 
 /** A supply V into a resistor R into the anode of diode D1, cathode to ground. */
 function seriesLoop(supply: number, resistance: number, model: object = {}): Circuit {
   return new Circuit()
     .voltageSource('V1', 'in', GROUND, { dc: supply })
     .resistor('R1', 'in', 'a', resistance)
-    .diode('D1', 'a', GROUND, { saturationCurrent: IS, ...model });
+    .diode('D1', 'a', GROUND, { saturationCurrent, ...model });
 }
 
 /** The diode driven by a DC current source, anode to cathode. */
@@ -21,7 +21,7 @@ function currentDriven(current: number, model: object = {}): Circuit {
 
 describe('a diode in series with a resistor', () => {
   // Banwell & Jayakumar, "Exact analytical solution for current flow through diode with series
-  // resistance", Electronics Letters 36(4), 2000: i = (n·Vt/R)·W0((Is·R/(n·Vt))·e^((V+Is·R)/(n·Vt))) − Is.
+  // resistance", Electronics Letters 36(4), 2000: i = (n·Vt/R)·W0((I_S·R/(n·Vt))·e^((V+I_S·R)/(n·Vt))) − I_S.
   // The reference has no parallel conductance, so the junction conductance is set negligible here:
   // at 0.1 V the diode carries well under a picoampere, comparable to 1e-12 S × 0.1 V.
   const exact = { junctionConductance: 1e-30, relativeTolerance: 1e-12 };
@@ -36,7 +36,7 @@ describe('a diode in series with a resistor', () => {
           const ref = diodeSeriesResistorSolution({
             supply,
             resistance: 1000 + seriesResistance,
-            saturationCurrent: IS,
+            saturationCurrent,
             emissionCoefficient,
             thermalVoltage: VT,
           });
@@ -68,7 +68,7 @@ describe('a diode in series with a resistor', () => {
         const ref = diodeSeriesResistorSolution({
           supply,
           resistance: 1000,
-          saturationCurrent: IS,
+          saturationCurrent,
           emissionCoefficient,
           thermalVoltage: VT,
         });
@@ -103,7 +103,7 @@ describe('the diode small-signal and capacitance report', () => {
     expect(d.voltage).toBeLessThan(0.7);
   });
 
-  it('reports the depletion capacitance Cj0/(1 − V/Vj)^m in reverse bias', () => {
+  it('reports the depletion capacitance C_j0/(1 − V/Vj)^m in reverse bias', () => {
     // The abrupt/graded junction depletion law (Sze & Ng, Physics of Semiconductor Devices, from memory).
     const model = { junctionCapacitance: 2e-12, junctionPotential: 0.8, gradingCoefficient: 0.4 };
     for (const v of [-10, -1, 0]) {
@@ -141,31 +141,32 @@ describe('the diode small-signal and capacitance report', () => {
 
 describe('the diode in reverse breakdown', () => {
   it('conducts beyond −breakdownVoltage like a forward junction offset by the breakdown voltage', () => {
-    // The breakdown term −Is·e^(−(v+BV)/(n·Vt)) is the Shockley law mirrored about −BV, so a reverse
-    // supply of V through R is the forward loop of Banwell & Jayakumar (2000) with supply V − BV.
+    // The breakdown term −I_S·e^(−(v+V_BR)/(n·Vt)) is the Shockley law mirrored about −V_BR, so a reverse
+    // supply of V through R is the forward loop of Banwell & Jayakumar (2000) with supply V − V_BR.
     const op = operatingPoint(seriesLoop(-12, 1000, { breakdownVoltage: 5 }), { junctionConductance: 1e-30 });
     const ref = diodeSeriesResistorSolution({
       supply: 12 - 5,
       resistance: 1000,
-      saturationCurrent: IS,
+      saturationCurrent,
       emissionCoefficient: 1,
       thermalVoltage: VT,
     });
     const d = op.diode('D1');
-    expectRelativelyClose(-d.current, ref.current + IS, 1e-9, 'breakdown current');
-    expectRelativelyClose(-d.voltage, 5 + ref.junctionVoltage, 1e-9, 'voltage beyond −BV');
+    expectRelativelyClose(-d.current, ref.current + saturationCurrent, 1e-9, 'breakdown current');
+    expectRelativelyClose(-d.voltage, 5 + ref.junctionVoltage, 1e-9, 'voltage beyond −V_BR');
   });
 
-  it('passes only about −Is above −breakdownVoltage', () => {
-    // Shockley law: i → −Is in reverse bias; e^(−4/Vt) of breakdown current is negligible at 1 V above −BV.
+  it('passes only about −I_S above −breakdownVoltage', () => {
+    // Shockley law: i → −I_S in reverse bias; e^(−4/Vt) of breakdown current is negligible at 1 V above −V_BR.
     const op = operatingPoint(seriesLoop(-4, 1000, { breakdownVoltage: 5 }), { junctionConductance: 1e-30 });
-    expectRelativelyClose(op.diode('D1').current, -IS, 1e-6, 'reverse current');
+    expectRelativelyClose(op.diode('D1').current, -saturationCurrent, 1e-6, 'reverse current');
   });
 });
 
 describe('the diode temperature law', () => {
-  it('gives Is itself at the reference temperature', () => {
-    // API contract: the law is 1 at T = Tref. Shockley: at 1 mA the junction sits at n·Vt·ln(I/Is + 1).
+  it('gives I_S itself at the reference temperature', () => {
+    // docs/devices.md, "Temperature law of the saturation current": the law is 1 at T = Tref.
+    // Shockley: at 1 mA the junction sits at n·Vt·ln(I/I_S + 1).
     const model = { saturationCurrent: 3e-15, referenceTemperature: 320 };
     const d = operatingPoint(currentDriven(1e-3, model), {
       temperature: 320,
@@ -175,7 +176,7 @@ describe('the diode temperature law', () => {
     expectRelativelyClose(d.voltage, vt * Math.log1p(1e-3 / 3e-15), 1e-10, 'junction voltage at Tref');
   });
 
-  it('follows ln Is(T) = ln Is + (p/n)·ln(T/Tref) + (q·Eg/(n·k))·(1/Tref − 1/T), p the temperature exponent, at another temperature', () => {
+  it('follows ln I_S(T) = ln I_S + (p/n)·ln(T/Tref) + (q·E_g/(n·k))·(1/Tref − 1/T), p the temperature exponent, at another temperature', () => {
     // Sze & Ng, Physics of Semiconductor Devices (3rd ed., 2007), from the intrinsic carrier density,
     // written in its Arrhenius form (from memory), with the exact SI 2019 constants.
     const k = 1.380649e-23;
@@ -214,10 +215,10 @@ describe('the junction conductance option', () => {
   });
 
   it('is included in the reported conductance and carries the reverse current', () => {
-    // Common practice, no source: in reverse bias the junction passes −Is plus g·v.
+    // Common practice, no source: in reverse bias the junction passes −I_S plus g·v.
     const op = operatingPoint(seriesLoop(-10, 1000), { junctionConductance: 1e-9 });
     const d = op.diode('D1');
-    expectRelativelyClose(d.current, -IS + 1e-9 * d.voltage, 1e-6, 'reverse current');
+    expectRelativelyClose(d.current, -saturationCurrent + 1e-9 * d.voltage, 1e-6, 'reverse current');
     expectRelativelyClose(d.conductance, 1e-9, 1e-6, 'reverse conductance');
   });
 });

@@ -17,7 +17,7 @@ function biased(vgs: number, vds: number, model: MosfetModel, vbs = 0) {
 
 describe('the MOSFET square law', () => {
   // Shichman & Hodges, "Modeling and simulation of insulated-gate field-effect transistor switching
-  // circuits", IEEE J. Solid-State Circuits 3(3), 1968, as written in the contract.
+  // circuits", IEEE J. Solid-State Circuits 3(3), 1968, as docs/devices.md, "MOSFET", writes it.
   const model: MosfetModel = {
     polarity: 'nmos',
     gainFactor: BETA,
@@ -76,7 +76,8 @@ describe('the MOSFET square law', () => {
 
 describe('the pmos transistor', () => {
   it('has id positive and vgs, vds and its threshold negative in saturation', () => {
-    // The contract's sign conventions; the pmos obeys the nmos law in vsg, vsd, vsb.
+    // docs/circuit-api.md, "Sign conventions", and docs/devices.md, "MOSFET": the pmos obeys the nmos
+    // law in vsg, vsd, vsb.
     const model: MosfetModel = {
       polarity: 'pmos',
       gainFactor: BETA,
@@ -95,7 +96,7 @@ describe('the pmos transistor', () => {
   });
 
   it('defaults to a threshold of −0.7 V', () => {
-    // API contract default.
+    // docs/devices.md, "MOSFET" (parameter table).
     expect(biased(-1, -1, { polarity: 'pmos' }).report.thresholdVoltage).toBe(-0.7);
   });
 });

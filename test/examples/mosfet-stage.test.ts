@@ -6,8 +6,8 @@ import { analyseMosfetStage, MOSFET_STAGE } from '../../examples/mosfet-stage.js
 const BETA = 6e-3;
 const VTH = 1.1;
 const VG = (5 * 680e3) / 1680e3;
-const RS = MOSFET_STAGE.sourceResistance;
-const overdrive = (-1 + Math.sqrt(1 + 2 * BETA * RS * (VG - VTH))) / (BETA * RS);
+const sourceResistance = MOSFET_STAGE.sourceResistance;
+const overdrive = (-1 + Math.sqrt(1 + 2 * BETA * sourceResistance * (VG - VTH))) / (BETA * sourceResistance);
 const id = 0.5 * BETA * overdrive * overdrive;
 const gm = BETA * overdrive;
 
@@ -22,13 +22,13 @@ describe('examples/mosfet-stage', () => {
 
   it('has the degenerated gain −g_m·R_D/(1 + g_m·R_S)', () => {
     // Sedra & Smith, Microelectronic Circuits, 7th ed., 2015, §7.6 (from memory).
-    const expected = (-gm * MOSFET_STAGE.drainResistance) / (1 + gm * RS);
+    const expected = (-gm * MOSFET_STAGE.drainResistance) / (1 + gm * sourceResistance);
     expect(Math.abs(s.gain - expected) / Math.abs(expected)).toBeLessThan(2e-3);
   });
 
   it('judges the channel by x = v̂gs/V_ov with the square law’s bound x/2', () => {
     // v̂gs = v̂in/(1 + g_m·R_S) with the gate divider (405 kΩ) far above the 1 µF reactance at 10 kHz.
-    const x = MOSFET_STAGE.carrierAmplitude / (1 + gm * RS) / overdrive;
+    const x = MOSFET_STAGE.carrierAmplitude / (1 + gm * sourceResistance) / overdrive;
     expect(Math.abs(s.normalized - x) / x).toBeLessThan(2e-3);
     expect(s.errorBound).toBeCloseTo(s.normalized / 2, 12);
     // The bound reaches the 5 % budget at x = 0.1.

@@ -8,12 +8,7 @@ import { Circuit, quasiStaticHarmonics } from '../../src/index.js';
 
 // Vt = k·T/q at 298.15 K (25 °C, the default temperature) with the exact SI 2019 constants (BIPM, SI Brochure, 9th ed., 2019).
 const VT = (1.380649e-23 * 298.15) / 1.602176634e-19;
-const {
-  seriesResistance: RS,
-  controlResistance: RC,
-  saturationCurrent: IS,
-  emissionCoefficient: N,
-} = ATTENUATOR;
+const { seriesResistance, controlResistance: RC, saturationCurrent, emissionCoefficient: N } = ATTENUATOR;
 
 /** The diode current from KVL around control, 22 kΩ and the diode (Shockley's law), by bisection. */
 function diodeCurrent(control: number): number {
@@ -21,7 +16,7 @@ function diodeCurrent(control: number): number {
   let hi = control / RC;
   for (let i = 0; i < 200; i++) {
     const mid = (lo + hi) / 2;
-    const residual = RC * mid + N * VT * Math.log(mid / IS + 1) - control;
+    const residual = RC * mid + N * VT * Math.log(mid / saturationCurrent + 1) - control;
     if (residual > 0) hi = mid;
     else lo = mid;
   }
@@ -36,12 +31,12 @@ describe('examples/voltage-controlled-attenuator', () => {
       expect(Math.abs(s.diodeCurrent - diodeCurrent(s.control)) / s.diodeCurrent).toBeLessThan(1e-6);
   });
 
-  it('attenuates as the divider of 4.7 kΩ and r_d ‖ 22 kΩ, with r_d = n·Vt/(I_D + Is)', () => {
+  it('attenuates as the divider of 4.7 kΩ and r_d ‖ 22 kΩ, with r_d = n·Vt/(I_D + I_S)', () => {
     // Small-signal diode resistance (Sedra & Smith, Microelectronic Circuits, 7th ed., 2015, §4.3; from memory).
     for (const s of curve) {
-      const rd = (N * VT) / (diodeCurrent(s.control) + IS);
+      const rd = (N * VT) / (diodeCurrent(s.control) + saturationCurrent);
       const shunt = (rd * RC) / (rd + RC);
-      expect(s.gainDb).toBeCloseTo(20 * Math.log10(shunt / (RS + shunt)), 3);
+      expect(s.gainDb).toBeCloseTo(20 * Math.log10(shunt / (seriesResistance + shunt)), 3);
     }
   });
 

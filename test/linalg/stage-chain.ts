@@ -1,7 +1,7 @@
 /**
  * The small-signal MNA matrix of a chain of capacitor-coupled common-emitter stages on one supply,
  * built from the hybrid-π model (base resistance rπ = β/gm, transconductance gm = Ic/Vt, output
- * resistance ro = VA/Ic, Cπ = Cje + τF·gm, Cμ; Ebers & Moll 1954, Giacoletto 1969; textbook
+ * resistance ro = V_A/Ic, Cπ = C_jE + τF·gm, Cμ; Ebers & Moll 1954, Giacoletto 1969; textbook
  * small-signal practice) and the usual divider bias estimate Ie = (Vth − 0.7)/(RE + Rth/(β + 1))
  * (common practice, no source). Every stage is coupled from the collector before it, biased by a
  * divider from the supply node, with a collector resistor to the supply and an emitter resistor

@@ -51,7 +51,7 @@ describe('diodeSeriesResistorSolution, the outside reference for a diode and a r
     }
   });
 
-  it('satisfies both circuit equations: V = i·R + vj and i = Is·(e^(vj/(n·Vt)) − 1)', () => {
+  it('satisfies both circuit equations: V = i·R + vj and i = I_S·(e^(vj/(n·Vt)) − 1)', () => {
     // Source: Kirchhoff's voltage law and the Shockley diode law, the equations the formula solves.
     for (const supply of [-100, -1, -1e-3, 0, 1e-3, 0.2, 0.5, 0.7, 2, 50, 1e3, 1e5]) {
       for (const emissionCoefficient of [1, 1.5, 2]) {
@@ -71,15 +71,15 @@ describe('diodeSeriesResistorSolution, the outside reference for a diode and a r
         // An error δ in vj moves the diode current by δ/(n·Vt) relative.
         const diodeLaw = circuit.saturationCurrent * Math.expm1(junctionVoltage / nvt);
         const tolerance = 8 * EPS * (1 + Math.abs(junctionVoltage) / nvt);
-        // Near zero supply i = (n·Vt/R)·W − Is cancels down to a few eps·Is of absolute error.
+        // Near zero supply i = (n·Vt/R)·W − I_S cancels down to a few eps·I_S of absolute error.
         const floor = 64 * EPS * circuit.saturationCurrent;
         expect(Math.abs(current - diodeLaw)).toBeLessThanOrEqual(tolerance * Math.abs(current) + floor);
       }
     }
   });
 
-  it('passes −Is at a large reverse supply and nothing at zero supply', () => {
-    // Source: the Shockley law, i → −Is as vj → −∞, and i = 0 at vj = 0.
+  it('passes −I_S at a large reverse supply and nothing at zero supply', () => {
+    // Source: the Shockley law, i → −I_S as vj → −∞, and i = 0 at vj = 0.
     const base = {
       resistance: 1000,
       saturationCurrent: 1e-14,
@@ -92,7 +92,7 @@ describe('diodeSeriesResistorSolution, the outside reference for a diode and a r
       1e-12,
       'reverse current',
     );
-    // (n·Vt/R)·W − Is cancels at zero supply, leaving a few eps·Is.
+    // (n·Vt/R)·W − I_S cancels at zero supply, leaving a few eps·I_S.
     expect(Math.abs(diodeSeriesResistorCurrent({ ...base, supply: 0 }))).toBeLessThanOrEqual(
       1e-14 * 64 * EPS,
     );

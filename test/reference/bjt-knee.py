@@ -6,10 +6,10 @@ Circuit: a source VB drives the base of an npn directly; its emitter returns to 
 a supply of 5 V holds the collector.  Model (docs/devices.md, "Bipolar transistor"; high injection of
 H. K. Gummel and H. C. Poon, Bell Syst. Tech. J. 49, 1970, forward part of the normalized base charge):
 
-    e_f = exp(vbe/(nf*Vt)),  e_r = exp(vbc/(nr*Vt)),
-    qh  = (1 + sqrt(1 + 4*Is*(e_f - 1)/IK))/2,
-    ic  = Is*(e_f - e_r)/qh - (Is/bR)*(e_r - 1),
-    ib  = (Is/bF)*(e_f - 1) + (Is/bR)*(e_r - 1),
+    e_f = exp(vbe/(n_F*Vt)),  e_r = exp(vbc/(n_R*Vt)),
+    qh  = (1 + sqrt(1 + 4*I_S*(e_f - 1)/IK))/2,
+    ic  = I_S*(e_f - e_r)/qh - (I_S/bR)*(e_r - 1),
+    ib  = (I_S/bF)*(e_f - 1) + (I_S/bR)*(e_r - 1),
 
 with vbe = VB - ve and vbc = VB - 5.  Kirchhoff at the emitter: ve/RE = ic + ib, solved for ve with
 mpmath.findroot at 50 digits; Vt = k*T/q with the exact SI 2019 constants at 298.15 K.
@@ -24,7 +24,7 @@ from mpmath import mpf
 mpmath.mp.dps = 50
 
 VT = mpf("1.380649e-23") * mpf("298.15") / mpf("1.602176634e-19")
-IS = mpf("1e-15")
+SATURATION_CURRENT = mpf("1e-15")
 BF = mpf(100)
 BR = mpf(1)
 IK = mpf("5e-3")
@@ -38,9 +38,9 @@ def currents(vb, ve):
     vbc = vb - VCC
     ef = mpmath.exp(vbe / VT)
     er = mpmath.exp(vbc / VT)
-    qh = (1 + mpmath.sqrt(1 + 4 * IS * (ef - 1) / IK)) / 2
-    ic = IS * (ef - er) / qh - (IS / BR) * (er - 1)
-    ib = (IS / BF) * (ef - 1) + (IS / BR) * (er - 1)
+    qh = (1 + mpmath.sqrt(1 + 4 * SATURATION_CURRENT * (ef - 1) / IK)) / 2
+    ic = SATURATION_CURRENT * (ef - er) / qh - (SATURATION_CURRENT / BR) * (er - 1)
+    ib = (SATURATION_CURRENT / BF) * (ef - 1) + (SATURATION_CURRENT / BR) * (er - 1)
     return ic, ib
 
 
@@ -62,7 +62,7 @@ for text in BASE_VOLTAGES:
 document = {
     "source": "test/reference/bjt-knee.py",
     "thermalVoltage": float(VT),
-    "saturationCurrent": float(IS),
+    "saturationCurrent": float(SATURATION_CURRENT),
     "forwardBeta": float(BF),
     "reverseBeta": float(BR),
     "kneeCurrent": float(IK),

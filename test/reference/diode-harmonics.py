@@ -3,11 +3,11 @@
 Generated offline, never at test time:  python3 test/reference/diode-harmonics.py  (writes diode-harmonics.json).
 
 Circuit: a source V(θ) = Vdc + A·cos θ drives a resistor R into the anode of a diode whose cathode is
-grounded (no series resistance, no breakdown). Diode law (Shockley): i = Is·(exp(vj/(n·Vt)) − 1).
+grounded (no series resistance, no breakdown). Diode law (Shockley): i = I_S·(exp(vj/(n·Vt)) − 1).
 At every phase the loop is solved exactly (Banwell and Jayakumar, "Exact analytical solution for
 current flow through diode with series resistance", Electronics Letters 36(4), 2000):
 
-    i  = (n·Vt/R)·W(a·exp((V + Is·R)/(n·Vt))) − Is,   a = Is·R/(n·Vt),   vj = V − i·R.
+    i  = (n·Vt/R)·W(a·exp((V + I_S·R)/(n·Vt))) − I_S,   a = I_S·R/(n·Vt),   vj = V − i·R.
 
 The output is periodic and analytic in θ, so the trapezoid rule on N points (the DFT) gives its Fourier
 coefficients with an error of the size of the coefficients of order N − h, far below 1e-30 for N = 256

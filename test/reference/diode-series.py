@@ -3,16 +3,16 @@
 Generated offline, never at test time:  python3 test/reference/diode-series.py  (writes diode-series.json).
 
 Circuit: a DC supply V drives a resistor R into the anode of a diode whose cathode is grounded.
-Diode law (Shockley): i = Is*(exp(vj/(n*Vt)) - 1).  Kirchhoff: V = i*R + vj.  Eliminating vj gives
+Diode law (Shockley): i = I_S*(exp(vj/(n*Vt)) - 1).  Kirchhoff: V = i*R + vj.  Eliminating vj gives
 (Banwell and Jayakumar, "Exact analytical solution for current flow through diode with series
 resistance", Electronics Letters 36(4), 2000):
 
-    i  = (n*Vt/R) * W(a * exp((V + Is*R)/(n*Vt))) - Is,      a = Is*R/(n*Vt),
-    vj = n*Vt * (ln W - ln a)                                   (from i + Is = Is*exp(vj/(n*Vt))),
+    i  = (n*Vt/R) * W(a * exp((V + I_S*R)/(n*Vt))) - I_S,      a = I_S*R/(n*Vt),
+    vj = n*Vt * (ln W - ln a)                                   (from i + I_S = I_S*exp(vj/(n*Vt))),
 
-with W the principal branch of the Lambert W function.  A series resistance Rs inside the diode is
-in series with R, so the same formula holds with R + Rs in place of R; the anode terminal then sits at
-vj + i*Rs.
+with W the principal branch of the Lambert W function.  A series resistance R_S inside the diode is
+in series with R, so the same formula holds with R + R_S in place of R; the anode terminal then sits at
+vj + i*R_S.
 
 mpmath.lambertw at 50 significant digits; Vt = k*T/q with the exact SI 2019 constants.
 """

@@ -3,16 +3,16 @@
  * operating-point solver.
  *
  * Circuit: a supply V drives a resistance R into the anode of a diode whose cathode returns to the
- * supply's negative terminal. With the Shockley law i = Is·(e^(vj/(n·Vt)) − 1) and V = i·R + vj,
+ * supply's negative terminal. With the Shockley law i = I_S·(e^(vj/(n·Vt)) − 1) and V = i·R + vj,
  * eliminating vj gives (J. C. Banwell and A. Jayakumar, "Exact analytical solution for current flow
  * through diode with series resistance", Electronics Letters 36(4), 2000)
  *
- *   i  = (n·Vt/R)·W0(a·e^((V + Is·R)/(n·Vt))) − Is,        a = Is·R/(n·Vt),
- *   vj = n·Vt·(ln W − ln a)                                  (from i + Is = Is·e^(vj/(n·Vt))).
+ *   i  = (n·Vt/R)·W0(a·e^((V + I_S·R)/(n·Vt))) − I_S,        a = I_S·R/(n·Vt),
+ *   vj = n·Vt·(ln W − ln a)                                  (from i + I_S = I_S·e^(vj/(n·Vt))).
  *
  * The argument of W0 overflows a double for V above about 18 V at n = 1, so W0 is evaluated from
- * its logarithm ln a + (V + Is·R)/(n·Vt) with {@link lambertW0OfExp}. A series resistance inside
- * the diode adds to R; the anode terminal then sits at vj + i·Rs.
+ * its logarithm ln a + (V + I_S·R)/(n·Vt) with {@link lambertW0OfExp}. A series resistance inside
+ * the diode adds to R; the anode terminal then sits at vj + i·R_S.
  */
 import { lambertW0OfExp } from '../../src/math/lambert-w.js';
 
@@ -22,7 +22,7 @@ export interface DiodeSeriesResistorCircuit {
   readonly supply: number;
   /** Total series resistance R, the diode's own series resistance included (Ω), > 0. */
   readonly resistance: number;
-  /** Saturation current Is of the diode law (A), > 0. */
+  /** Saturation current I_S of the diode law (A), > 0. */
   readonly saturationCurrent: number;
   /** Emission coefficient n of the diode law, > 0. */
   readonly emissionCoefficient: number;
@@ -50,7 +50,7 @@ function checkPositive(value: number, name: string): void {
  *
  * @param circuit - supply, resistance, saturation current, emission coefficient and thermal voltage
  * @returns the loop current and the junction voltage; the current is exact to a few units in the
- *   last place, with an absolute floor of a few eps·Is where it is comparable to Is
+ *   last place, with an absolute floor of a few eps·I_S where it is comparable to I_S
  * @throws RangeError when the supply is not finite or another value is not finite and positive
  */
 export function diodeSeriesResistorSolution(
@@ -78,7 +78,7 @@ export function diodeSeriesResistorSolution(
 
 /**
  * The exact current of a diode in series with a resistor (Banwell and Jayakumar 2000):
- * i = (n·Vt/R)·W0((Is·R/(n·Vt))·e^((V + Is·R)/(n·Vt))) − Is.
+ * i = (n·Vt/R)·W0((I_S·R/(n·Vt))·e^((V + I_S·R)/(n·Vt))) − I_S.
  *
  * @param circuit - supply, resistance, saturation current, emission coefficient and thermal voltage
  * @returns the current through the diode, anode to cathode (A)

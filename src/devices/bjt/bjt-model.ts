@@ -6,17 +6,17 @@ import type { ParameterTable } from '../parameters.js';
 export interface BjtModel {
   /** `'npn'` or `'pnp'`. */
   polarity: 'npn' | 'pnp';
-  /** Is, the transport saturation current at `referenceTemperature`, in A (default 1e-15). */
+  /** I_S, the transport saturation current at `referenceTemperature`, in A (default 1e-15). */
   saturationCurrent?: Value;
   /** βF, the forward current gain (default 100). */
   forwardBeta?: Value;
   /** βR, the reverse current gain (default 1). */
   reverseBeta?: Value;
-  /** nf, emission coefficient of the base-emitter junction (default 1). */
+  /** n_F, emission coefficient of the base-emitter junction (default 1). */
   forwardEmissionCoefficient?: Value;
-  /** nr, emission coefficient of the base-collector junction (default 1). */
+  /** n_R, emission coefficient of the base-collector junction (default 1). */
   reverseEmissionCoefficient?: Value;
-  /** VA, the forward Early voltage in V (default Infinity: no output conductance). */
+  /** V_A, the forward Early voltage in V (default Infinity: no output conductance). */
   earlyVoltage?: Value;
   /** Base-emitter depletion capacitance at zero bias, in F (default 0). */
   baseEmitterCapacitance?: Value;
@@ -32,9 +32,9 @@ export interface BjtModel {
   baseEmitterGrading?: Value;
   /** Grading coefficient of the base-collector depletion law (default 0.33: graded junction). */
   baseCollectorGrading?: Value;
-  /** Bandgap energy in eV for the temperature law of Is (default 1.12). */
+  /** Bandgap energy in eV for the temperature law of I_S (default 1.12). */
   bandgap?: Value;
-  /** The temperature exponent p of Is (default 3). */
+  /** The temperature exponent p of I_S (default 3). */
   saturationCurrentTemperatureExponent?: Value;
   /** The temperature, in K, at which `saturationCurrent` is given (default 298.15, 25 °C). */
   referenceTemperature?: Value;
@@ -50,7 +50,7 @@ export interface BjtModel {
   emitterResistance?: Value;
   /**
    * The forward knee current of high injection, in A (default Infinity: none): the transport current
-   * is divided by q_h = ½·(1 + √(1 + 4·Is·(e_f − 1)/kneeCurrent)), so β falls at high current.
+   * is divided by q_h = ½·(1 + √(1 + 4·I_S·(e_f − 1)/kneeCurrent)), so β falls at high current.
    */
   kneeCurrent?: Value;
   /** The temperature exponent of βF and βR: β(T) = β·(T/Tref)^exponent (default 0). */

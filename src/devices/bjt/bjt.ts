@@ -1,14 +1,14 @@
 /**
  * The bipolar transistor: the transport form of the Ebers-Moll model with the forward Early effect
  * (Ebers & Moll, Proc. IRE 42, 1954; Getreu, Modeling the Bipolar Transistor, 1976). For npn, with
- * e_f = exp(vbe/(nf·Vt)) and e_r = exp(vbc/(nr·Vt)):
- *   iT = Is·(e_f − e_r)·(1 + vce/VA)
- *   ic = iT − (Is/βR)·(e_r − 1)
- *   ib = (Is/βF)·(e_f − 1) + (Is/βR)·(e_r − 1)
+ * e_f = exp(vbe/(n_F·Vt)) and e_r = exp(vbc/(n_R·Vt)):
+ *   iT = I_S·(e_f − e_r)·(1 + vce/V_A)
+ *   ic = iT − (I_S/βR)·(e_r − 1)
+ *   ib = (I_S/βF)·(e_f − 1) + (I_S/βR)·(e_r − 1)
  * A pnp obeys the same equations in the mirrored voltages (veb, vcb), its currents flowing out of the
  * terminals. A small conductance sits across each junction.
  *
- * High injection divides iT by q_h = ½·(1 + √(1 + 4·Is·(e_f − 1)/I_K)), the forward part of the
+ * High injection divides iT by q_h = ½·(1 + √(1 + 4·I_S·(e_f − 1)/I_K)), the forward part of the
  * normalized base charge (Gummel & Poon, Bell Syst. Tech. J. 49, 1970); the base current keeps its
  * form, so β falls above the knee current I_K. Terminal resistances sit between each terminal and an
  * internal node where the junctions are; the equations use the internal junction voltages.
@@ -69,7 +69,7 @@ export class Bjt implements Device {
   private sRb: Int32Array = new Int32Array(0);
   private sRe: Int32Array = new Int32Array(0);
   private kneeCurrent = Number.POSITIVE_INFINITY;
-  /** ∂(Is·e_f/q_h)/∂vbe at the last evaluation: the slope of the forward charge over τF. */
+  /** ∂(I_S·e_f/q_h)/∂vbe at the last evaluation: the slope of the forward charge over τF. */
   private forwardChargeSlope = 0;
   // Slots of rows (c, b, e) × columns (c, b, e), row-major, then the two junction capacitors.
   private s: Int32Array = new Int32Array(0);
@@ -88,7 +88,7 @@ export class Bjt implements Device {
   private forwardBeta = 1;
   private reverseBeta = 1;
   private earlyVoltage = Number.POSITIVE_INFINITY;
-  /** ∂q/∂vbe: 1/VA, or 0 without the Early effect. */
+  /** ∂q/∂vbe: 1/V_A, or 0 without the Early effect. */
   private dqdv = 0;
   private isOverForwardBeta = 0;
   private isOverReverseBeta = 0;
@@ -183,8 +183,8 @@ export class Bjt implements Device {
     const ef = boundedExp(af);
     const er = boundedExp(ar);
     // One exponential per junction: below the limit the slope of boundedExp is its value.
-    const gf = (is * (af <= EXP_LIMIT ? ef : EXP_SLOPE_ABOVE_LIMIT)) / nfVt; // ∂(Is·e_f)/∂vbe
-    const gr = (is * (ar <= EXP_LIMIT ? er : EXP_SLOPE_ABOVE_LIMIT)) / nrVt; // ∂(Is·e_r)/∂vbc
+    const gf = (is * (af <= EXP_LIMIT ? ef : EXP_SLOPE_ABOVE_LIMIT)) / nfVt; // ∂(I_S·e_f)/∂vbe
+    const gr = (is * (ar <= EXP_LIMIT ? er : EXP_SLOPE_ABOVE_LIMIT)) / nrVt; // ∂(I_S·e_r)/∂vbc
     const va = this.earlyVoltage;
     const q = va === Number.POSITIVE_INFINITY ? 1 : 1 + (vbe - vbc) / va;
     const transfer = is * (ef - er);
@@ -192,7 +192,7 @@ export class Bjt implements Device {
     const g = withJunctionConductance ? this.junctionConductance : 0;
     const reverseBase = this.isOverReverseBeta * (er - 1);
     const grOverBetaR = gr / this.reverseBeta;
-    // High injection: q_h and ∂q_h/∂vbe = (Is·e_f'/I_K)/√(…); without a knee q_h = 1 exactly.
+    // High injection: q_h and ∂q_h/∂vbe = (I_S·e_f'/I_K)/√(…); without a knee q_h = 1 exactly.
     let qh = 1;
     let dqh = 0;
     const knee = this.kneeCurrent;
@@ -260,7 +260,7 @@ export class Bjt implements Device {
   /**
    * The base-emitter and base-collector capacitances at (vbe, vbc), written to `cpi` and `cmu`, after
    * an evaluation there. The diffusion part of C_π follows the forward transport current alone,
-   * τF·∂(Is·e_f/q_h)/∂vbe, so it is never negative, whatever the bias of the collector junction.
+   * τF·∂(I_S·e_f/q_h)/∂vbe, so it is never negative, whatever the bias of the collector junction.
    */
   private capacitances(vbe: number, vbc: number): void {
     const p = this.p;
@@ -333,8 +333,8 @@ export class Bjt implements Device {
   }
   /**
    * The curvature of the four currents of the transport model, in the mirrored frame with controls
-   * u = vbe and w = vbc, q = 1 + (u − w)/VA, F(u) = Is·e_f, G(w) = Is·e_r, k(u) = 1/q_h(u) (F_k, G_k,
-   * k_k their k-th derivatives, r = 1/VA):
+   * u = vbe and w = vbc, q = 1 + (u − w)/V_A, F(u) = I_S·e_f, G(w) = I_S·e_r, k(u) = 1/q_h(u) (F_k, G_k,
+   * k_k their k-th derivatives, r = 1/V_A):
    * - forward transport P·q with P = F·k, collector to emitter: ∂uu = P2·q + 2P1·r, ∂uw = −P1·r,
    *   ∂ww = 0; ∂uuu = P3·q + 3P2·r, ∂uuw = −P2·r, ∂uww = ∂www = 0;
    * - reverse transport −h·q with h(u, w) = G(w)·k(u), h_ij = G_j·k_i, collector to emitter: since q
@@ -411,8 +411,8 @@ export class Bjt implements Device {
     ];
   }
   /**
-   * k = 1/q_h and its first three derivatives in vbe, from F = Is·e_f and its derivatives: with
-   * S = 1 + 4·(F − Is)/I_K, s = √S and q_h = ½·(1 + s), s' = S'/(2s), s'' = S''/(2s) − S'²/(4s³),
+   * k = 1/q_h and its first three derivatives in vbe, from F = I_S·e_f and its derivatives: with
+   * S = 1 + 4·(F − I_S)/I_K, s = √S and q_h = ½·(1 + s), s' = S'/(2s), s'' = S''/(2s) − S'²/(4s³),
    * s''' = S'''/(2s) − 3S'S''/(4s³) + 3S'³/(8s⁵), then the quotient rule. [1, 0, 0, 0] without a knee.
    */
   private inverseChargeDerivatives(

@@ -4,11 +4,11 @@ import type { ParameterTable } from '../parameters.js';
 
 /**
  * Parameters of a junction diode (all optional; numbers in SI units or SI strings such as `'10f'`).
- * Current from anode to cathode at junction voltage v: `Is·(exp(v/(n·Vt)) − 1)`, plus reverse
+ * Current from anode to cathode at junction voltage v: `I_S·(exp(v/(n·Vt)) − 1)`, plus reverse
  * breakdown below −`breakdownVoltage`.
  */
 export interface DiodeModel {
-  /** Is, the saturation current at `referenceTemperature`, in A (default 1e-14). */
+  /** I_S, the saturation current at `referenceTemperature`, in A (default 1e-14). */
   saturationCurrent?: Value;
   /** n, the emission coefficient or ideality factor (default 1). */
   emissionCoefficient?: Value;
@@ -24,9 +24,9 @@ export interface DiodeModel {
   transitTime?: Value;
   /** Reverse breakdown voltage, a positive number in V (default Infinity: no breakdown). */
   breakdownVoltage?: Value;
-  /** Bandgap energy in eV for the temperature law of Is (default 1.12, silicon). */
+  /** Bandgap energy in eV for the temperature law of I_S (default 1.12, silicon). */
   bandgap?: Value;
-  /** The temperature exponent p of Is (default 3). */
+  /** The temperature exponent p of I_S (default 3). */
   saturationCurrentTemperatureExponent?: Value;
   /** The temperature, in K, at which `saturationCurrent` is given (default 298.15, 25 °C). */
   referenceTemperature?: Value;

@@ -3,8 +3,8 @@
  * resistance through an internal node, depletion and diffusion capacitance.
  *
  * Junction current (anode → cathode) at junction voltage v, with nVt = n·k·T/q:
- *   i(v) = Is·(e^(v/nVt) − 1) − Is·e^(−(v + BV)/nVt) + g_j·v (g_j: the junction conductance)
- * The breakdown term is e-fold steeper per nVt below −BV, mirroring the forward knee.
+ *   i(v) = I_S·(e^(v/nVt) − 1) − I_S·e^(−(v + V_BR)/nVt) + g_j·v (g_j: the junction conductance)
+ * The breakdown term is e-fold steeper per nVt below −V_BR, mirroring the forward knee.
  */
 
 import type {
@@ -182,8 +182,8 @@ export class Diode implements Device {
     return [{ junction: 'pn', plus: this.j, minus: this.c, scale: this.nVt }];
   }
   /**
-   * The junction current's curvature: the k-th derivative of Is·e^(v/nVt) is Is·e^(v/nVt)/nVt^k, and
-   * that of the breakdown term −Is·e^(−(v+BV)/nVt) is −Is·e^(−(v+BV)/nVt)·(−1/nVt)^k.
+   * The junction current's curvature: the k-th derivative of I_S·e^(v/nVt) is I_S·e^(v/nVt)/nVt^k, and
+   * that of the breakdown term −I_S·e^(−(v+V_BR)/nVt) is −I_S·e^(−(v+V_BR)/nVt)·(−1/nVt)^k.
    */
   nonlinearCurrents(x: Float64Array): readonly NonlinearCurrent[] {
     const nVt = this.nVt;
@@ -203,7 +203,7 @@ export class Diode implements Device {
     ];
   }
   /**
-   * Shot noise 2q·(i + 2·Is) of the exponential current i = Is·(e^(v/nVt) − 1) (at rest it is 4q·Is,
+   * Shot noise 2q·(i + 2·I_S) of the exponential current i = I_S·(e^(v/nVt) − 1) (at rest it is 4q·I_S,
    * the junction's thermal noise) plus 2q·|i_bd| of the breakdown current; flicker noise
    * K_f·|i|^a_f/f; thermal noise of the series resistance.
    */
