@@ -127,7 +127,7 @@ export interface DistortionPoint {
 export interface DistortionEstimate {
   /** The output probe. */
   readonly output: Probe;
-  /** Its description, such as `v(out)` or `i(RL)`. */
+  /** Its description, such as `out` or `current in RL`. */
   readonly outputName: string;
   /** The scale applied to every AC source. */
   readonly scale: number;

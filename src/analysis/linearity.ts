@@ -72,7 +72,7 @@ export interface DistortionShare {
 export interface OutputLinearity {
   /** The output probe. */
   readonly output: Probe;
-  /** Its description, such as `v(out)`. */
+  /** Its description, such as `out` or `current in Rload`. */
   readonly outputName: string;
   /** The analysed frequency where `errorBound` is largest (the lowest such frequency on a tie), in Hz. */
   readonly frequency: number;

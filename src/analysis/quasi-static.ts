@@ -73,7 +73,7 @@ export interface QuasiStaticOptions extends OperatingPointOptions {
 export interface QuasiStaticHarmonics {
   /** The output probe. */
   readonly output: Probe;
-  /** The output's description, such as `v(out)`. */
+  /** The output's description, such as `out`, `out − ref` or `current in Rload`. */
   readonly outputName: string;
   /** Phases per period. */
   readonly phases: number;

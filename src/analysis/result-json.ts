@@ -131,7 +131,7 @@ export interface JunctionLinearityJson {
 
 /** The verdict at an output as JSON (see `OutputLinearity`); `null` for infinite or missing values. */
 export interface OutputLinearityJson {
-  /** The output's description, such as `v(out)`. */
+  /** The output's description, such as `out`, `out − ref` or `current in Rload`. */
   readonly output: string;
   /** The worst analysed frequency, in Hz. */
   readonly frequency: number;
