@@ -275,10 +275,42 @@ class AdjointContext {
     return e;
   }
 
-  /** y ← J⁻ᵀ·y (y of length n + 1; y[n] is set to 0). */
+  /**
+   * y ← J⁻ᵀ·y (y of length n + 1; y[n] is set to 0), its residual checked: ‖b − Jᵀy‖ within 1e-9 of
+   * ‖b‖ + ‖J‖·‖y‖ (max norms), else `singular` naming the worst row.
+   */
   solveTransposed(y: Float64Array): void {
+    const { n, pattern } = this.system;
+    const b = y.slice();
     this.#jacobian.solver.solveTranspose(y);
-    y[this.system.n] = 0;
+    y[n] = 0;
+    const { Ap, Ai } = pattern;
+    const J = this.#jacobian.A;
+    let bNorm = 0;
+    let yNorm = 0;
+    let jNorm = 0;
+    let worst = 0;
+    let worstResidual = 0;
+    for (let i = 0; i < n; i++) {
+      bNorm = Math.max(bNorm, Math.abs(b[i]!));
+      yNorm = Math.max(yNorm, Math.abs(y[i]!));
+    }
+    // (Jᵀy)_j is column j of J against y.
+    for (let j = 0; j < n; j++) {
+      let r = b[j]!;
+      for (let p = Ap[j]!; p < Ap[j + 1]!; p++) {
+        jNorm = Math.max(jNorm, Math.abs(J[p]!));
+        r -= J[p]! * y[Ai[p]!]!;
+      }
+      if (Math.abs(r) > worstResidual) {
+        worstResidual = Math.abs(r);
+        worst = j;
+      }
+    }
+    const scale = bNorm + jNorm * yNorm;
+    if (!(worstResidual <= 1e-9 * scale) && !(scale === 0 && worstResidual === 0)) {
+      throw singularAt(this.system, worst, 'in the transposed Jacobian of the sensitivities');
+    }
   }
 
   /** Conditions at temperature T (the junction conductance kept). */
