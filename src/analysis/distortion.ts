@@ -50,6 +50,7 @@ import type { JunctionProbe } from '../devices/device.js';
 import { invalidValue } from '../errors/messages.js';
 import { AcAnalysis, type Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { analysedFrequencyIndex } from './analysed-frequency.js';
 import { requireInstance } from './arguments.js';
 import { describeProbe, type ProbeReader, probeReader } from './distortion-probe.js';
 import {
@@ -473,13 +474,8 @@ export function checkDriveScale(scale: unknown): number {
 
 /** The indices of the analysed frequencies to estimate at. */
 function frequencyIndices(ac: AcAnalysis, frequency: number | undefined): number[] {
-  const all = Array.from(ac.frequencies.keys());
-  if (frequency === undefined) return all;
-  const k = all.find((i) => ac.frequencies[i] === frequency);
-  if (k === undefined) {
-    throw invalidValue(['frequency'], frequency, 'one of the frequencies of the AC analysis');
-  }
-  return [k];
+  if (frequency === undefined) return Array.from(ac.frequencies.keys());
+  return [analysedFrequencyIndex(ac.frequencies, frequency)];
 }
 
 /** |a|/|b|, with 0/0 = 0 and a/0 = Infinity. */

@@ -28,6 +28,7 @@ import { QuiescentError } from '../errors/quiescent-error.js';
 import { type CompiledSystem, rebind } from '../mna/system.js';
 import type { AcAnalysis, Probe } from './ac-analysis.js';
 import { AcWorkspace } from './ac-workspace.js';
+import { analysedFrequencyIndex } from './analysed-frequency.js';
 import { currentReader } from './distortion-probe.js';
 import { parametersOf, parameterValue, parameterVariant } from './element-parameters.js';
 import {
@@ -546,11 +547,11 @@ function temperatureEntry(context: AdjointContext, reader: DcReader, lambda: Flo
 }
 
 function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensitivity {
-  const frequency = options.frequency;
-  const index = ac.frequencies.indexOf(frequency);
-  if (typeof frequency !== 'number' || index < 0) {
-    throw invalidValue(['options', 'frequency'], frequency, 'one of the analysed frequencies');
+  if (typeof options.frequency !== 'number') {
+    throw invalidValue(['options', 'frequency'], options.frequency, 'one of the analysed frequencies');
   }
+  const index = analysedFrequencyIndex(ac.frequencies, options.frequency);
+  const frequency = ac.frequencies[index]!;
   const op = ac.operatingPoint;
   const context = new AdjointContext(op);
   const { system, x } = context;
