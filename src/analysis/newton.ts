@@ -244,6 +244,14 @@ function updateWithin(ws: NewtonWorkspace, o: ResolvedOptions): boolean {
 const REFINEMENT_ROUNDS = 3;
 
 /**
+ * Newton iterations before its linear solves are refined. Newton corrects an inexact linear solve at
+ * its next iteration, so refinement (an extra pass over the matrix per iteration) pays only where the
+ * iteration lingers: a circuit whose equations lose digits to pivot growth settles only once its
+ * solves are refined. A linear circuit, solved once, is always refined.
+ */
+const REFINE_AFTER = 8;
+
+/**
  * Factor and solve in place: previous ← x, x ← A⁻¹b, then refine: while the residual b − A·x of the
  * linear solve is above what rounding allows, solve for a correction with the same factors and add
  * it (iterative refinement; Higham, "Accuracy and Stability of Numerical Algorithms", 2nd ed. 2002,
@@ -251,7 +259,7 @@ const REFINEMENT_ROUNDS = 3;
  * that never settles (it cannot recover digits the stored equations already lost).
  * Returns 0, or k+1 when column k found no pivot.
  */
-function trySolve(ws: NewtonWorkspace, solver: RealLinearSolver = ws.solver): number {
+function trySolve(ws: NewtonWorkspace, solver: RealLinearSolver = ws.solver, refine = true): number {
   const status = solver.factor(ws.A);
   if (status !== 0) return status;
   ws.system.ordering.symbolic ??= ws.solver.symbolic;
@@ -259,7 +267,7 @@ function trySolve(ws: NewtonWorkspace, solver: RealLinearSolver = ws.solver): nu
   ws.x.set(ws.b);
   solver.solve(ws.x);
   ws.x[ws.system.n] = 0;
-  for (let round = 0; round < REFINEMENT_ROUNDS; round++) {
+  for (let round = 0; refine && round < REFINEMENT_ROUNDS; round++) {
     if (!linearResidualLarge(ws)) break;
     solver.solve(ws.correction);
     const x = ws.x;
@@ -396,7 +404,7 @@ export function runNewton(
     }
     // A Jacobian that is singular at some iterate (two series junctions both far into conduction,
     // say) ends this run, not the search: the caller's next strategy may avoid that iterate.
-    const status = trySolve(ws);
+    const status = trySolve(ws, ws.solver, iteration >= REFINE_AFTER);
     if (status !== 0) return { converged: false, iterations: iteration, singularAt: status - 1 };
     updateOk = updateWithin(ws, o);
   }
