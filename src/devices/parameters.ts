@@ -21,7 +21,8 @@ export interface ParameterSpec {
 /** A table of parameter specifications, keyed by parameter name. */
 export type ParameterTable<K extends string> = Readonly<Record<K, ParameterSpec>>;
 
-function inRange(value: number, range: ParameterRange): boolean {
+/** Whether `value` lies in `range`. */
+export function inRange(value: number, range: ParameterRange): boolean {
   switch (range) {
     case 'positive':
       return Number.isFinite(value) && value > 0;
