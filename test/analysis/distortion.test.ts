@@ -317,5 +317,9 @@ function nmosCommonSource(gate: number, swing: number, channelLengthModulation: 
     .voltageSource('supply', 'vdd', GROUND, { dc: 10 })
     .voltageSource('gateDrive', 'g', GROUND, { dc: gate, ac: swing })
     .resistor('RD', 'vdd', 'd', '5k')
-    .mosfet('amplifier', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', channelLengthModulation });
+    .mosfet(
+      'amplifier',
+      { drain: 'd', gate: 'g', source: GROUND },
+      { polarity: 'nmos', channelLengthModulation },
+    );
 }

@@ -23,7 +23,9 @@ function expectKcl(circuit: Circuit, op: OperatingPoint): void {
 
 describe('operatingPoint on hard circuits', () => {
   it('converges on twenty diodes in series across a 20 V supply', () => {
-    const c = new Circuit().voltageSource('supply', 'n0', GROUND, { dc: 20 }).resistor('R1', 'n0', 'n1', '10k');
+    const c = new Circuit()
+      .voltageSource('supply', 'n0', GROUND, { dc: 20 })
+      .resistor('R1', 'n0', 'n1', '10k');
     for (let k = 1; k <= 20; k++) c.diode(`D${k}`, `n${k}`, k === 20 ? GROUND : `n${k + 1}`);
     const op = operatingPoint(c);
     expectKcl(c, op);

@@ -241,6 +241,11 @@ describe('AcAnalysis.sourceImpedance', () => {
     expectQuiescentError(() => ac.sourceImpedance('R1'), 'unknown-element', 'R1');
     expectQuiescentError(() => ac.sourceImpedance('nothing'), 'unknown-element', 'nothing');
     expectQuiescentError(() => ac.sourceImpedance('supply'), 'invalid-value', 'supply');
-    expectRelativelyClose(ac.sourceImpedance('input')[0]!.re, 1e3, 1e-12, 'input sees R1 to the shorted supply');
+    expectRelativelyClose(
+      ac.sourceImpedance('input')[0]!.re,
+      1e3,
+      1e-12,
+      'input sees R1 to the shorted supply',
+    );
   });
 });

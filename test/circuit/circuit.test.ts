@@ -173,8 +173,16 @@ describe('Circuit builder', () => {
 
     it('rejects an empty controlling-element name of a ccvs or cccs', () => {
       // docs/circuit-api.md, "Elements": the controlling element is named
-      expectRejected(() => new Circuit().ccvs('senseAmp', ['a', GROUND], '', 1), 'invalid-circuit', 'senseAmp.control');
-      expectRejected(() => new Circuit().cccs('mirror', ['a', GROUND], '', 1), 'invalid-circuit', 'mirror.control');
+      expectRejected(
+        () => new Circuit().ccvs('senseAmp', ['a', GROUND], '', 1),
+        'invalid-circuit',
+        'senseAmp.control',
+      );
+      expectRejected(
+        () => new Circuit().cccs('mirror', ['a', GROUND], '', 1),
+        'invalid-circuit',
+        'mirror.control',
+      );
     });
   });
 
@@ -243,7 +251,11 @@ describe('Circuit builder', () => {
       ['inductor', () => new Circuit().inductor('L3', 'a', 'b', '-1m'), 'L3.inductance'],
       ['inductor', () => new Circuit().inductor('L3', 'a', 'b', '1 F'), 'L3.inductance'],
       ['voltage source', () => new Circuit().voltageSource('drive', 'a', 'b', { dc: '5 A' }), 'drive.dc'],
-      ['voltage source', () => new Circuit().voltageSource('drive', 'a', 'b', { dc: Number.NaN }), 'drive.dc'],
+      [
+        'voltage source',
+        () => new Circuit().voltageSource('drive', 'a', 'b', { dc: Number.NaN }),
+        'drive.dc',
+      ],
       ['voltage source', () => new Circuit().voltageSource('drive', 'a', 'b', { ac: -1 }), 'drive.ac'],
       [
         'voltage source',
@@ -257,9 +269,17 @@ describe('Circuit builder', () => {
       ],
       ['current source', () => new Circuit().currentSource('sink', 'a', 'b', { dc: '2 V' }), 'sink.dc'],
       ['vcvs', () => new Circuit().vcvs('buffer', ['a', 'b'], ['c', 'd'], Number.NaN), 'buffer.gain'],
-      ['vccs', () => new Circuit().vccs('transconductor', ['a', 'b'], ['c', 'd'], '2 Ω'), 'transconductor.transconductance'],
+      [
+        'vccs',
+        () => new Circuit().vccs('transconductor', ['a', 'b'], ['c', 'd'], '2 Ω'),
+        'transconductor.transconductance',
+      ],
       ['ccvs', () => new Circuit().ccvs('senseAmp', ['a', 'b'], 'supply', '1 S'), 'senseAmp.transresistance'],
-      ['cccs', () => new Circuit().cccs('mirror', ['a', 'b'], 'supply', Number.NEGATIVE_INFINITY), 'mirror.gain'],
+      [
+        'cccs',
+        () => new Circuit().cccs('mirror', ['a', 'b'], 'supply', Number.NEGATIVE_INFINITY),
+        'mirror.gain',
+      ],
     ])('rejects a bad value of a %s (%#)', (_, build, path) => {
       // ranges: Alexander & Sadiku, 5th ed., 2013, ch. 6 (C, L ≥ 0; from memory); units: SI Brochure,
       // 9th ed., 2019, Table 4 (F capacitance, H inductance, V voltage, A current, S conductance)
@@ -319,7 +339,8 @@ describe('Circuit builder', () => {
         'buffer.out',
       );
       expectRejected(
-        () => new Circuit().vccs('transconductor', ['a', 'b'], ['b', 'c', 'd'] as unknown as [string, string], 1),
+        () =>
+          new Circuit().vccs('transconductor', ['a', 'b'], ['b', 'c', 'd'] as unknown as [string, string], 1),
         'invalid-circuit',
         'transconductor.control',
       );
@@ -328,7 +349,11 @@ describe('Circuit builder', () => {
         'invalid-circuit',
         'senseAmp.out',
       );
-      expectRejected(() => new Circuit().cccs('mirror', ['a', ''], 'supply', 1), 'invalid-circuit', 'mirror.out[1]');
+      expectRejected(
+        () => new Circuit().cccs('mirror', ['a', ''], 'supply', 1),
+        'invalid-circuit',
+        'mirror.out[1]',
+      );
     });
 
     it('rejects an op-amp terminal map with a missing or an unknown terminal', () => {
@@ -368,7 +393,11 @@ describe('Circuit builder', () => {
       );
       expectRejected(
         () =>
-          new Circuit().mosfet('switch', { drain: 'd', gate: 'g', source: 's', body: '' }, { polarity: 'nmos' }),
+          new Circuit().mosfet(
+            'switch',
+            { drain: 'd', gate: 'g', source: 's', body: '' },
+            { polarity: 'nmos' },
+          ),
         'invalid-circuit',
         'switch.body',
       );

@@ -207,7 +207,9 @@ describe('topology checks before solving', () => {
       ['an op-amp', (c: Circuit) => c.opAmp('candidate', { plus: GROUND, minus: 'o', output: 'o' })],
     ])('rejects %s as the controlling element, as it has no current unknown', (_, add) => {
       // docs/circuit-api.md, "Elements": the controlling element is a voltage source, an inductor, a vcvs or a ccvs
-      const c = new Circuit().voltageSource('supply', 'a', GROUND, { dc: 1 }).resistor('R1', 'a', GROUND, 1e3);
+      const c = new Circuit()
+        .voltageSource('supply', 'a', GROUND, { dc: 1 })
+        .resistor('R1', 'a', GROUND, 1e3);
       add(c);
       c.cccs('mirror', [GROUND, 'b'], 'candidate', 2).resistor('R2', 'b', GROUND, 1e3);
       expectRejected(c, 'unknown-element', 'candidate', 'mirror');

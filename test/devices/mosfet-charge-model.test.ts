@@ -102,7 +102,9 @@ describe('the charge-based MOSFET channel', () => {
       .voltageSource('tone', 'in', GROUND, { ac: 1e-3 })
       .capacitor('couple', 'in', 'g', '1');
     const op = operatingPoint(circuit, BARE);
-    const entry = linearity(acAnalysis(op, { frequencies: [1e3] })).junctions.find((j) => j.device === 'underTest')!;
+    const entry = linearity(acAnalysis(op, { frequencies: [1e3] })).junctions.find(
+      (j) => j.device === 'underTest',
+    )!;
     const scale = c.id / c.gm;
     expectRelativelyClose(entry.scale, scale, 1e-9, 'scale id/gm');
     const x = entry.amplitude / scale;

@@ -40,7 +40,12 @@ describe('formatOperatingPoint', () => {
     const tables = operatingPointTables(operatingPoint(divider()));
     expect(rowOf(tables, 'Element currents', 'Rtop')).toEqual(['Rtop', 'resistor', 'in → tap', '2 mA']);
     // The source delivers power, so by the passive sign convention its current is negative.
-    expect(rowOf(tables, 'Element currents', 'input')).toEqual(['input', 'voltage-source', 'in → gnd', '-2 mA']);
+    expect(rowOf(tables, 'Element currents', 'input')).toEqual([
+      'input',
+      'voltage-source',
+      'in → gnd',
+      '-2 mA',
+    ]);
   });
 
   it('gives a bipolar transistor its region and small-signal parameters', () => {
@@ -71,7 +76,15 @@ describe('formatOperatingPoint', () => {
       .resistor('Rd', 'vdd', 'drain', '1k')
       .mosfet('amplifier', { drain: 'drain', gate: 'gate', source: GROUND }, { polarity: 'nmos' });
     const row = rowOf(operatingPointTables(operatingPoint(circuit)), 'MOSFETs', 'amplifier');
-    expect(row.slice(0, 7)).toEqual(['amplifier', 'saturation', '2 V', '4.155 V', '845 µA', '700 mV', '1.3 V']);
+    expect(row.slice(0, 7)).toEqual([
+      'amplifier',
+      'saturation',
+      '2 V',
+      '4.155 V',
+      '845 µA',
+      '700 mV',
+      '1.3 V',
+    ]);
   });
 
   it('prints a heading, then each table separated by a blank line', () => {

@@ -70,7 +70,9 @@ describe('assertElementCurrent', () => {
     assertElementCurrent(divider, 'Rtop', '2 mA', { relative: 1e-9 });
     // The source delivers power, so its current is −2 mA.
     const error = failure(() => assertElementCurrent(divider, 'input', '2 mA', { relative: 0.05 }));
-    expect(error.message).toBe('current in input: expected 2 mA ± 100 µA (±5 %), actual -2 mA (off by -4 mA)');
+    expect(error.message).toBe(
+      'current in input: expected 2 mA ± 100 µA (±5 %), actual -2 mA (off by -4 mA)',
+    );
   });
 });
 
