@@ -134,9 +134,9 @@ describe('dcSweep over temperature', () => {
 
 describe('dcSweep checks its options', () => {
   it('names an unknown source or element', () => {
-    const e = thrown(() => dcSweep(loop(), { source: 'missing', values: [1] }));
+    const e = thrown(() => dcSweep(loop(), { source: 'absentSource', values: [1] }));
     expect(e.code).toBe('unknown-element');
-    expect(e.message).toContain('missing');
+    expect(e.message).toContain('absentSource');
     expect(thrown(() => dcSweep(loop(), { element: 'R9', parameter: 'resistance', values: [1] })).code).toBe(
       'unknown-element',
     );

@@ -71,8 +71,8 @@ describe('linear DC operating point', () => {
     });
 
     it('adds the responses to two sources acting alone (superposition)', () => {
-      // Alexander & Sadiku, 5th ed., 2013, §4.3 (from memory): with supply alone vx = supply·R2/(R1 + R2);
-      // with bias alone vx = bias·(R1‖R2); together their sum
+      // Alexander & Sadiku, 5th ed., 2013, §4.3 (from memory): with the voltage source alone vx = v·R2/(R1 + R2);
+      // with the current source alone vx = i·(R1‖R2); together their sum
       const [v1, i1, r1, r2] = [12, 2e-3, 4e3, 6e3];
       const circuit = (v: number, i: number) =>
         new Circuit()
