@@ -25,8 +25,8 @@ import { Circuit, GROUND } from '../src/index.js';
 function cascadedStages(count: number): Circuit {
   const model = { polarity: 'npn', forwardBeta: 150, earlyVoltage: 90 } as const;
   const c = new Circuit()
-    .voltageSource('Vcc', 'vcc', GROUND, { dc: 12 })
-    .voltageSource('Vin', 'c0', GROUND, { dc: 8 });
+    .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
+    .voltageSource('input', 'c0', GROUND, { dc: 8 });
   for (let k = 1; k <= count; k++) {
     c.resistor(`Rt${k}`, `c${k - 1}`, `b${k}`, '20k')
       .resistor(`Rb${k}`, `b${k}`, GROUND, '10k')
@@ -39,7 +39,7 @@ function cascadedStages(count: number): Circuit {
 
 /** A side × side diode-resistor grid (side·(side − 1) diodes) fed from a 10 V supply along its top row. */
 function diodeMesh(side: number): Circuit {
-  const c = new Circuit().voltageSource('V1', 'supply', GROUND, { dc: 10 });
+  const c = new Circuit().voltageSource('supply', 'supply', GROUND, { dc: 10 });
   for (let i = 0; i < side; i++) {
     for (let j = 0; j < side; j++) {
       const node = `n${i}_${j}`;

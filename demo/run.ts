@@ -31,8 +31,8 @@ import {
 /** The sensor front end, with the level-control current as a parameter. */
 export function leafWetnessFrontEnd(controlCurrent: number | string = '200µ'): Circuit {
   return new Circuit()
-    .voltageSource('Vsupply', 'vcc', GROUND, { dc: '9 V' })
-    .voltageSource('Vsensor', 'electrode', GROUND, { dc: 0, ac: '1m' })
+    .voltageSource('supply', 'vcc', GROUND, { dc: '9 V' })
+    .voltageSource('sensor', 'electrode', GROUND, { dc: 0, ac: '1m' })
     .capacitor('Cin', 'electrode', 'base', '1µF')
     .resistor('Rtop', 'vcc', 'base', '82k')
     .resistor('Rbottom', 'base', GROUND, '15k')
@@ -53,7 +53,7 @@ export function leafWetnessFrontEnd(controlCurrent: number | string = '200µ'): 
     )
     .capacitor('Cout', 'collector', 'level', '2.2µF')
     .resistor('Rlevel', 'level', GROUND, '10k')
-    .currentSource('Icontrol', 'vcc', 'shunt', { dc: controlCurrent })
+    .currentSource('control', 'vcc', 'shunt', { dc: controlCurrent })
     .resistor('Rshunt', 'shunt', 'detector', '10k')
     .resistor('Rfeed', 'level', 'detector', '2.2k')
     .diode('Dlevel', 'detector', GROUND, {
@@ -106,7 +106,7 @@ export function runDemo(folder: string, print: (text: string) => void = console.
 
   // The level control: sweep the control current, and take the 1 kHz gain at each operating point.
   const currents = linearSweep(20e-6, 1e-3, 50);
-  const sweep = dcSweep(circuit, { source: 'Icontrol', values: currents });
+  const sweep = dcSweep(circuit, { source: 'control', values: currents });
   const gainDb = Float64Array.from(
     sweep.points,
     (point) => acAnalysis(point, { frequencies: [1e3] }).magnitudeDb('detector', 'electrode')[0]!,

@@ -31,8 +31,8 @@ export function roundUpToE6(value: number): number {
 /** The preamplifier with the two coupling capacitors given. */
 export function hydrophonePreamp(inputCapacitor: number, outputCapacitor: number): Circuit {
   return new Circuit()
-    .voltageSource('Vreference', 'vref', GROUND, { dc: 2.5 })
-    .voltageSource('Vhydrophone', 'sensor', GROUND, { ac: '1m' })
+    .voltageSource('reference', 'vref', GROUND, { dc: 2.5 })
+    .voltageSource('hydrophone', 'sensor', GROUND, { ac: '1m' })
     .resistor('Rsource', 'sensor', 'sensor_out', SOURCE_RESISTANCE)
     .capacitor('Cin', 'sensor_out', 'in', inputCapacitor)
     .resistor('Rbias', 'in', 'vref', BIAS_RESISTANCE)

@@ -31,15 +31,15 @@ export const MOSFET_STAGE = {
 /** The common-source stage on 5 V with a 1 MΩ / 680 kΩ gate divider. */
 export function moistureProbeStage(): Circuit {
   return new Circuit()
-    .voltageSource('Vsupply', 'vdd', GROUND, { dc: 5 })
-    .voltageSource('Vcarrier', 'probe', GROUND, { ac: MOSFET_STAGE.carrierAmplitude })
+    .voltageSource('supply', 'vdd', GROUND, { dc: 5 })
+    .voltageSource('carrier', 'probe', GROUND, { ac: MOSFET_STAGE.carrierAmplitude })
     .capacitor('Cin', 'probe', 'gate', '1µ')
     .resistor('Rgate1', 'vdd', 'gate', '1M')
     .resistor('Rgate2', 'gate', GROUND, '680k')
     .resistor('Rdrain', 'vdd', 'drain', MOSFET_STAGE.drainResistance)
     .resistor('Rsource', 'source', GROUND, MOSFET_STAGE.sourceResistance)
     .mosfet(
-      'Mamp',
+      'amplifier',
       { drain: 'drain', gate: 'gate', source: 'source' },
       {
         polarity: 'nmos',
@@ -73,10 +73,10 @@ export interface MosfetStageFigures {
 /** Solve the stage, its gain and the linearity of its channel. */
 export function analyseMosfetStage(): MosfetStageFigures {
   const op = operatingPoint(moistureProbeStage());
-  const m = op.mosfet('Mamp');
+  const m = op.mosfet('amplifier');
   const ac = acAnalysis(op, { frequencies: [MOSFET_STAGE.carrier] });
   const report = linearity(ac, { budget: MOSFET_STAGE.budget });
-  const channel = report.junctions.find((j) => j.device === 'Mamp')!;
+  const channel = report.junctions.find((j) => j.device === 'amplifier')!;
   return {
     bias: { region: m.region, overdrive: m.overdrive, id: m.id, gm: m.gm },
     gain: ac.gain('drain', 'probe')[0]!.re,
@@ -90,7 +90,7 @@ export function analyseMosfetStage(): MosfetStageFigures {
 if (isMain(import.meta.url)) {
   const s = analyseMosfetStage();
   console.log(
-    `Mamp in ${s.bias.region}: id ${formatValue(s.bias.id, 'A', { digits: 3 })}, ` +
+    `The amplifier in ${s.bias.region}: id ${formatValue(s.bias.id, 'A', { digits: 3 })}, ` +
       `V_ov ${formatValue(s.bias.overdrive, 'V', { digits: 3 })}, gm ${formatValue(s.bias.gm, 'S', { digits: 3 })}`,
   );
   console.log(`Gain at 10 kHz: ${s.gain.toFixed(3)} V/V`);

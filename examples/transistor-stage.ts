@@ -37,8 +37,8 @@ export const STAGE = {
  */
 export function knockSensorStage(probe: 'input' | 'output'): Circuit {
   return new Circuit()
-    .voltageSource('Vsupply', 'vcc', GROUND, { dc: 12 })
-    .voltageSource('Vsensor', 'sensor', GROUND, { ac: probe === 'input' ? '1m' : 0 })
+    .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
+    .voltageSource('sensor', 'sensor', GROUND, { ac: probe === 'input' ? '1m' : 0 })
     .capacitor('Cin', 'sensor', 'base', '22µ')
     .resistor('Rtop', 'vcc', 'base', STAGE.topResistance)
     .resistor('Rbottom', 'base', GROUND, STAGE.bottomResistance)
@@ -56,7 +56,7 @@ export function knockSensorStage(probe: 'input' | 'output'): Circuit {
     )
     .capacitor('Cout', 'collector', 'out', '22µ')
     .resistor('Rcomparator', 'out', GROUND, STAGE.loadResistance)
-    .currentSource('Itest', GROUND, 'out', { ac: probe === 'output' ? '1µ' : 0 });
+    .currentSource('testCurrent', GROUND, 'out', { ac: probe === 'output' ? '1µ' : 0 });
 }
 
 /** What the stage does at 10 kHz. */
@@ -82,7 +82,7 @@ export function measureStage(): StageFigures {
   const at = { frequencies: [STAGE.frequency] };
   const ac = acAnalysis(op, at);
   const gain = ac.gain('out', 'sensor')[0]!.re;
-  const inputImpedance = ac.sourceImpedance('Vsensor')[0]!.abs();
+  const inputImpedance = ac.sourceImpedance('sensor')[0]!.abs();
   // Output impedance: the load in parallel with the stage, measured by the test current, then the
   // load removed: 1/Z_out = 1/Z_measured − 1/R_L.
   const acOut = acAnalysis(operatingPoint(knockSensorStage('output')), at);

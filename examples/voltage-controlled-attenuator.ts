@@ -35,14 +35,14 @@ export const ATTENUATOR = {
 /** The attenuator with its control source at 0 V (the sweep sets it). */
 export function batDetectorAttenuator(): Circuit {
   return new Circuit()
-    .voltageSource('Vaudio', 'audio', GROUND, { ac: '50m' })
+    .voltageSource('audio', 'audio', GROUND, { ac: '50m' })
     .capacitor('Cin', 'audio', 'feed', '10µ')
     .resistor('Rseries', 'feed', 'shunt', ATTENUATOR.seriesResistance)
     .diode('Dshunt', 'shunt', GROUND, {
       saturationCurrent: ATTENUATOR.saturationCurrent,
       emissionCoefficient: ATTENUATOR.emissionCoefficient,
     })
-    .voltageSource('Vcontrol', 'control', GROUND, { dc: 0 })
+    .voltageSource('control', 'control', GROUND, { dc: 0 })
     .resistor('Rcontrol', 'control', 'shunt', ATTENUATOR.controlResistance);
 }
 
@@ -66,7 +66,7 @@ export interface AttenuatorSetting {
 /** Sweep the control from 0.5 V to 10 V and take the 1 kHz gain at each setting. */
 export function attenuationCurve(count = 20): AttenuatorSetting[] {
   const controls = linearSweep(0.5, 10, count);
-  const sweep = dcSweep(batDetectorAttenuator(), { source: 'Vcontrol', values: controls });
+  const sweep = dcSweep(batDetectorAttenuator(), { source: 'control', values: controls });
   return sweep.points.map((op, k) => {
     const diode = op.diode('Dshunt');
     const ac = acAnalysis(op, { frequencies: [1e3] });

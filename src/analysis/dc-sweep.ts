@@ -141,7 +141,7 @@ export class DcSweep {
  *
  * @example
  * ```ts
- * const sweep = dcSweep(circuit, { source: 'Vin', values: linearSweep(0, 5, 51) });
+ * const sweep = dcSweep(circuit, { source: 'input', values: linearSweep(0, 5, 51) });
  * sweep.voltage('out');   // Float64Array, one entry per value
  * dcSweep(circuit, { element: 'R2', parameter: 'resistance', values: [1e3, 2e3, 5e3] });
  * dcSweep(circuit, { temperature: [250, 300, 350] });

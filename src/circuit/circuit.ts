@@ -75,7 +75,7 @@ export interface MosfetTerminals {
  * @example
  * ```ts
  * const c = new Circuit()
- *   .voltageSource('V1', 'in', GROUND, { dc: 5 })
+ *   .voltageSource('supply', 'in', GROUND, { dc: 5 })
  *   .resistor('R1', 'in', 'out', '1k')
  *   .diode('D1', 'out', GROUND);
  * ```

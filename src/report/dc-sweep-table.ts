@@ -78,7 +78,7 @@ export function dcSweepTable(sweep: DcSweep, options: DcSweepReportOptions = {})
  *
  * @example
  * ```ts no-run
- * console.log(formatDcSweep(dcSweep(circuit, { source: 'Vctl', values: linearSweep(0, 5, 11) }), { nodes: ['out'] }));
+ * console.log(formatDcSweep(dcSweep(circuit, { source: 'control', values: linearSweep(0, 5, 11) }), { nodes: ['out'] }));
  * ```
  */
 export function formatDcSweep(sweep: DcSweep, options: DcSweepReportOptions = {}): string {

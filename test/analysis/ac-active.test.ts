@@ -19,7 +19,7 @@ describe('acAnalysis on a unity-gain Sallen-Key Butterworth low-pass', () => {
   // Circuit Theory 2(1), 1955.
   const { R1, R2, C1, C2 } = reference.components;
   const circuit = new Circuit()
-    .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+    .voltageSource('input', 'in', GROUND, { ac: 1 })
     .resistor('R1', 'in', 'a', R1)
     .resistor('R2', 'a', 'b', R2)
     .capacitor('C1', 'a', 'out', C1)
@@ -75,7 +75,7 @@ describe('acAnalysis on a non-inverting amplifier with a single-pole op-amp', ()
   const fp = GBW / A0;
   const beta = 0.1;
   const circuit = new Circuit()
-    .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+    .voltageSource('input', 'in', GROUND, { ac: 1 })
     .opAmp('U1', { plus: 'in', minus: 'fb', output: 'out' }, { openLoopGain: A0, gainBandwidth: GBW })
     .resistor('R2', 'out', 'fb', 9e3)
     .resistor('R1', 'fb', GROUND, 1e3);
@@ -114,7 +114,7 @@ describe('AcAnalysis.unityGainFrequency', () => {
   it('finds where an open-loop single-pole op-amp gain falls to 1: fp·√(A0² − 1) ≈ GBW', () => {
     // Source: |A0/(1 + jf/fp)| = 1 at f = fp·√(A0² − 1) (Sedra and Smith, from memory).
     const circuit = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .opAmp('U1', { plus: 'in', minus: GROUND, output: 'out' }, { openLoopGain: 2e5, gainBandwidth: 3e6 })
       .resistor('RL', 'out', GROUND, 10e3);
     const op = operatingPoint(circuit);
@@ -132,7 +132,7 @@ describe('AcAnalysis.unityGainFrequency', () => {
   it('is null for a divider whose gain never reaches 1', () => {
     // Source: a resistive divider's gain R2/(R1 + R2) < 1 at every frequency (common practice, no source).
     const circuit = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .resistor('R1', 'in', 'out', 1e3)
       .resistor('R2', 'out', GROUND, 1e3)
       .capacitor('C1', 'out', GROUND, 1e-9);
@@ -146,7 +146,7 @@ describe('AcAnalysis.phaseDegrees on a buffered third-order RC ladder', () => {
   const R = 10e3;
   const C = 10e-9;
   const fc0 = 1 / (2 * Math.PI * R * C);
-  const circuit = new Circuit().voltageSource('Vin', 'in', GROUND, { ac: 1 });
+  const circuit = new Circuit().voltageSource('input', 'in', GROUND, { ac: 1 });
   for (let k = 1; k <= 3; k++) {
     const from = k === 1 ? 'in' : `buf${k - 1}`;
     circuit

@@ -24,7 +24,7 @@ describe('acAnalysis on first-order RC filters', () => {
     // Source: H(jω) = 1/(1 + jωRC), e.g. A. S. Sedra and K. C. Smith, "Microelectronic Circuits",
     // single-time-constant networks (from memory).
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .resistor('R1', 'in', 'out', R)
       .capacitor('C1', 'out', GROUND, C);
     const ac = acAnalysis(operatingPoint(c), { frequencies });
@@ -42,7 +42,7 @@ describe('acAnalysis on first-order RC filters', () => {
   it('gives a high-pass magnitude u/√(1+u²) and phase 90° − atan(u)', () => {
     // Source: H(jω) = jωRC/(1 + jωRC), same reference as the low-pass.
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .capacitor('C1', 'in', 'out', C)
       .resistor('R1', 'out', GROUND, R);
     const ac = acAnalysis(operatingPoint(c), { frequencies });
@@ -59,7 +59,7 @@ describe('acAnalysis on first-order RC filters', () => {
     // Source: phasor of a source of magnitude M and phase φ is M·e^{jφ} (docs/circuit-api.md, "Sources and
     // their AC excitation": peak phasors, degrees); the divider H = 1/(1 + jωRC) then scales it.
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: { magnitude: 2.5, phase: 30 } })
+      .voltageSource('input', 'in', GROUND, { ac: { magnitude: 2.5, phase: 30 } })
       .resistor('R1', 'in', 'out', R)
       .capacitor('C1', 'out', GROUND, C);
     const ac = acAnalysis(operatingPoint(c), { frequencies: [fc0] });
@@ -75,7 +75,7 @@ describe('acAnalysis on first-order RC filters', () => {
     // Source: f_c = 1/(2πRC) (Sedra and Smith, from memory). The accessor interpolates linearly in dB
     // against log f, so on 100 points per decade it lands within 1e-4 of f_c.
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .resistor('R1', 'in', 'out', R)
       .capacitor('C1', 'out', GROUND, C);
     const ac = acAnalysis(operatingPoint(c), { frequencies: logSweep(10, 1e6, 100) });
@@ -103,7 +103,7 @@ describe('acAnalysis on RLC resonance', () => {
     const R = 50; // Q = √(L/C)/R = 316.2/50 ≈ 6.32
     const q = Math.sqrt(L / C) / R;
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .inductor('L1', 'in', 'a', L)
       .capacitor('C1', 'a', 'out', C)
       .resistor('R1', 'out', GROUND, R);
@@ -127,13 +127,13 @@ describe('acAnalysis on RLC resonance', () => {
     const R = 20e3; // Q = R·√(C/L) ≈ 63.2
     const q = R * Math.sqrt(C / L);
     const c = new Circuit()
-      .currentSource('Iin', GROUND, 'top', { ac: 1 })
+      .currentSource('drive', GROUND, 'top', { ac: 1 })
       .resistor('R1', 'top', GROUND, R)
       .inductor('L1', 'top', GROUND, L)
       .capacitor('C1', 'top', GROUND, C);
     const op = operatingPoint(c);
     const atF0 = acAnalysis(op, { frequencies: [f0] });
-    const z = atF0.sourceImpedance('Iin')[0]!;
+    const z = atF0.sourceImpedance('drive')[0]!;
     expectRelativelyClose(z.re, R, 1e-10, 'Re Z(f0) = R');
     expect(Math.abs(z.im)).toBeLessThan(1e-8 * R);
     // At f0 the inductor and capacitor carry equal and opposite currents Q times the source current.
@@ -158,7 +158,7 @@ describe('acAnalysis element currents', () => {
     const omega = 2 * Math.PI * 1e3;
     const [G, C, L] = [1 / 220, 1e-6, 5e-3];
     const c = new Circuit()
-      .currentSource('Iin', GROUND, 'top', { ac: 2e-3 })
+      .currentSource('drive', GROUND, 'top', { ac: 2e-3 })
       .resistor('R1', 'top', GROUND, 1 / G)
       .capacitor('C1', 'top', GROUND, C)
       .inductor('L1', 'top', GROUND, L);
@@ -177,13 +177,13 @@ describe('acAnalysis element currents', () => {
     expect(iR.sub(v.mul(G)).abs()).toBeLessThan(1e-14);
     expect(iC.add(iL).add(iR).sub(2e-3).abs()).toBeLessThan(1e-15);
     // The current source reports its own set value.
-    expect(ac.current('Iin')[0]!.sub(2e-3).abs()).toBe(0);
+    expect(ac.current('drive')[0]!.sub(2e-3).abs()).toBe(0);
   });
 
   it('shorts an inductor and opens a capacitor at 0 Hz', () => {
     // Source: the DC limits of jωL and 1/(jωC) (any circuits text).
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .resistor('R1', 'in', 'a', 100)
       .inductor('L1', 'a', 'b', 1e-3)
       .resistor('R2', 'b', GROUND, 300)
@@ -230,7 +230,7 @@ describe('acAnalysis on passive networks (property)', () => {
           c.resistor(`RL${k}`, `m${k}`, nodeName(e.b), 1);
         } else c.capacitor(`C${k}`, nodeName(e.a), nodeName(e.b), 1e-9 * scale);
       });
-      c.currentSource('Idrive', GROUND, nodeName(drive), { ac: 1 });
+      c.currentSource('drive', GROUND, nodeName(drive), { ac: 1 });
       return c;
     };
     fc.assert(
@@ -254,7 +254,7 @@ describe('acAnalysis input checks', () => {
   const rc = () =>
     operatingPoint(
       new Circuit()
-        .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+        .voltageSource('input', 'in', GROUND, { ac: 1 })
         .resistor('R1', 'in', 'out', 1e3)
         .capacitor('C1', 'out', GROUND, 1e-6),
     );
@@ -298,7 +298,7 @@ describe('acAnalysis input checks', () => {
     // text). With L = C = 1/(2π) that is 1 Hz, where ωC and ωL are exactly 1 in floating point.
     const value = 1 / (2 * Math.PI);
     const c = new Circuit()
-      .currentSource('Iin', GROUND, 'tank', { ac: 1 })
+      .currentSource('drive', GROUND, 'tank', { ac: 1 })
       .inductor('L1', 'tank', GROUND, value)
       .capacitor('C1', 'tank', GROUND, value);
     const op = operatingPoint(c);

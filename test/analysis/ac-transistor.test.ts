@@ -22,8 +22,8 @@ describe('acAnalysis on a common-emitter stage', () => {
     // K. C. Smith, "Microelectronic Circuits", BJT amplifier chapter (from memory).
     const RC = 5.6e3;
     const c = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 12 })
-      .voltageSource('Vin', 'b', GROUND, { dc: 0.71, ac: 1 })
+      .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
+      .voltageSource('input', 'b', GROUND, { dc: 0.71, ac: 1 })
       .resistor('RC', 'vcc', 'c', RC)
       .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, EARLY_NPN);
     const op = operatingPoint(c);
@@ -47,8 +47,8 @@ describe('acAnalysis on a common-emitter stage', () => {
   const RB = parallel(RB1, RB2);
   const stage = (caps: { input: number; bypass: number; output: number }, model: typeof PLAIN_NPN) =>
     new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 12 })
-      .voltageSource('Vsig', 'sig', GROUND, { ac: 1 })
+      .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
+      .voltageSource('signal', 'sig', GROUND, { ac: 1 })
       .resistor('Rsig', 'sig', 's', RSIG)
       .capacitor('Cin', 's', 'b', caps.input)
       .resistor('RB1', 'vcc', 'b', RB1)
@@ -130,16 +130,16 @@ describe('acAnalysis on a common-source MOSFET stage', () => {
     // Smith, MOSFET amplifier chapter, from memory).
     const RD = 10e3;
     const c = new Circuit()
-      .voltageSource('Vdd', 'vdd', GROUND, { dc: 10 })
-      .voltageSource('Vin', 'g', GROUND, { dc: 1.5, ac: 1 })
+      .voltageSource('supply', 'vdd', GROUND, { dc: 10 })
+      .voltageSource('input', 'g', GROUND, { dc: 1.5, ac: 1 })
       .resistor('RD', 'vdd', 'd', RD)
       .mosfet(
-        'M1',
+        'amplifier',
         { drain: 'd', gate: 'g', source: GROUND },
         { polarity: 'nmos', channelLengthModulation: 0.02 },
       );
     const op = operatingPoint(c);
-    const m = op.mosfet('M1');
+    const m = op.mosfet('amplifier');
     expect(m.region).toBe('saturation');
     // Square law: gm = β·V_ov·(1 + λ·vds), gds = ½·β·V_ov²·λ (Shichman and Hodges 1968).
     expectRelativelyClose(m.gm, 1e-3 * 0.8 * (1 + 0.02 * m.vds), 1e-9, 'gm');
@@ -154,11 +154,11 @@ describe('acAnalysis on a common-source MOSFET stage', () => {
     const RD = 10e3;
     const cgd = 2e-12;
     const c = new Circuit()
-      .voltageSource('Vdd', 'vdd', GROUND, { dc: 10 })
-      .voltageSource('Vin', 'g', GROUND, { dc: 1.5, ac: 1 })
+      .voltageSource('supply', 'vdd', GROUND, { dc: 10 })
+      .voltageSource('input', 'g', GROUND, { dc: 1.5, ac: 1 })
       .resistor('RD', 'vdd', 'd', RD)
       .mosfet(
-        'M1',
+        'amplifier',
         { drain: 'd', gate: 'g', source: GROUND },
         {
           polarity: 'nmos',
@@ -168,7 +168,7 @@ describe('acAnalysis on a common-source MOSFET stage', () => {
         },
       );
     const op = operatingPoint(c);
-    const m = op.mosfet('M1');
+    const m = op.mosfet('amplifier');
     expectRelativelyClose(m.cgd, cgd, 1e-12, 'cgd');
     const f = 20e6;
     const w = 2 * Math.PI * f;
@@ -183,7 +183,7 @@ describe('acAnalysis on a diode attenuator', () => {
     // Source: small-signal diode model, v_d/v_s = r_d/(R + r_d) (Sedra and Smith, diode chapter, from memory).
     const R = 4.7e3;
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { dc: 5, ac: 1 })
+      .voltageSource('input', 'in', GROUND, { dc: 5, ac: 1 })
       .resistor('R1', 'in', 'a', R)
       .diode('D1', 'a', GROUND);
     const op = operatingPoint(c);
@@ -200,7 +200,7 @@ describe('acAnalysis on a diode attenuator', () => {
     const R = 4.7e3;
     const seriesResistance = 5;
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { dc: 5, ac: 1 })
+      .voltageSource('input', 'in', GROUND, { dc: 5, ac: 1 })
       .resistor('R1', 'in', 'a', R)
       .diode('D1', 'a', GROUND, { seriesResistance, junctionCapacitance: 4e-12, transitTime: 1e-9 });
     const op = operatingPoint(c);
@@ -223,12 +223,12 @@ describe('acAnalysis at 0 Hz', () => {
 
   it('equals the derivative of a diode circuit DC sweep', () => {
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { dc: 2, ac: 1 })
+      .voltageSource('input', 'in', GROUND, { dc: 2, ac: 1 })
       .resistor('R1', 'in', 'a', 1e3)
       .diode('D1', 'a', 'k', { seriesResistance: 10 })
       .resistor('R2', 'k', GROUND, 220)
       .capacitor('C1', 'a', GROUND, 1e-6);
-    const sweep = dcSweep(c, { source: 'Vin', values: [2 - h, 2, 2 + h], ...TIGHT });
+    const sweep = dcSweep(c, { source: 'input', values: [2 - h, 2, 2 + h], ...TIGHT });
     const va = sweep.voltage('a');
     const vk = sweep.voltage('k');
     const ac = acAnalysis(sweep.points[1]!, { frequencies: [0] });
@@ -242,8 +242,8 @@ describe('acAnalysis at 0 Hz', () => {
     // An emitter-degenerated stage feeding an emitter follower, directly coupled.
     const build = (vin: number) =>
       new Circuit()
-        .voltageSource('Vcc', 'vcc', GROUND, { dc: 12 })
-        .voltageSource('Vin', 'in', GROUND, { dc: vin, ac: 1 })
+        .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
+        .voltageSource('input', 'in', GROUND, { dc: vin, ac: 1 })
         .resistor('RS', 'in', 'b1', 2.2e3)
         .bjt('Q1', { collector: 'c1', base: 'b1', emitter: 'e1' }, EARLY_NPN)
         .resistor('RE1', 'e1', GROUND, 1e3)

@@ -10,7 +10,7 @@ const EXACT = { junctionConductance: 1e-30, relativeTolerance: 1e-12 };
 
 function loop(): Circuit {
   return new Circuit()
-    .voltageSource('V1', 'in', GROUND, { dc: 5 })
+    .voltageSource('supply', 'in', GROUND, { dc: 5 })
     .resistor('R1', 'in', 'a', '1k')
     .diode('D1', 'a', GROUND, { saturationCurrent });
 }
@@ -29,7 +29,7 @@ function lambert(supply: number, resistance: number, temperature = 298.15) {
 describe('dcSweep over a source value', () => {
   it('follows the exact diode-resistor solution at every supply value', () => {
     const values = [0.5, 1, 2, 5, 10, 20, 50];
-    const sweep = dcSweep(loop(), { source: 'V1', values, ...EXACT });
+    const sweep = dcSweep(loop(), { source: 'supply', values, ...EXACT });
     expect(Array.from(sweep.values)).toEqual(values);
     expect(sweep.points).toHaveLength(values.length);
     const va = sweep.voltage('a');
@@ -39,17 +39,17 @@ describe('dcSweep over a source value', () => {
       expectRelativelyClose(va[k]!, ref.junctionVoltage, 1e-10, `v(a) at ${v} V`);
       expectRelativelyClose(i[k]!, ref.current, 1e-10, `current at ${v} V`);
       // The supply delivers the loop current (passive sign convention: negative through it).
-      expectRelativelyClose(sweep.current('V1')[k]!, -ref.current, 1e-10, `supply current at ${v} V`);
+      expectRelativelyClose(sweep.current('supply')[k]!, -ref.current, 1e-10, `supply current at ${v} V`);
     });
   });
 
   it('takes fewer iterations by continuation than solving every point from zero', () => {
     // Common practice, no source: a warm start near the answer needs fewer Newton steps.
     const values = Array.from({ length: 21 }, (_, k) => 0.25 * k + 1);
-    const sweep = dcSweep(loop(), { source: 'V1', values });
+    const sweep = dcSweep(loop(), { source: 'supply', values });
     const cold = values.reduce((sum, v) => {
       const c = new Circuit()
-        .voltageSource('V1', 'in', GROUND, { dc: v })
+        .voltageSource('supply', 'in', GROUND, { dc: v })
         .resistor('R1', 'in', 'a', '1k')
         .diode('D1', 'a', GROUND, { saturationCurrent });
       return sum + operatingPoint(c).iterations;
@@ -58,26 +58,26 @@ describe('dcSweep over a source value', () => {
   });
 
   it('keeps each point its own source value (a current source reads back its value)', () => {
-    const c = new Circuit().currentSource('I1', GROUND, 'a', { dc: 1e-3 }).diode('D1', 'a', GROUND);
-    const sweep = dcSweep(c, { source: 'I1', values: new Float64Array([1e-6, 1e-4, 1e-2]) });
-    expect(Array.from(sweep.current('I1'))).toEqual([1e-6, 1e-4, 1e-2]);
+    const c = new Circuit().currentSource('bias', GROUND, 'a', { dc: 1e-3 }).diode('D1', 'a', GROUND);
+    const sweep = dcSweep(c, { source: 'bias', values: new Float64Array([1e-6, 1e-4, 1e-2]) });
+    expect(Array.from(sweep.current('bias'))).toEqual([1e-6, 1e-4, 1e-2]);
     // Shockley: the voltage rises by Vt·ln 100 per two decades of current (from memory, any textbook).
     const v = sweep.voltage('a');
     const vt = thermalVoltage(298.15);
     expect(v[1]! - v[0]!).toBeCloseTo(vt * Math.log(100), 4);
-    expect(sweep.points[0]!.current('I1')).toBe(1e-6);
+    expect(sweep.points[0]!.current('bias')).toBe(1e-6);
   });
 
   it('leaves the circuit unchanged', () => {
     const c = loop();
-    dcSweep(c, { source: 'V1', values: [1, 2] });
-    const record = c.element('V1');
+    dcSweep(c, { source: 'supply', values: [1, 2] });
+    const record = c.element('supply');
     expect(record?.kind === 'voltage-source' && record.dc).toBe(5);
     expect(operatingPoint(c).voltage('in')).toBe(5);
   });
 
   it('keeps a fixed temperature given with the sweep', () => {
-    const sweep = dcSweep(loop(), { source: 'V1', values: [1, 2], temperature: 350 });
+    const sweep = dcSweep(loop(), { source: 'supply', values: [1, 2], temperature: 350 });
     expect(sweep.points.map((p) => p.temperature)).toEqual([350, 350]);
   });
 });
@@ -110,8 +110,8 @@ describe('dcSweep over an element parameter', () => {
   });
 
   it('treats the dc of a source as a source sweep', () => {
-    const sweep = dcSweep(loop(), { element: 'V1', parameter: 'dc', values: [1, 2] });
-    expect(sweep.swept).toEqual({ kind: 'source', element: 'V1' });
+    const sweep = dcSweep(loop(), { element: 'supply', parameter: 'dc', values: [1, 2] });
+    expect(sweep.swept).toEqual({ kind: 'source', element: 'supply' });
     expect(Array.from(sweep.voltage('in'))).toEqual([1, 2]);
   });
 });
@@ -134,9 +134,9 @@ describe('dcSweep over temperature', () => {
 
 describe('dcSweep checks its options', () => {
   it('names an unknown source or element', () => {
-    const e = thrown(() => dcSweep(loop(), { source: 'Vx', values: [1] }));
+    const e = thrown(() => dcSweep(loop(), { source: 'absentSource', values: [1] }));
     expect(e.code).toBe('unknown-element');
-    expect(e.message).toContain('Vx');
+    expect(e.message).toContain('absentSource');
     expect(thrown(() => dcSweep(loop(), { element: 'R9', parameter: 'resistance', values: [1] })).code).toBe(
       'unknown-element',
     );
@@ -149,13 +149,13 @@ describe('dcSweep checks its options', () => {
   });
 
   it('rejects options that name two sweeps at once', () => {
-    const both = { source: 'V1', element: 'R1', parameter: 'resistance', values: [1] };
+    const both = { source: 'supply', element: 'R1', parameter: 'resistance', values: [1] };
     expect(thrown(() => dcSweep(loop(), both)).code).toBe('invalid-value');
   });
 
   it('rejects empty and non-finite values', () => {
-    expect(thrown(() => dcSweep(loop(), { source: 'V1', values: [] })).code).toBe('invalid-value');
-    const e = thrown(() => dcSweep(loop(), { source: 'V1', values: [1, Number.NaN] }));
+    expect(thrown(() => dcSweep(loop(), { source: 'supply', values: [] })).code).toBe('invalid-value');
+    const e = thrown(() => dcSweep(loop(), { source: 'supply', values: [1, Number.NaN] }));
     expect(e.code).toBe('invalid-value');
     expect(e.details).toMatchObject({ path: ['options', 'values', 1] });
     expect(thrown(() => dcSweep(loop(), { temperature: [300, Number.POSITIVE_INFINITY] })).code).toBe(
@@ -180,13 +180,13 @@ describe('dcSweep checks its options', () => {
   });
 
   it('says at which value the operating point could not be found', () => {
-    const e = thrown(() => dcSweep(loop(), { source: 'V1', values: [1, 2], maxIterations: 1 }));
+    const e = thrown(() => dcSweep(loop(), { source: 'supply', values: [1, 2], maxIterations: 1 }));
     expect(e.code).toBe('no-convergence');
-    expect(e.message).toContain('V1 = 1 V');
+    expect(e.message).toContain('supply = 1 V');
   });
 
   it('answers for every node and element as an operating point does', () => {
-    const sweep = dcSweep(loop(), { source: 'V1', values: [1] });
+    const sweep = dcSweep(loop(), { source: 'supply', values: [1] });
     expect(thrown(() => sweep.voltage('nowhere')).code).toBe('unknown-node');
     expect(thrown(() => sweep.current('nothing')).code).toBe('unknown-element');
     const values = sweep.values;

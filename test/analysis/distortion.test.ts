@@ -17,7 +17,7 @@ import { expectRelativelyClose, relativeError } from '../support/close.js';
 /** The reference circuit of diode-harmonics.py: bias through R into a diode (r_d ≈ 16 Ω vs R = 20 Ω). */
 function diodeAttenuator(amplitude: number): Circuit {
   return new Circuit()
-    .voltageSource('V1', 'in', GROUND, { dc: reference.bias, ac: amplitude })
+    .voltageSource('drive', 'in', GROUND, { dc: reference.bias, ac: amplitude })
     .resistor('R1', 'in', 'a', reference.resistance)
     .diode('D1', 'a', GROUND, { saturationCurrent: reference.saturationCurrent });
 }
@@ -133,8 +133,8 @@ describe('the distortion estimate of a diode attenuator', () => {
 /** A common-emitter stage driven at the base: without degeneration, or with emitter resistor RE. */
 function commonEmitter(amplitude: number, degeneration: number): Circuit {
   const c = new Circuit()
-    .voltageSource('VCC', 'vcc', GROUND, { dc: 10 })
-    .voltageSource('VB', 'b', GROUND, { dc: 0.65 + 1e-3 * degeneration, ac: amplitude })
+    .voltageSource('supply', 'vcc', GROUND, { dc: 10 })
+    .voltageSource('baseDrive', 'b', GROUND, { dc: 0.65 + 1e-3 * degeneration, ac: amplitude })
     .resistor('RC', 'vcc', 'c', '4.7k')
     .bjt('Q1', { collector: 'c', base: 'b', emitter: 'e' }, { polarity: 'npn', earlyVoltage: 50 });
   return degeneration > 0 ? c.resistor('RE', 'e', GROUND, degeneration) : c.resistor('RE', 'e', GROUND, 1e-6);
@@ -202,10 +202,10 @@ describe('the distortion estimate of transistor stages against the quasi-static 
     // the drain voltage −RD·id carry a 2nd harmonic of exactly x/4 and none of 3rd order (λ = 0).
     for (const amplitude of [0.03, 0.1, 0.3]) {
       const c = new Circuit()
-        .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
-        .voltageSource('VG', 'g', GROUND, { dc: 1.7, ac: amplitude })
+        .voltageSource('supply', 'vdd', GROUND, { dc: 10 })
+        .voltageSource('gateDrive', 'g', GROUND, { dc: 1.7, ac: amplitude })
         .resistor('RD', 'vdd', 'd', '5k')
-        .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos' });
+        .mosfet('amplifier', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos' });
       const result = checkDistortion(c, { output: 'd' });
       const x = amplitude / 1.0;
       expectRelativelyClose(result.estimate.secondRatio, x / 4, 1e-9, 'x/4');
@@ -230,11 +230,11 @@ describe('the distortion estimate of transistor stages against the quasi-static 
     [
       'a pmos stage with channel-length modulation',
       new Circuit()
-        .voltageSource('VSS', 'vss', GROUND, { dc: -10 })
-        .voltageSource('VG', 'g', GROUND, { dc: -1.7, ac: 0.1 })
+        .voltageSource('negativeSupply', 'vss', GROUND, { dc: -10 })
+        .voltageSource('gateDrive', 'g', GROUND, { dc: -1.7, ac: 0.1 })
         .resistor('RD', 'd', 'vss', '5k')
         .mosfet(
-          'M1',
+          'amplifier',
           { drain: 'd', gate: 'g', source: GROUND },
           { polarity: 'pmos', channelLengthModulation: 0.05 },
         ),
@@ -242,12 +242,12 @@ describe('the distortion estimate of transistor stages against the quasi-static 
     [
       'an nmos stage with source degeneration and body effect',
       new Circuit()
-        .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
-        .voltageSource('VG', 'g', GROUND, { dc: 2.5, ac: 0.05 })
+        .voltageSource('supply', 'vdd', GROUND, { dc: 10 })
+        .voltageSource('gateDrive', 'g', GROUND, { dc: 2.5, ac: 0.05 })
         .resistor('RD', 'vdd', 'd', '5k')
         .resistor('RS', 's', GROUND, '1k')
         .mosfet(
-          'M1',
+          'amplifier',
           { drain: 'd', gate: 'g', source: 's', body: GROUND },
           { polarity: 'nmos', bodyEffect: 0.5, channelLengthModulation: 0.02 },
         ),
@@ -267,8 +267,8 @@ describe('the distortion estimate of transistor stages against the quasi-static 
     // Source: the mirror symmetry of the transport model (docs/devices.md, "Bipolar transistor": a
     // pnp obeys the npn equations in the mirrored voltages), checked by the quasi-static check.
     const c = new Circuit()
-      .voltageSource('VEE', 'vee', GROUND, { dc: -10 })
-      .voltageSource('VB', 'b', GROUND, { dc: -0.65, ac: 0.003 })
+      .voltageSource('negativeSupply', 'vee', GROUND, { dc: -10 })
+      .voltageSource('baseDrive', 'b', GROUND, { dc: -0.65, ac: 0.003 })
       .resistor('RC', 'c', 'vee', '4.7k')
       .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, { polarity: 'pnp', earlyVoltage: 50 });
     const result = checkDistortion(c, { output: 'c' });
@@ -314,8 +314,12 @@ describe('distortion arguments', () => {
 /** An nmos common-source stage: 10 V supply, 5 kΩ drain load, the gate driven at `gate` V ± `swing` V. */
 function nmosCommonSource(gate: number, swing: number, channelLengthModulation: number): Circuit {
   return new Circuit()
-    .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
-    .voltageSource('VG', 'g', GROUND, { dc: gate, ac: swing })
+    .voltageSource('supply', 'vdd', GROUND, { dc: 10 })
+    .voltageSource('gateDrive', 'g', GROUND, { dc: gate, ac: swing })
     .resistor('RD', 'vdd', 'd', '5k')
-    .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', channelLengthModulation });
+    .mosfet(
+      'amplifier',
+      { drain: 'd', gate: 'g', source: GROUND },
+      { polarity: 'nmos', channelLengthModulation },
+    );
 }

@@ -69,10 +69,10 @@ const network: fc.Arbitrary<Branch[]> = fc
       const [ra, rb] = [find(a), find(b)];
       if (ra === rb) return;
       root[ra] = rb;
-      branches.push({ kind: 'voltage-source', name: `V${i}`, a: nodeName(a), b: nodeName(b), value: v });
+      branches.push({ kind: 'voltage-source', name: `source${i}`, a: nodeName(a), b: nodeName(b), value: v });
     });
     currentSources.forEach(([[a, b], i0], i) => {
-      branches.push({ kind: 'current-source', name: `I${i}`, a: nodeName(a), b: nodeName(b), value: i0 });
+      branches.push({ kind: 'current-source', name: `feed${i}`, a: nodeName(a), b: nodeName(b), value: i0 });
     });
     return branches;
   });

@@ -28,7 +28,7 @@ describe('linear DC operating point', () => {
       // division v2 = v·R2/(R1 + R2) (from memory)
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'in', GROUND, { dc: 10 })
+          .voltageSource('supply', 'in', GROUND, { dc: 10 })
           .resistor('R1', 'in', 'out', '1k')
           .resistor('R2', 'out', GROUND, '3k'),
       );
@@ -43,7 +43,7 @@ describe('linear DC operating point', () => {
       const [vs, r1, r2, r3, r4, rg] = [12, 1e3, 2.2e3, 3.3e3, 4.7e3, 150];
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('Vs', 'top', GROUND, { dc: vs })
+          .voltageSource('source', 'top', GROUND, { dc: vs })
           .resistor('R1', 'top', 'a', r1)
           .resistor('R2', 'a', GROUND, r2)
           .resistor('R3', 'top', 'b', r3)
@@ -60,7 +60,7 @@ describe('linear DC operating point', () => {
       // Alexander & Sadiku, 5th ed., 2013, §4.10.2 (from memory): R1/R2 = R3/R4 balances the bridge
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('Vs', 'top', GROUND, { dc: 12 })
+          .voltageSource('source', 'top', GROUND, { dc: 12 })
           .resistor('R1', 'top', 'a', 1e3)
           .resistor('R2', 'a', GROUND, 2e3)
           .resistor('R3', 'top', 'b', 3e3)
@@ -71,20 +71,20 @@ describe('linear DC operating point', () => {
     });
 
     it('adds the responses to two sources acting alone (superposition)', () => {
-      // Alexander & Sadiku, 5th ed., 2013, §4.3 (from memory): with V1 alone vx = V1·R2/(R1 + R2);
-      // with I1 alone vx = I1·(R1‖R2); together their sum
+      // Alexander & Sadiku, 5th ed., 2013, §4.3 (from memory): with the voltage source alone vx = v·R2/(R1 + R2);
+      // with the current source alone vx = i·(R1‖R2); together their sum
       const [v1, i1, r1, r2] = [12, 2e-3, 4e3, 6e3];
       const circuit = (v: number, i: number) =>
         new Circuit()
-          .voltageSource('V1', 'a', GROUND, { dc: v })
+          .voltageSource('source', 'a', GROUND, { dc: v })
           .resistor('R1', 'a', 'x', r1)
           .resistor('R2', 'x', GROUND, r2)
-          .currentSource('I1', GROUND, 'x', { dc: i });
+          .currentSource('injection', GROUND, 'x', { dc: i });
       const both = operatingPoint(circuit(v1, i1)).voltage('x');
       const voltageAlone = operatingPoint(circuit(v1, 0)).voltage('x');
       const currentAlone = operatingPoint(circuit(0, i1)).voltage('x');
-      expectClose(voltageAlone, (v1 * r2) / (r1 + r2), 'vx with V1 alone');
-      expectClose(currentAlone, i1 * parallel(r1, r2), 'vx with I1 alone');
+      expectClose(voltageAlone, (v1 * r2) / (r1 + r2), 'vx with the voltage source alone');
+      expectClose(currentAlone, i1 * parallel(r1, r2), 'vx with the current source alone');
       expectClose(both, voltageAlone + currentAlone, 'vx with both sources');
     });
 
@@ -98,18 +98,18 @@ describe('linear DC operating point', () => {
       const rth = parallel(ra, rb) + rc;
       const network = () =>
         new Circuit()
-          .voltageSource('Vs', 's', GROUND, { dc: vs })
+          .voltageSource('source', 's', GROUND, { dc: vs })
           .resistor('Ra', 's', 'p', ra)
           .resistor('Rb', 'p', GROUND, rb)
-          .currentSource('Is', GROUND, 'p', { dc: is })
+          .currentSource('injection', GROUND, 'p', { dc: is })
           .resistor('Rc', 'p', 't', rc);
 
       it('gives the open-circuit voltage Vth and the short-circuit current Vth/Rth', () => {
         const open = operatingPoint(network());
         expectClose(open.voltage('t'), vth, 'open-circuit voltage');
         // A 0 V source as an ammeter: its current flows from t through it to ground.
-        const shorted = operatingPoint(network().voltageSource('Vsc', 't', GROUND, { dc: 0 }));
-        expectClose(shorted.current('Vsc'), vth / rth, 'short-circuit current');
+        const shorted = operatingPoint(network().voltageSource('short', 't', GROUND, { dc: 0 }));
+        expectClose(shorted.current('short'), vth / rth, 'short-circuit current');
       });
 
       it('loads like its Thevenin and its Norton equivalent', () => {
@@ -117,13 +117,13 @@ describe('linear DC operating point', () => {
           const full = operatingPoint(network().resistor('Rl', 't', GROUND, rl)).current('Rl');
           const thevenin = operatingPoint(
             new Circuit()
-              .voltageSource('Vth', 'e', GROUND, { dc: vth })
+              .voltageSource('thevenin', 'e', GROUND, { dc: vth })
               .resistor('Rth', 'e', 't', rth)
               .resistor('Rl', 't', GROUND, rl),
           ).current('Rl');
           const norton = operatingPoint(
             new Circuit()
-              .currentSource('In', GROUND, 't', { dc: vth / rth })
+              .currentSource('norton', GROUND, 't', { dc: vth / rth })
               .resistor('Rn', 't', GROUND, rth)
               .resistor('Rl', 't', GROUND, rl),
           ).current('Rl');
@@ -143,7 +143,7 @@ describe('linear DC operating point', () => {
         const c = new Circuit().resistor('Rterm', 'n0', GROUND, '20k');
         for (let k = 0; k < bits; k++) {
           const on = (code >> k) & 1;
-          c.voltageSource(`Vb${k}`, `b${k}`, GROUND, { dc: on * vref }).resistor(
+          c.voltageSource(`bit${k}`, `b${k}`, GROUND, { dc: on * vref }).resistor(
             `R2_${k}`,
             `n${k}`,
             `b${k}`,
@@ -167,15 +167,15 @@ describe('linear DC operating point', () => {
       // Alexander & Sadiku, 5th ed., 2013, §2.2 (from memory): v_out = μ·v_ctrl
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'in', GROUND, { dc: 1 })
+          .voltageSource('supply', 'in', GROUND, { dc: 1 })
           .resistor('Rs', 'in', 'c', '1k')
           .resistor('Rp', 'c', GROUND, '9k')
-          .vcvs('E1', ['out', GROUND], ['c', GROUND], -25)
+          .vcvs('buffer', ['out', GROUND], ['c', GROUND], -25)
           .resistor('Rl', 'out', GROUND, '2k'),
       );
       expectClose(op.voltage('out'), -25 * 0.9, 'v(out)');
       // The output branch current flows from outPlus through the source to outMinus.
-      expectClose(op.current('E1'), (25 * 0.9) / 2000, 'i(E1)');
+      expectClose(op.current('buffer'), (25 * 0.9) / 2000, 'i(buffer)');
     });
 
     it('drives a load with the current of a vccs, in the direction of the documented sign convention', () => {
@@ -183,12 +183,12 @@ describe('linear DC operating point', () => {
       // gm·V(ctrl) flows from outFrom through the source into outTo
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'in', GROUND, { dc: 2 })
-          .vccs('G1', [GROUND, 'out'], ['in', GROUND], '5m')
+          .voltageSource('supply', 'in', GROUND, { dc: 2 })
+          .vccs('transconductor', [GROUND, 'out'], ['in', GROUND], '5m')
           .resistor('Rl', 'out', GROUND, '1k'),
       );
       expectClose(op.voltage('out'), 2 * 5e-3 * 1e3, 'v(out)');
-      expectClose(op.current('G1'), 2 * 5e-3, 'i(G1)');
+      expectClose(op.current('transconductor'), 2 * 5e-3, 'i(transconductor)');
     });
 
     it('solves a vccs that feeds back on its own control voltage', () => {
@@ -197,9 +197,9 @@ describe('linear DC operating point', () => {
       const [is, r, gm] = [1e-3, 10e3, 4e-4];
       const op = operatingPoint(
         new Circuit()
-          .currentSource('Is', GROUND, 'x', { dc: is })
+          .currentSource('injection', GROUND, 'x', { dc: is })
           .resistor('R', 'x', GROUND, r)
-          .vccs('G1', ['x', GROUND], ['x', GROUND], gm),
+          .vccs('transconductor', ['x', GROUND], ['x', GROUND], gm),
       );
       expectClose(op.voltage('x'), is / (1 / r + gm), 'v(x)');
     });
@@ -209,13 +209,13 @@ describe('linear DC operating point', () => {
       // follows the passive sign convention of docs/circuit-api.md, "Sign conventions"
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'in', GROUND, { dc: 5 })
+          .voltageSource('supply', 'in', GROUND, { dc: 5 })
           .resistor('R1', 'in', GROUND, '2.5k')
-          .ccvs('H1', ['out', GROUND], 'V1', '1k')
+          .ccvs('senseAmp', ['out', GROUND], 'supply', '1k')
           .resistor('Rl', 'out', GROUND, '10k'),
       );
       const iV1 = -5 / 2500;
-      expectClose(op.current('V1'), iV1, 'i(V1)');
+      expectClose(op.current('supply'), iV1, 'i(supply)');
       expectClose(op.voltage('out'), 1000 * iV1, 'v(out)');
     });
 
@@ -223,13 +223,13 @@ describe('linear DC operating point', () => {
       // Alexander & Sadiku, 5th ed., 2013, §2.2 (from memory): i = β·i_ctrl
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'in', GROUND, { dc: 5 })
+          .voltageSource('supply', 'in', GROUND, { dc: 5 })
           .resistor('R1', 'in', GROUND, '1k')
-          .cccs('F1', [GROUND, 'out'], 'V1', 3)
+          .cccs('mirror', [GROUND, 'out'], 'supply', 3)
           .resistor('Rl', 'out', GROUND, '500'),
       );
       const iV1 = -5 / 1000;
-      expectClose(op.current('F1'), 3 * iV1, 'i(F1)');
+      expectClose(op.current('mirror'), 3 * iV1, 'i(mirror)');
       expectClose(op.voltage('out'), 3 * iV1 * 500, 'v(out)');
     });
 
@@ -237,10 +237,10 @@ describe('linear DC operating point', () => {
       // Alexander & Sadiku, 5th ed., 2013, §6.4 (from memory): an inductor carries V/R at DC
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'in', GROUND, { dc: 4 })
+          .voltageSource('supply', 'in', GROUND, { dc: 4 })
           .inductor('L1', 'in', 'x', '10m')
           .resistor('R1', 'x', GROUND, '2k')
-          .cccs('F1', [GROUND, 'out'], 'L1', 10)
+          .cccs('mirror', [GROUND, 'out'], 'L1', 10)
           .resistor('Rl', 'out', GROUND, '100'),
       );
       expectClose(op.current('L1'), 4 / 2000, 'i(L1)');
@@ -254,7 +254,7 @@ describe('linear DC operating point', () => {
     it('inverts with gain −Rf/Rin and supplies the output current', () => {
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('Vin', 'in', GROUND, { dc: 0.7 })
+          .voltageSource('input', 'in', GROUND, { dc: 0.7 })
           .resistor('Rin', 'in', 'minus', '1k')
           .resistor('Rf', 'minus', 'out', '10k')
           .opAmp('U1', { plus: GROUND, minus: 'minus', output: 'out' })
@@ -271,7 +271,7 @@ describe('linear DC operating point', () => {
     it('amplifies without inversion with gain 1 + Rf/Rg', () => {
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('Vin', 'in', GROUND, { dc: -0.25 })
+          .voltageSource('input', 'in', GROUND, { dc: -0.25 })
           .opAmp('U1', { plus: 'in', minus: 'minus', output: 'out' })
           .resistor('Rf', 'out', 'minus', '39k')
           .resistor('Rg', 'minus', GROUND, '10k'),
@@ -283,9 +283,9 @@ describe('linear DC operating point', () => {
     it('sums weighted inputs: vout = −Rf·(v1/R1 + v2/R2 + v3/R3)', () => {
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'a', GROUND, { dc: 1 })
-          .voltageSource('V2', 'b', GROUND, { dc: -2 })
-          .voltageSource('V3', 'c', GROUND, { dc: 0.5 })
+          .voltageSource('inputA', 'a', GROUND, { dc: 1 })
+          .voltageSource('inputB', 'b', GROUND, { dc: -2 })
+          .voltageSource('inputC', 'c', GROUND, { dc: 0.5 })
           .resistor('R1', 'a', 'sum', '10k')
           .resistor('R2', 'b', 'sum', '20k')
           .resistor('R3', 'c', 'sum', '5k')
@@ -299,8 +299,8 @@ describe('linear DC operating point', () => {
       const [v1, v2, r1, r2, r3, r4] = [1.5, 2, 10e3, 47e3, 12e3, 33e3];
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'a', GROUND, { dc: v1 })
-          .voltageSource('V2', 'b', GROUND, { dc: v2 })
+          .voltageSource('inputA', 'a', GROUND, { dc: v1 })
+          .voltageSource('inputB', 'b', GROUND, { dc: v2 })
           .resistor('R1', 'a', 'minus', r1)
           .resistor('R2', 'minus', 'out', r2)
           .resistor('R3', 'b', 'plus', r3)
@@ -313,8 +313,8 @@ describe('linear DC operating point', () => {
     it('amplifies only the difference when R4/R3 = R2/R1', () => {
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'a', GROUND, { dc: 3.1 })
-          .voltageSource('V2', 'b', GROUND, { dc: 3.4 })
+          .voltageSource('inputA', 'a', GROUND, { dc: 3.1 })
+          .voltageSource('inputB', 'b', GROUND, { dc: 3.4 })
           .resistor('R1', 'a', 'minus', '10k')
           .resistor('R2', 'minus', 'out', '100k')
           .resistor('R3', 'b', 'plus', '10k')
@@ -335,7 +335,7 @@ describe('linear DC operating point', () => {
     it('has the closed-loop gain A/(1 + Aβ) of a non-inverting amplifier', () => {
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('Vin', 'in', GROUND, { dc: 0.1 })
+          .voltageSource('input', 'in', GROUND, { dc: 0.1 })
           .opAmp('U1', { plus: 'in', minus: 'minus', output: 'out' }, { openLoopGain: a })
           .resistor('Rf', 'out', 'minus', rf)
           .resistor('Rg', 'minus', GROUND, rg),
@@ -349,7 +349,7 @@ describe('linear DC operating point', () => {
       const gains = [1e2, 1e4, 1e6].map((gain) => {
         const op = operatingPoint(
           new Circuit()
-            .voltageSource('Vin', 'in', GROUND, { dc: 1 })
+            .voltageSource('input', 'in', GROUND, { dc: 1 })
             .opAmp('U1', { plus: 'in', minus: 'minus', output: 'out' }, { openLoopGain: gain })
             .resistor('Rf', 'out', 'minus', rf)
             .resistor('Rg', 'minus', GROUND, rg),
@@ -374,7 +374,7 @@ describe('linear DC operating point', () => {
       const vout = (rl: number) =>
         operatingPoint(
           new Circuit()
-            .voltageSource('Vin', 'in', GROUND, { dc: vin })
+            .voltageSource('input', 'in', GROUND, { dc: vin })
             .opAmp(
               'U1',
               { plus: 'in', minus: 'minus', output: 'out' },
@@ -401,7 +401,7 @@ describe('linear DC operating point', () => {
       // Alexander & Sadiku, 5th ed., 2013, §6.2 (from memory)
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'in', GROUND, { dc: 9 })
+          .voltageSource('supply', 'in', GROUND, { dc: 9 })
           .resistor('R1', 'in', 'a', '1k')
           .capacitor('C1', 'a', GROUND, '10u')
           .resistor('R2', 'a', GROUND, '2k'),
@@ -414,7 +414,7 @@ describe('linear DC operating point', () => {
       // Alexander & Sadiku, 5th ed., 2013, §6.4 (from memory)
       const op = operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'in', GROUND, { dc: 9 })
+          .voltageSource('supply', 'in', GROUND, { dc: 9 })
           .resistor('R1', 'in', 'a', '1k')
           .inductor('L1', 'a', 'b', '1m')
           .resistor('R2', 'b', GROUND, '2k'),
@@ -428,12 +428,12 @@ describe('linear DC operating point', () => {
     it('solves a linear circuit in one step', () => {
       // docs/analyses.md, "Strategies": one solve, iterations 1
       const circuits = [
-        new Circuit().voltageSource('V1', 'a', GROUND, { dc: 1 }).resistor('R1', 'a', GROUND, 1),
+        new Circuit().voltageSource('supply', 'a', GROUND, { dc: 1 }).resistor('R1', 'a', GROUND, 1),
         new Circuit()
-          .currentSource('I1', GROUND, 'a', { dc: 1 })
+          .currentSource('bias', GROUND, 'a', { dc: 1 })
           .resistor('R1', 'a', GROUND, 1)
           .opAmp('U1', { plus: 'a', minus: 'o', output: 'o' })
-          .vccs('G1', [GROUND, 'g'], ['o', GROUND], 1)
+          .vccs('transconductor', [GROUND, 'g'], ['o', GROUND], 1)
           .resistor('R2', 'g', GROUND, 1),
       ];
       for (const c of circuits) expect(operatingPoint(c).iterations).toBe(1);
@@ -446,35 +446,35 @@ describe('linear DC operating point', () => {
 
     const circuit = () =>
       new Circuit()
-        .voltageSource('V1', 'p', GROUND, { dc: 6 })
+        .voltageSource('supply', 'p', GROUND, { dc: 6 })
         .resistor('Rab', 'p', 'm', '1k')
         .resistor('Rba', GROUND, 'm', '2k')
-        .currentSource('I1', 'm', GROUND, { dc: '-1m' })
-        .currentSource('I2', GROUND, 'q', { dc: '0.5m' })
+        .currentSource('sink', 'm', GROUND, { dc: '-1m' })
+        .currentSource('feed', GROUND, 'q', { dc: '0.5m' })
         .resistor('Rq', 'q', GROUND, '4k');
 
     it('gives a resistor current from its first node to its second', () => {
       const op = operatingPoint(circuit());
       expectClose(op.current('Rab'), (op.voltage('p') - op.voltage('m')) / 1000, 'i(Rab)');
       expectClose(op.current('Rba'), (0 - op.voltage('m')) / 2000, 'i(Rba)');
-      // nodal equation at m: (6 − vm)/1k = vm/2k + I1, I1 = −1 mA leaving m through the source
+      // nodal equation at m: (6 − vm)/1k = vm/2k + i_sink, i_sink = −1 mA leaving m through the source
       const vm = (6 / 1000 + 1e-3) / (1 / 1000 + 1 / 2000);
       expectClose(op.voltage('m'), vm, 'v(m)');
     });
 
     it('gives a voltage source that delivers power a current of the opposite sign to its voltage', () => {
       const op = operatingPoint(circuit());
-      const i = op.current('V1');
+      const i = op.current('supply');
       expect(i).toBeLessThan(0);
-      expectClose(i, -op.current('Rab'), 'i(V1)');
+      expectClose(i, -op.current('Rab'), 'i(supply)');
       expect(op.voltage('p') * i).toBeLessThan(0); // absorbed power v·i < 0: delivered
     });
 
     it('gives a current source its set value', () => {
       const op = operatingPoint(circuit());
-      expect(op.current('I1')).toBe(-1e-3);
-      expect(op.current('I2')).toBe(0.5e-3);
-      expectClose(op.voltage('q'), 0.5e-3 * 4000, 'v(q): I2 flows from ground into q');
+      expect(op.current('sink')).toBe(-1e-3);
+      expect(op.current('feed')).toBe(0.5e-3);
+      expectClose(op.voltage('q'), 0.5e-3 * 4000, 'v(q): feed flows from ground into q');
     });
   });
 
@@ -482,7 +482,7 @@ describe('linear DC operating point', () => {
     const solved = () =>
       operatingPoint(
         new Circuit()
-          .voltageSource('V1', 'a', GROUND, { dc: 1 })
+          .voltageSource('supply', 'a', GROUND, { dc: 1 })
           .resistor('R1', 'a', GROUND, 1e3)
           .diode('D1', 'a', 'k')
           .resistor('R2', 'k', GROUND, 1e3),

@@ -14,7 +14,7 @@ import { commonEmitterStage } from '../support/linearity-circuits.js';
 /** Two diodes: D1 at about 1.6 mA behind 20 Ω swings little; D2 at 13 µA behind 100 kΩ swings a lot. */
 function twoDiodes(amplitude: number): Circuit {
   return new Circuit()
-    .voltageSource('V1', 'in', GROUND, { dc: 2, ac: amplitude })
+    .voltageSource('drive', 'in', GROUND, { dc: 2, ac: amplitude })
     .resistor('R1', 'in', 'a', '1k')
     .diode('D1', 'a', GROUND)
     .resistor('R2', 'a', 'b', '100')

@@ -14,7 +14,7 @@ import { expectRelativelyClose } from '../support/close.js';
 /** A diode biased near 1.6 mA from 0.7 V through 20 Ω, driven by `amplitude` volts peak. */
 function diodeAttenuator(amplitude: number, capacitance = 0): Circuit {
   return new Circuit()
-    .voltageSource('V1', 'in', GROUND, { dc: 0.7, ac: amplitude })
+    .voltageSource('drive', 'in', GROUND, { dc: 0.7, ac: amplitude })
     .resistor('R1', 'in', 'a', 20)
     .diode('D1', 'a', GROUND, { junctionCapacitance: capacitance });
 }
@@ -22,10 +22,10 @@ function diodeAttenuator(amplitude: number, capacitance = 0): Circuit {
 /** A MOSFET common-source stage: V_ov = 1 V (Vth 0.7 V, gate at 1.7 V), square law, λ = 0. */
 function commonSource(amplitude: number): Circuit {
   return new Circuit()
-    .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
-    .voltageSource('VG', 'g', GROUND, { dc: 1.7, ac: amplitude })
+    .voltageSource('supply', 'vdd', GROUND, { dc: 10 })
+    .voltageSource('gateDrive', 'g', GROUND, { dc: 1.7, ac: amplitude })
     .resistor('RD', 'vdd', 'd', '5k')
-    .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos' });
+    .mosfet('amplifier', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos' });
 }
 
 describe('linearity of a MOSFET channel', () => {
@@ -48,12 +48,12 @@ describe('linearity of a MOSFET channel', () => {
     // Source: docs/linearity.md, "Junction entries" (channels are judged in saturation only).
     // 5 kΩ at 10 V pulls the drain to about 0.6 V with V_ov = 2.3 V: triode by the square law's own boundary vds < V_ov.
     const c = new Circuit()
-      .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
-      .voltageSource('VG', 'g', GROUND, { dc: 3, ac: 0.01 })
+      .voltageSource('supply', 'vdd', GROUND, { dc: 10 })
+      .voltageSource('gateDrive', 'g', GROUND, { dc: 3, ac: 0.01 })
       .resistor('RD', 'vdd', 'd', '5k')
-      .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos' });
+      .mosfet('amplifier', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos' });
     const op = operatingPoint(c);
-    expect(op.mosfet('M1').region).toBe('triode');
+    expect(op.mosfet('amplifier').region).toBe('triode');
     expect(linearity(acAnalysis(op, { frequencies: [1] })).junctions).toEqual([]);
   });
 });
@@ -113,16 +113,16 @@ describe('linearity of a diode', () => {
 /** Two diodes at different currents and a MOSFET, all driven by one source. */
 function mixedCircuit(amplitude: number): Circuit {
   return new Circuit()
-    .voltageSource('V1', 'in', GROUND, { dc: 2, ac: amplitude })
+    .voltageSource('drive', 'in', GROUND, { dc: 2, ac: amplitude })
     .resistor('R1', 'in', 'a', '1k')
     .diode('D1', 'a', GROUND)
     .resistor('R2', 'in', 'b', '100k')
     .diode('D2', 'b', GROUND, { emissionCoefficient: 2 })
-    .voltageSource('VDD', 'vdd', GROUND, { dc: 10 })
+    .voltageSource('supply', 'vdd', GROUND, { dc: 10 })
     .resistor('RG1', 'in', 'g', '1k')
     .resistor('RG2', 'g', GROUND, '1k')
     .resistor('RD', 'vdd', 'd', '10k')
-    .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', gainFactor: 2e-4 });
+    .mosfet('amplifier', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', gainFactor: 2e-4 });
 }
 
 describe('maxInputScale', () => {
@@ -137,7 +137,7 @@ describe('maxInputScale', () => {
       expect(report.junctions.map((j) => `${j.device}:${j.junction}`)).toEqual([
         'D1:pn',
         'D2:pn',
-        'M1:channel',
+        'amplifier:channel',
       ]);
       const s = report.maxInputScale;
       expect(Number.isFinite(s)).toBe(true);
@@ -156,7 +156,7 @@ describe('maxInputScale', () => {
   it('is Infinity when no junction carries signal', () => {
     // Source: docs/linearity.md, "Junction entries" (Infinity where no junction carries signal).
     const c = new Circuit()
-      .voltageSource('V1', 'in', GROUND, { dc: 0.7 })
+      .voltageSource('drive', 'in', GROUND, { dc: 0.7 })
       .resistor('R1', 'in', 'a', 20)
       .diode('D1', 'a', GROUND);
     const report = linearity(acAnalysis(operatingPoint(c), { frequencies: [1] }));
@@ -200,8 +200,8 @@ describe('junction bias', () => {
       // (common practice, no source).
       const s = polarity === 'npn' ? 1 : -1;
       const c = new Circuit()
-        .voltageSource('VCC', 'vcc', GROUND, { dc: 10 * s })
-        .voltageSource('VB', 'b', GROUND, { dc: 0.65 * s, ac: 0.001 })
+        .voltageSource('supply', 'vcc', GROUND, { dc: 10 * s })
+        .voltageSource('baseDrive', 'b', GROUND, { dc: 0.65 * s, ac: 0.001 })
         .resistor('RC', 'vcc', 'c', '4.7k')
         .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, { polarity });
       const op = operatingPoint(c);

@@ -209,16 +209,16 @@ describe('flicker noise', () => {
       .voltageSource('bias', 'g', GROUND, { dc: 1.2 })
       .resistor('load', 'vdd', 'd', RD, { noiseless: true })
       .mosfet(
-        'M1',
+        'amplifier',
         { drain: 'd', gate: 'g', source: GROUND },
         { polarity: 'nmos', flickerCoefficient: K, flickerExponent: 2 },
       );
     const op = operatingPoint(c, TIGHT);
-    const m = op.mosfet('M1');
+    const m = op.mosfet('amplifier');
     const nz = noise(op, { output: 'd', frequencies: [10] });
     const channel = m.id - 1e-12 * m.vds; // the channel's own current, without the junction conductance's
     const expected = Math.sqrt((K * channel ** 2) / 10) * parallel(RD, 1 / (m.gds + 1e-12));
-    expectRelativelyClose(share(nz, 'M1', 'flicker'), expected, 1e-9, 'MOSFET flicker');
+    expectRelativelyClose(share(nz, 'amplifier', 'flicker'), expected, 1e-9, 'MOSFET flicker');
   });
 });
 
@@ -267,9 +267,9 @@ describe('MOSFET channel noise', () => {
       .voltageSource('supply', 'vdd', GROUND, { dc: 5 })
       .voltageSource('bias', 'g', GROUND, { dc: 1.5 })
       .resistor('load', 'vdd', 'd', RD, { noiseless: true })
-      .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', gainFactor: 2e-3 });
+      .mosfet('amplifier', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', gainFactor: 2e-3 });
     const op = operatingPoint(c, TIGHT);
-    const m = op.mosfet('M1');
+    const m = op.mosfet('amplifier');
     expect(m.region).toBe('saturation');
     const nz = noise(op, { output: 'd', frequencies: [1e3] });
     const expected = Math.sqrt(fourKT(op.temperature) * (2 / 3) * m.gm) * parallel(RD, 1 / (m.gds + 1e-12));

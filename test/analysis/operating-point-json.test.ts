@@ -5,9 +5,9 @@ describe('OperatingPoint.toJSON', () => {
   // A 1 mA current source into 2.2 kΩ gives 2.2 V (Ohm's law; common practice, no source), and a diode
   // fed by 1 mA from a 5 V rail: its current is the rail minus its voltage over the resistor (KCL).
   const circuit = new Circuit()
-    .currentSource('Iref', GROUND, 'ref', { dc: '1m' })
+    .currentSource('reference', GROUND, 'ref', { dc: '1m' })
     .resistor('Rref', 'ref', GROUND, '2.2k')
-    .voltageSource('Vrail', 'rail', GROUND, { dc: 5 })
+    .voltageSource('supply', 'rail', GROUND, { dc: 5 })
     .resistor('Rfeed', 'rail', 'anode', '4.3k')
     .diode('D1', 'anode', GROUND);
   const op = operatingPoint(circuit);
@@ -15,7 +15,7 @@ describe('OperatingPoint.toJSON', () => {
   it('holds node voltages, element currents and device reports as plain numbers', () => {
     const data = op.toJSON();
     expect(data.nodes['ref']).toBeCloseTo(2.2, 12);
-    expect(data.currents['Iref']).toBe(1e-3);
+    expect(data.currents['reference']).toBe(1e-3);
     expect(data.currents['Rref']).toBeCloseTo(1e-3, 15);
     expect(Object.keys(data.nodes)).not.toContain(GROUND);
     const diode = data.devices['D1'];

@@ -23,7 +23,9 @@ function expectKcl(circuit: Circuit, op: OperatingPoint): void {
 
 describe('operatingPoint on hard circuits', () => {
   it('converges on twenty diodes in series across a 20 V supply', () => {
-    const c = new Circuit().voltageSource('V1', 'n0', GROUND, { dc: 20 }).resistor('R1', 'n0', 'n1', '10k');
+    const c = new Circuit()
+      .voltageSource('supply', 'n0', GROUND, { dc: 20 })
+      .resistor('R1', 'n0', 'n1', '10k');
     for (let k = 1; k <= 20; k++) c.diode(`D${k}`, `n${k}`, k === 20 ? GROUND : `n${k + 1}`);
     const op = operatingPoint(c);
     expectKcl(c, op);
@@ -43,7 +45,7 @@ describe('operatingPoint on hard circuits', () => {
 
   it('finds the DC state of a bridge rectifier: two diodes conduct, two block', () => {
     const c = new Circuit()
-      .voltageSource('V1', 'ac1', 'ac2', { dc: 10 })
+      .voltageSource('supply', 'ac1', 'ac2', { dc: 10 })
       .resistor('Rg', 'ac2', GROUND, 1)
       .diode('D1', 'ac1', 'p')
       .diode('D2', 'ac2', 'p')
@@ -65,8 +67,8 @@ describe('operatingPoint on hard circuits', () => {
   it('converges on a Darlington pair, whose current gain is about β²', () => {
     const model = { polarity: 'npn', forwardBeta: 100 } as const;
     const c = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 12 })
-      .voltageSource('Vin', 'in', GROUND, { dc: 3 })
+      .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
+      .voltageSource('input', 'in', GROUND, { dc: 3 })
       .resistor('Rb', 'in', 'b1', '1M')
       .bjt('Q1', { collector: 'vcc', base: 'b1', emitter: 'b2' }, model)
       .bjt('Q2', { collector: 'vcc', base: 'b2', emitter: 'e' }, model)
@@ -85,10 +87,10 @@ describe('operatingPoint on hard circuits', () => {
 
   it('converges on a differential pair with a current-mirror load', () => {
     const c = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 10 })
-      .voltageSource('Vee', 'vee', GROUND, { dc: -10 })
-      .voltageSource('Vp', 'inp', GROUND, { dc: 0 })
-      .voltageSource('Vm', 'inm', GROUND, { dc: 0 })
+      .voltageSource('supply', 'vcc', GROUND, { dc: 10 })
+      .voltageSource('negativeSupply', 'vee', GROUND, { dc: -10 })
+      .voltageSource('inputPlus', 'inp', GROUND, { dc: 0 })
+      .voltageSource('inputMinus', 'inm', GROUND, { dc: 0 })
       .bjt('Q1', { collector: 'mirror', base: 'inp', emitter: 'tail' }, NPN)
       .bjt('Q2', { collector: 'out', base: 'inm', emitter: 'tail' }, NPN)
       .bjt('Q3', { collector: 'mirror', base: 'mirror', emitter: 'vcc' }, PNP)
@@ -108,7 +110,7 @@ describe('operatingPoint on hard circuits', () => {
 
   it('converges on a two-stage amplifier with negative feedback from the output emitter to the input base', () => {
     const c = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 15 })
+      .voltageSource('supply', 'vcc', GROUND, { dc: 15 })
       .resistor('Rc1', 'vcc', 'c1', '22k')
       .resistor('Rf', 'e2', 'b1', '47k')
       .resistor('Rb', 'b1', GROUND, '10k')
@@ -140,15 +142,15 @@ describe('operatingPoint on hard circuits', () => {
 
   it('converges on a CMOS inverter at its switching threshold, where both channels saturate', () => {
     const c = new Circuit()
-      .voltageSource('Vdd', 'vdd', GROUND, { dc: 5 })
-      .voltageSource('Vin', 'in', GROUND, { dc: 2.5 })
+      .voltageSource('supply', 'vdd', GROUND, { dc: 5 })
+      .voltageSource('input', 'in', GROUND, { dc: 2.5 })
       .mosfet(
-        'Mp',
+        'pullUp',
         { drain: 'out', gate: 'in', source: 'vdd' },
         { polarity: 'pmos', channelLengthModulation: 0.02 },
       )
       .mosfet(
-        'Mn',
+        'pullDown',
         { drain: 'out', gate: 'in', source: GROUND },
         { polarity: 'nmos', channelLengthModulation: 0.02 },
       );
@@ -162,7 +164,7 @@ describe('operatingPoint on hard circuits', () => {
 describe('operatingPoint when it truly cannot converge', () => {
   it('throws no-convergence with the strategies, worst residuals and devices, never NaN', () => {
     const c = new Circuit()
-      .voltageSource('V1', 'a', GROUND, { dc: 5 })
+      .voltageSource('supply', 'a', GROUND, { dc: 5 })
       .resistor('R1', 'a', 'k', '1k')
       .diode('D1', 'k', GROUND);
     let error: unknown;

@@ -64,7 +64,7 @@ function build(
   order: readonly number[] = net.parts.map((_, k) => k),
   supply = net.supply,
 ): Circuit {
-  const c = new Circuit().voltageSource('V1', nodeName(0, net.nodes), GROUND, { dc: supply });
+  const c = new Circuit().voltageSource('supply', nodeName(0, net.nodes), GROUND, { dc: supply });
   for (const k of order) {
     const p = net.parts[k]!;
     const a = nodeName(p.a, net.nodes);
@@ -117,7 +117,7 @@ describe('the operating point of random diode-resistor networks', () => {
           const b = operatingPoint(build(net, order));
           for (let k = 0; k < net.nodes; k++)
             expectSameVoltage(a.voltage(`n${k}`), b.voltage(`n${k}`), `node n${k}`);
-          expectSameVoltage(a.current('V1'), b.current('V1'), 'supply current');
+          expectSameVoltage(a.current('supply'), b.current('supply'), 'supply current');
         },
       ),
       { numRuns: 40 },
@@ -134,7 +134,7 @@ describe('the operating point of random diode-resistor networks', () => {
           maxLength: 6,
         }),
         (net, values) => {
-          const sweep = dcSweep(build(net), { source: 'V1', values });
+          const sweep = dcSweep(build(net), { source: 'supply', values });
           for (let k = 0; k < net.nodes; k++) {
             const swept = sweep.voltage(`n${k}`);
             values.forEach((v, j) => {

@@ -4,7 +4,7 @@ import { crossCoupledBistable } from '../support/bistable.js';
 import { thrown } from '../support/quiescent-error.js';
 
 function diodeChain(count: number): Circuit {
-  const c = new Circuit().voltageSource('V1', 'n0', GROUND, { dc: 20 }).resistor('R1', 'n0', 'n1', '10k');
+  const c = new Circuit().voltageSource('supply', 'n0', GROUND, { dc: 20 }).resistor('R1', 'n0', 'n1', '10k');
   for (let k = 1; k <= count; k++) c.diode(`D${k}`, `n${k}`, k === count ? GROUND : `n${k + 1}`);
   return c;
 }
@@ -13,7 +13,7 @@ describe('operatingPoint strategies', () => {
   it('solves a linear circuit in one step', () => {
     // Ohm's law: a 1 k / 3 k divider across 8 V gives 6 V.
     const c = new Circuit()
-      .voltageSource('V1', 'a', GROUND, { dc: 8 })
+      .voltageSource('supply', 'a', GROUND, { dc: 8 })
       .resistor('R1', 'a', 'b', '1k')
       .resistor('R2', 'b', GROUND, '3k');
     const op = operatingPoint(c);

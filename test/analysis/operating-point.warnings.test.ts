@@ -7,7 +7,7 @@ describe('the warnings of an operating point', () => {
   it('are empty for a diode biased through a resistor', () => {
     const op = operatingPoint(
       new Circuit()
-        .voltageSource('V1', 'a', GROUND, { dc: 5 })
+        .voltageSource('supply', 'a', GROUND, { dc: 5 })
         .resistor('R1', 'a', 'b', '1k')
         .diode('D1', 'b', GROUND),
     );
@@ -18,7 +18,7 @@ describe('the warnings of an operating point', () => {
   // constants): beyond the limit of 80·n·Vt, so the answer is the continued model's and says so.
   it('name a junction forced beyond the exponential limit', () => {
     const op = operatingPoint(
-      new Circuit().voltageSource('V1', 'a', GROUND, { dc: 5 }).diode('D1', 'a', GROUND),
+      new Circuit().voltageSource('supply', 'a', GROUND, { dc: 5 }).diode('D1', 'a', GROUND),
     );
     expect(op.warnings).toHaveLength(1);
     expect(op.warnings[0]).toMatch(/pn junction of 'D1' at 195·n·Vt/);
@@ -29,9 +29,9 @@ describe('the warnings of an operating point', () => {
     const pnp = (vbe: number) =>
       operatingPoint(
         new Circuit()
-          .voltageSource('Ve', 'e', GROUND, { dc: 0 })
-          .voltageSource('Vb', 'b', GROUND, { dc: vbe })
-          .voltageSource('Vc', 'c', GROUND, { dc: -10 })
+          .voltageSource('emitterBias', 'e', GROUND, { dc: 0 })
+          .voltageSource('baseBias', 'b', GROUND, { dc: vbe })
+          .voltageSource('collectorBias', 'c', GROUND, { dc: -10 })
           .bjt('Q1', { collector: 'c', base: 'b', emitter: 'e' }, { polarity: 'pnp' }),
       );
     expect(pnp(3).warnings).toEqual([]); // base-emitter reverse-biased by 3 V

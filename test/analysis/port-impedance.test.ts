@@ -21,7 +21,7 @@ describe('portImpedance on RC networks', () => {
   // R1 = 2.2 kΩ from a driven input to node x, C1 = 33 nF from x to ground, R2 = 10 kΩ from x to y,
   // C2 = 4.7 nF from y to ground.
   const circuit = new Circuit()
-    .voltageSource('Vin', 'in', GROUND, { dc: 3, ac: 1 })
+    .voltageSource('input', 'in', GROUND, { dc: 3, ac: 1 })
     .resistor('R1', 'in', 'x', 2.2e3)
     .capacitor('C1', 'x', GROUND, 33e-9)
     .resistor('R2', 'x', 'y', 10e3)
@@ -82,7 +82,7 @@ describe('portImpedance on RC networks', () => {
   it('sees a capacitor in parallel with the resistive path around it: 1/(jωC) ‖ (R1 + R2)', () => {
     // Source: parallel combination of impedances (any circuits text, from memory).
     const c = new Circuit()
-      .currentSource('Iin', GROUND, 'x', { ac: 1 })
+      .currentSource('drive', GROUND, 'x', { ac: 1 })
       .resistor('R1', 'x', GROUND, 1e3)
       .capacitor('C1', 'x', 'y', 1e-9)
       .resistor('R2', 'y', GROUND, 1e3);
@@ -96,7 +96,7 @@ describe('portImpedance on RC networks', () => {
     // 1 Hz in floating point.
     const value = 1 / (2 * Math.PI);
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .resistor('R1', 'in', 'tank', 1e3)
       .inductor('L1', 'tank', GROUND, value)
       .capacitor('C1', 'tank', 'in', value);
@@ -110,7 +110,7 @@ describe('portImpedance on RC networks', () => {
       'R1 at f0',
     );
     const lossless = new Circuit()
-      .currentSource('Iin', GROUND, 'tank', { ac: 1 })
+      .currentSource('drive', GROUND, 'tank', { ac: 1 })
       .inductor('L1', 'tank', GROUND, value)
       .capacitor('C1', 'tank', GROUND, value);
     expectQuiescentError(
@@ -128,8 +128,8 @@ describe('portImpedance of transistor and op-amp outputs', () => {
     const sourceResistance = 1e3;
     const RE = 2.2e3;
     const c = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 12 })
-      .voltageSource('Vin', 'in', GROUND, { dc: 6, ac: 1 })
+      .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
+      .voltageSource('input', 'in', GROUND, { dc: 6, ac: 1 })
       .resistor('Rs', 'in', 'b', sourceResistance)
       .bjt(
         'Q1',
@@ -155,12 +155,12 @@ describe('portImpedance of transistor and op-amp outputs', () => {
       'textbook Z_out',
     );
     // The same stage seen from its driving source: R_s + r_π + (β0 + 1)·(R_E ‖ r_o) (same source).
-    const zin = acAnalysis(op, { frequencies: [1e3] }).sourceImpedance('Vin')[0]!;
+    const zin = acAnalysis(op, { frequencies: [1e3] }).sourceImpedance('input')[0]!;
     expectRelativelyClose(
       zin.re,
       sourceResistance + q.rpi + (beta0 + 1) * parallel(RE, q.ro),
       1e-6,
-      'Z_in seen by Vin',
+      'Z_in seen by input',
     );
   });
 
@@ -173,7 +173,7 @@ describe('portImpedance of transistor and op-amp outputs', () => {
     const [R1, R2] = [1e3, 4e3];
     const beta = R1 / (R1 + R2);
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .opAmp(
         'U1',
         { plus: 'in', minus: 'fb', output: 'out' },
@@ -196,11 +196,11 @@ describe('AcAnalysis.sourceImpedance', () => {
   it('sees R + 1/(jωC) through a series RC, and an infinite impedance at 0 Hz', () => {
     // Source: series impedance; a capacitor is open at 0 Hz (any circuits text, from memory).
     const c = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { dc: 1, ac: 1 })
+      .voltageSource('input', 'in', GROUND, { dc: 1, ac: 1 })
       .resistor('R1', 'in', 'out', 1e3)
       .capacitor('C1', 'out', GROUND, 1e-6);
     const frequencies = [0, 10, 159, 1e4];
-    const z = acAnalysis(operatingPoint(c), { frequencies }).sourceImpedance('Vin');
+    const z = acAnalysis(operatingPoint(c), { frequencies }).sourceImpedance('input');
     expect(z[0]!.isInfinite()).toBe(true);
     frequencies.slice(1).forEach((f, k) => {
       const expected = new Complex(1e3, -1 / (2 * Math.PI * f * 1e-6));
@@ -215,16 +215,16 @@ describe('AcAnalysis.sourceImpedance', () => {
     const C = 1e-9;
     const f = 20e3;
     const base = new Circuit()
-      .currentSource('I1', GROUND, 'x', { ac: 1e-3 })
+      .currentSource('drive', GROUND, 'x', { ac: 1e-3 })
       .resistor('R1', 'x', GROUND, R)
       .capacitor('C1', 'x', GROUND, C);
     const expected = new Complex(R).div(new Complex(1, 2 * Math.PI * f * R * C));
-    const alone = acAnalysis(operatingPoint(base), { frequencies: [f] }).sourceImpedance('I1')[0]!;
-    expectComplexClose(alone, expected, 1e-12, 'Z seen by I1');
-    const withSecond = base.currentSource('I2', GROUND, 'x', { ac: 1e-3 });
+    const alone = acAnalysis(operatingPoint(base), { frequencies: [f] }).sourceImpedance('drive')[0]!;
+    expectComplexClose(alone, expected, 1e-12, 'Z seen by drive');
+    const withSecond = base.currentSource('secondDrive', GROUND, 'x', { ac: 1e-3 });
     const op = operatingPoint(withSecond);
     expectComplexClose(
-      acAnalysis(op, { frequencies: [f] }).sourceImpedance('I1')[0]!,
+      acAnalysis(op, { frequencies: [f] }).sourceImpedance('drive')[0]!,
       expected.mul(2),
       1e-12,
       'with a second equal source',
@@ -234,13 +234,18 @@ describe('AcAnalysis.sourceImpedance', () => {
 
   it('refuses elements that are not sources and sources without AC excitation', () => {
     const c = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 5 })
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('supply', 'vcc', GROUND, { dc: 5 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .resistor('R1', 'in', 'vcc', 1e3);
     const ac = acAnalysis(operatingPoint(c), { frequencies: [1] });
     expectQuiescentError(() => ac.sourceImpedance('R1'), 'unknown-element', 'R1');
     expectQuiescentError(() => ac.sourceImpedance('nothing'), 'unknown-element', 'nothing');
-    expectQuiescentError(() => ac.sourceImpedance('Vcc'), 'invalid-value', 'Vcc');
-    expectRelativelyClose(ac.sourceImpedance('Vin')[0]!.re, 1e3, 1e-12, 'Vin sees R1 to the shorted Vcc');
+    expectQuiescentError(() => ac.sourceImpedance('supply'), 'invalid-value', 'supply');
+    expectRelativelyClose(
+      ac.sourceImpedance('input')[0]!.re,
+      1e3,
+      1e-12,
+      'input sees R1 to the shorted supply',
+    );
   });
 });

@@ -10,7 +10,7 @@ import { expectRelativelyClose } from '../support/close.js';
 
 function diodeAttenuator(amplitude: number): Circuit {
   return new Circuit()
-    .voltageSource('V1', 'in', GROUND, { dc: reference.bias, ac: amplitude })
+    .voltageSource('drive', 'in', GROUND, { dc: reference.bias, ac: amplitude })
     .resistor('R1', 'in', 'a', reference.resistance)
     .diode('D1', 'a', GROUND, { saturationCurrent: reference.saturationCurrent });
 }
@@ -46,7 +46,7 @@ describe('quasiStaticHarmonics', () => {
     const i0 = 1e-3;
     const peak = 4e-4;
     const c = new Circuit()
-      .currentSource('I1', GROUND, 'a', { dc: i0, ac: { magnitude: peak, phase: 30 } })
+      .currentSource('bias', GROUND, 'a', { dc: i0, ac: { magnitude: peak, phase: 30 } })
       .diode('D1', 'a', GROUND, { emissionCoefficient: 1.5 });
     const result = quasiStaticHarmonics(c, { output: 'a', phases: 128 });
     const nVt = 1.5 * operatingPoint(c).thermalVoltage;
@@ -68,7 +68,7 @@ describe('quasiStaticHarmonics', () => {
     // Source: superposition (a linear circuit's response to a sinusoid is that sinusoid); the divider
     // gain 1k/(1k + 3k) by Ohm's law.
     const c = new Circuit()
-      .voltageSource('V1', 'in', GROUND, { dc: 1, ac: 2 })
+      .voltageSource('drive', 'in', GROUND, { dc: 1, ac: 2 })
       .resistor('R1', 'in', 'out', '3k')
       .resistor('R2', 'out', GROUND, '1k');
     const result = quasiStaticHarmonics(c, { output: { node: 'out' }, phases: 16 });
@@ -122,7 +122,7 @@ describe('the held reactive elements', () => {
       .diode('D1', 'a', GROUND)
       .inductor('Lchoke', 'vcc', 'b', '1m')
       .resistor('Rload', 'b', GROUND, '1k')
-      .currentSource('Ifeed', GROUND, 'c', { dc: 1e-3 })
+      .currentSource('feed', GROUND, 'c', { dc: 1e-3 })
       .inductor('Lseries', 'c', 'd', '1m')
       .resistor('Rsense', 'd', GROUND, '100');
     const check = quasiStaticHarmonics(circuit, { output: 'a' });

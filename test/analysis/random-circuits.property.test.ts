@@ -56,7 +56,7 @@ function build(specs: readonly Spec[]): Circuit {
       c.bjt(`Q${k}`, { collector: s.a, base: s.b, emitter: s.c! }, { polarity: 'npn' });
     else if (s.kind === 'nmos')
       c.mosfet(
-        `M${k}`,
+        `channel${k}`,
         { drain: s.a, gate: s.b, source: s.c! },
         { polarity: 'nmos', channelLengthModulation: v },
       );

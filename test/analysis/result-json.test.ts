@@ -14,10 +14,10 @@ import {
 // A divider fed through a coupling capacitor into a biased diode: every result kind has something to show.
 function biasedDiode(): Circuit {
   return new Circuit()
-    .voltageSource('Vbias', 'supply', GROUND, { dc: 3 })
+    .voltageSource('bias', 'supply', GROUND, { dc: 3 })
     .resistor('Rbias', 'supply', 'anode', '2.2k')
     .diode('D1', 'anode', GROUND)
-    .voltageSource('Vsig', 'sig', GROUND, { ac: '2m' })
+    .voltageSource('signal', 'sig', GROUND, { ac: '2m' })
     .capacitor('Cc', 'sig', 'anode', '1µ');
 }
 
@@ -25,9 +25,9 @@ describe('the JSON forms of results', () => {
   // Ohm's law on the bias resistor at each point (common practice, no source): the JSON carries the
   // same numbers as the accessors, as plain arrays.
   it('write a DC sweep as plain arrays per node and element', () => {
-    const sweep = dcSweep(biasedDiode(), { source: 'Vbias', values: [1, 2, 3] });
+    const sweep = dcSweep(biasedDiode(), { source: 'bias', values: [1, 2, 3] });
     const json = JSON.parse(JSON.stringify(sweep));
-    expect(json.swept).toEqual({ kind: 'source', element: 'Vbias' });
+    expect(json.swept).toEqual({ kind: 'source', element: 'bias' });
     expect(json.values).toEqual([1, 2, 3]);
     expect(json.nodes.anode).toEqual(Array.from(sweep.voltage('anode')));
     json.values.forEach((v: number, k: number) => {
@@ -56,7 +56,7 @@ describe('the JSON forms of results', () => {
 
     // Without any AC drive no junction carries signal: the scale is unlimited, which JSON writes as null.
     const still = new Circuit()
-      .voltageSource('Vbias', 'supply', GROUND, { dc: 3 })
+      .voltageSource('bias', 'supply', GROUND, { dc: 3 })
       .resistor('Rbias', 'supply', 'anode', '2.2k')
       .diode('D1', 'anode', GROUND);
     const unlimited = linearity(acAnalysis(operatingPoint(still), { frequencies: [1e3] }));
@@ -67,11 +67,11 @@ describe('the JSON forms of results', () => {
 
 describe('the DC sweep table', () => {
   it('shows the swept value with its unit and one column per chosen node and element', () => {
-    const sweep = dcSweep(biasedDiode(), { source: 'Vbias', values: linearSweep(1, 3, 3) });
+    const sweep = dcSweep(biasedDiode(), { source: 'bias', values: linearSweep(1, 3, 3) });
     const text = formatDcSweep(sweep, { nodes: ['anode'], elements: ['Rbias'] });
     const lines = text.split('\n');
-    expect(lines[0]).toBe('DC sweep of Vbias');
-    expect(lines[1]).toMatch(/Vbias\s+anode\s+current in Rbias/);
+    expect(lines[0]).toBe('DC sweep of bias');
+    expect(lines[1]).toMatch(/bias\s+anode\s+current in Rbias/);
     expect(lines).toHaveLength(3 + 3);
     expect(lines[3]).toMatch(/^\s*1 V\s/);
     expect(lines[5]).toMatch(/^\s*3 V\s/);

@@ -46,36 +46,36 @@ describe('Circuit builder', () => {
         c.resistor('R1', 'a', GROUND, '4.7k'),
         c.capacitor('C1', 'a', 'b', '10uF'),
         c.inductor('L1', 'b', GROUND, '2.2 mH'),
-        c.voltageSource('V1', 'a', GROUND, { dc: 5, ac: { magnitude: '1 V', phase: 30 } }),
-        c.currentSource('I1', GROUND, 'b', { dc: '1mA', ac: 0.5 }),
-        c.vcvs('E1', ['e', GROUND], ['a', 'b'], 10),
-        c.vccs('G1', ['f', GROUND], ['a', GROUND], '2mS'),
-        c.ccvs('H1', ['h', GROUND], 'V1', '1k'),
-        c.cccs('F1', ['k', GROUND], 'L1', 3),
+        c.voltageSource('supply', 'a', GROUND, { dc: 5, ac: { magnitude: '1 V', phase: 30 } }),
+        c.currentSource('bias', GROUND, 'b', { dc: '1mA', ac: 0.5 }),
+        c.vcvs('buffer', ['e', GROUND], ['a', 'b'], 10),
+        c.vccs('transconductor', ['f', GROUND], ['a', GROUND], '2mS'),
+        c.ccvs('senseAmp', ['h', GROUND], 'supply', '1k'),
+        c.cccs('mirror', ['k', GROUND], 'L1', 3),
         c.opAmp('U1', { plus: 'a', minus: 'o', output: 'o' }),
         c.opAmp('U2', { plus: 'a', minus: 'p', output: 'p' }, { openLoopGain: 2e5, outputResistance: 75 }),
         c.diode('D1', 'a', 'd', { saturationCurrent: '10f', emissionCoefficient: 1.8 }),
         c.bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, { polarity: 'npn', forwardBeta: 150 }),
-        c.mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos' }),
-        c.mosfet('M2', { drain: 'd', gate: 'g', source: 's', body: 'w' }, { polarity: 'pmos' }),
+        c.mosfet('switch', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos' }),
+        c.mosfet('pullUp', { drain: 'd', gate: 'g', source: 's', body: 'w' }, { polarity: 'pmos' }),
       ];
       for (const r of returned) expect(r).toBe(c);
       expect(c.elements.map((e) => e.name)).toEqual([
         'R1',
         'C1',
         'L1',
-        'V1',
-        'I1',
-        'E1',
-        'G1',
-        'H1',
-        'F1',
+        'supply',
+        'bias',
+        'buffer',
+        'transconductor',
+        'senseAmp',
+        'mirror',
         'U1',
         'U2',
         'D1',
         'Q1',
-        'M1',
-        'M2',
+        'switch',
+        'pullUp',
       ]);
     });
 
@@ -85,18 +85,18 @@ describe('Circuit builder', () => {
         .resistor('R1', 'a', GROUND, '4.7k')
         .capacitor('C1', 'a', GROUND, '10µF')
         .inductor('L1', 'a', GROUND, '2.2 mH')
-        .voltageSource('V1', 'a', GROUND, { dc: '1.5', ac: { magnitude: '100m', phase: -45 } });
+        .voltageSource('supply', 'a', GROUND, { dc: '1.5', ac: { magnitude: '100m', phase: -45 } });
       expect(c.element('R1')).toMatchObject({ kind: 'resistor', a: 'a', b: GROUND, resistance: 4700 });
       expect((c.element('C1') as { capacitance: number }).capacitance).toBeCloseTo(10e-6, 18);
       expect((c.element('L1') as { inductance: number }).inductance).toBeCloseTo(2.2e-3, 15);
-      expect(c.element('V1')).toMatchObject({ dc: 1.5, ac: { magnitude: 0.1, phase: -45 } });
+      expect(c.element('supply')).toMatchObject({ dc: 1.5, ac: { magnitude: 0.1, phase: -45 } });
     });
 
     it('defaults a source to no DC value and no AC signal', () => {
       // docs/circuit-api.md, "Sources and their AC excitation": dc and ac are optional (common practice, no source)
-      const c = new Circuit().voltageSource('V1', 'a', GROUND).currentSource('I1', 'a', GROUND, {});
-      expect(c.element('V1')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
-      expect(c.element('I1')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
+      const c = new Circuit().voltageSource('supply', 'a', GROUND).currentSource('bias', 'a', GROUND, {});
+      expect(c.element('supply')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
+      expect(c.element('bias')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
     });
 
     it('accepts zero for a capacitance and an inductance, and negative source values and gains', () => {
@@ -106,26 +106,26 @@ describe('Circuit builder', () => {
       const c = new Circuit()
         .capacitor('C1', 'a', GROUND, 0)
         .inductor('L1', 'a', 'b', 0)
-        .voltageSource('V1', 'a', GROUND, { dc: -12 })
-        .vcvs('E1', ['o', GROUND], ['a', GROUND], -4);
+        .voltageSource('supply', 'a', GROUND, { dc: -12 })
+        .vcvs('buffer', ['o', GROUND], ['a', GROUND], -4);
       expect(c.elements).toHaveLength(4);
     });
 
     it('stores a negative zero as zero, which JSON can carry', () => {
       // ECMA-404, 2017: JSON has no negative zero, so a stored −0 would not survive a round trip
       const c = new Circuit()
-        .voltageSource('V1', 'a', GROUND, { dc: -0, ac: { magnitude: -0, phase: -0 } })
-        .vcvs('E1', ['o', GROUND], ['a', GROUND], '-0');
-      expect(Object.is((c.element('V1') as { dc: number }).dc, 0)).toBe(true);
-      expect(Object.is((c.element('V1') as { ac: { magnitude: number } }).ac.magnitude, 0)).toBe(true);
-      expect(Object.is((c.element('V1') as { ac: { phase: number } }).ac.phase, 0)).toBe(true);
-      expect(Object.is((c.element('E1') as { gain: number }).gain, 0)).toBe(true);
+        .voltageSource('supply', 'a', GROUND, { dc: -0, ac: { magnitude: -0, phase: -0 } })
+        .vcvs('buffer', ['o', GROUND], ['a', GROUND], '-0');
+      expect(Object.is((c.element('supply') as { dc: number }).dc, 0)).toBe(true);
+      expect(Object.is((c.element('supply') as { ac: { magnitude: number } }).ac.magnitude, 0)).toBe(true);
+      expect(Object.is((c.element('supply') as { ac: { phase: number } }).ac.phase, 0)).toBe(true);
+      expect(Object.is((c.element('buffer') as { gain: number }).gain, 0)).toBe(true);
     });
 
     it('ties the MOSFET body to its source when no body is given, and keeps the polarity', () => {
       // docs/circuit-api.md, "Elements": body defaults to source
-      const c = new Circuit().mosfet('M1', { drain: 'd', gate: 'g', source: 's' }, { polarity: 'pmos' });
-      expect(c.element('M1')).toMatchObject({ source: 's', body: 's', polarity: 'pmos' });
+      const c = new Circuit().mosfet('switch', { drain: 'd', gate: 'g', source: 's' }, { polarity: 'pmos' });
+      expect(c.element('switch')).toMatchObject({ source: 's', body: 's', polarity: 'pmos' });
     });
 
     it('lists the nodes in order of first appearance, ground included', () => {
@@ -137,10 +137,10 @@ describe('Circuit builder', () => {
     it('keeps its records frozen, so a value cannot change without the checks', () => {
       // common practice, no source: checked data is immutable
       const c = new Circuit()
-        .voltageSource('V1', 'a', GROUND, { dc: 1, ac: 1 })
+        .voltageSource('supply', 'a', GROUND, { dc: 1, ac: 1 })
         .diode('D1', 'a', GROUND, { saturationCurrent: 1e-14 });
-      expect(Object.isFrozen(c.element('V1'))).toBe(true);
-      expect(Object.isFrozen((c.element('V1') as { ac: object }).ac)).toBe(true);
+      expect(Object.isFrozen(c.element('supply'))).toBe(true);
+      expect(Object.isFrozen((c.element('supply') as { ac: object }).ac)).toBe(true);
       expect(Object.isFrozen((c.element('D1') as { model: object }).model)).toBe(true);
     });
   });
@@ -159,36 +159,44 @@ describe('Circuit builder', () => {
       expectRejected(() => new Circuit().resistor('R1', '', 'b', 1), 'invalid-circuit', 'R1.a');
       expectRejected(() => new Circuit().capacitor('C1', 'a', '', 1), 'invalid-circuit', 'C1.b');
       expectRejected(
-        () => new Circuit().voltageSource('V1', undefined as unknown as string, GROUND),
+        () => new Circuit().voltageSource('supply', undefined as unknown as string, GROUND),
         'invalid-circuit',
-        'V1.plus',
+        'supply.plus',
       );
       expectRejected(
-        () => new Circuit().currentSource('I1', GROUND, null as unknown as string),
+        () => new Circuit().currentSource('bias', GROUND, null as unknown as string),
         'invalid-circuit',
-        'I1.to',
+        'bias.to',
       );
       expectRejected(() => new Circuit().diode('D1', 'a', ''), 'invalid-circuit', 'D1.cathode');
     });
 
     it('rejects an empty controlling-element name of a ccvs or cccs', () => {
       // docs/circuit-api.md, "Elements": the controlling element is named
-      expectRejected(() => new Circuit().ccvs('H1', ['a', GROUND], '', 1), 'invalid-circuit', 'H1.control');
-      expectRejected(() => new Circuit().cccs('F1', ['a', GROUND], '', 1), 'invalid-circuit', 'F1.control');
+      expectRejected(
+        () => new Circuit().ccvs('senseAmp', ['a', GROUND], '', 1),
+        'invalid-circuit',
+        'senseAmp.control',
+      );
+      expectRejected(
+        () => new Circuit().cccs('mirror', ['a', GROUND], '', 1),
+        'invalid-circuit',
+        'mirror.control',
+      );
     });
   });
 
   describe('rejects duplicate names', () => {
     it('rejects a second element of the same name with duplicate-name, whatever its kind', () => {
       // docs/circuit-api.md, "Elements": element names are unique within a circuit
-      const c = new Circuit().resistor('X1', 'a', GROUND, 1);
-      const error = expectRejected(() => c.capacitor('X1', 'a', GROUND, 1e-9), 'duplicate-name', 'X1');
-      expect(error.details).toEqual({ code: 'duplicate-name', name: 'X1' });
-      expectRejected(() => c.voltageSource('X1', 'a', GROUND), 'duplicate-name', 'X1');
+      const c = new Circuit().resistor('taken', 'a', GROUND, 1);
+      const error = expectRejected(() => c.capacitor('taken', 'a', GROUND, 1e-9), 'duplicate-name', 'taken');
+      expect(error.details).toEqual({ code: 'duplicate-name', name: 'taken' });
+      expectRejected(() => c.voltageSource('taken', 'a', GROUND), 'duplicate-name', 'taken');
       expectRejected(
-        () => c.bjt('X1', { collector: 'c', base: 'b', emitter: 'e' }, { polarity: 'npn' }),
+        () => c.bjt('taken', { collector: 'c', base: 'b', emitter: 'e' }, { polarity: 'npn' }),
         'duplicate-name',
-        'X1',
+        'taken',
       );
       expect(c.elements).toHaveLength(1);
     });
@@ -242,24 +250,36 @@ describe('Circuit builder', () => {
       ['capacitor', () => new Circuit().capacitor('C3', 'a', 'b', Number.NaN), 'C3.capacitance'],
       ['inductor', () => new Circuit().inductor('L3', 'a', 'b', '-1m'), 'L3.inductance'],
       ['inductor', () => new Circuit().inductor('L3', 'a', 'b', '1 F'), 'L3.inductance'],
-      ['voltage source', () => new Circuit().voltageSource('V3', 'a', 'b', { dc: '5 A' }), 'V3.dc'],
-      ['voltage source', () => new Circuit().voltageSource('V3', 'a', 'b', { dc: Number.NaN }), 'V3.dc'],
-      ['voltage source', () => new Circuit().voltageSource('V3', 'a', 'b', { ac: -1 }), 'V3.ac'],
+      ['voltage source', () => new Circuit().voltageSource('drive', 'a', 'b', { dc: '5 A' }), 'drive.dc'],
       [
         'voltage source',
-        () => new Circuit().voltageSource('V3', 'a', 'b', { ac: { magnitude: 1, phase: Number.NaN } }),
-        'V3.ac.phase',
+        () => new Circuit().voltageSource('drive', 'a', 'b', { dc: Number.NaN }),
+        'drive.dc',
+      ],
+      ['voltage source', () => new Circuit().voltageSource('drive', 'a', 'b', { ac: -1 }), 'drive.ac'],
+      [
+        'voltage source',
+        () => new Circuit().voltageSource('drive', 'a', 'b', { ac: { magnitude: 1, phase: Number.NaN } }),
+        'drive.ac.phase',
       ],
       [
         'current source',
-        () => new Circuit().currentSource('I3', 'a', 'b', { dc: Number.POSITIVE_INFINITY }),
-        'I3.dc',
+        () => new Circuit().currentSource('sink', 'a', 'b', { dc: Number.POSITIVE_INFINITY }),
+        'sink.dc',
       ],
-      ['current source', () => new Circuit().currentSource('I3', 'a', 'b', { dc: '2 V' }), 'I3.dc'],
-      ['vcvs', () => new Circuit().vcvs('E3', ['a', 'b'], ['c', 'd'], Number.NaN), 'E3.gain'],
-      ['vccs', () => new Circuit().vccs('G3', ['a', 'b'], ['c', 'd'], '2 Ω'), 'G3.transconductance'],
-      ['ccvs', () => new Circuit().ccvs('H3', ['a', 'b'], 'V1', '1 S'), 'H3.transresistance'],
-      ['cccs', () => new Circuit().cccs('F3', ['a', 'b'], 'V1', Number.NEGATIVE_INFINITY), 'F3.gain'],
+      ['current source', () => new Circuit().currentSource('sink', 'a', 'b', { dc: '2 V' }), 'sink.dc'],
+      ['vcvs', () => new Circuit().vcvs('buffer', ['a', 'b'], ['c', 'd'], Number.NaN), 'buffer.gain'],
+      [
+        'vccs',
+        () => new Circuit().vccs('transconductor', ['a', 'b'], ['c', 'd'], '2 Ω'),
+        'transconductor.transconductance',
+      ],
+      ['ccvs', () => new Circuit().ccvs('senseAmp', ['a', 'b'], 'supply', '1 S'), 'senseAmp.transresistance'],
+      [
+        'cccs',
+        () => new Circuit().cccs('mirror', ['a', 'b'], 'supply', Number.NEGATIVE_INFINITY),
+        'mirror.gain',
+      ],
     ])('rejects a bad value of a %s (%#)', (_, build, path) => {
       // ranges: Alexander & Sadiku, 5th ed., 2013, ch. 6 (C, L ≥ 0; from memory); units: SI Brochure,
       // 9th ed., 2019, Table 4 (F capacitance, H inductance, V voltage, A current, S conductance)
@@ -279,33 +299,33 @@ describe('Circuit builder', () => {
     it('rejects an unknown source setting with invalid-circuit naming it', () => {
       // docs/circuit-api.md, "Sources and their AC excitation": a source takes { dc?, ac? }
       expectRejected(
-        () => new Circuit().voltageSource('V1', 'a', GROUND, { dc: 1, amplitude: 2 } as never),
+        () => new Circuit().voltageSource('supply', 'a', GROUND, { dc: 1, amplitude: 2 } as never),
         'invalid-circuit',
-        'V1.amplitude',
+        'supply.amplitude',
       );
       expectRejected(
-        () => new Circuit().currentSource('I1', 'a', GROUND, { ac: { magnitude: 1, delay: 2 } } as never),
+        () => new Circuit().currentSource('bias', 'a', GROUND, { ac: { magnitude: 1, delay: 2 } } as never),
         'invalid-circuit',
-        'I1.ac.delay',
+        'bias.ac.delay',
       );
     });
 
     it('rejects a source setting that is not an object', () => {
       // docs/circuit-api.md, "Sources and their AC excitation": a source takes { dc?, ac? }
       expectRejected(
-        () => new Circuit().voltageSource('V1', 'a', GROUND, 5 as never),
+        () => new Circuit().voltageSource('supply', 'a', GROUND, 5 as never),
         'invalid-circuit',
-        'V1',
+        'supply',
       );
       expectRejected(
-        () => new Circuit().currentSource('I1', 'a', GROUND, null as never),
+        () => new Circuit().currentSource('bias', 'a', GROUND, null as never),
         'invalid-circuit',
-        'I1',
+        'bias',
       );
       expectRejected(
-        () => new Circuit().voltageSource('V1', 'a', GROUND, { ac: [1, 0] } as never),
+        () => new Circuit().voltageSource('supply', 'a', GROUND, { ac: [1, 0] } as never),
         'invalid-circuit',
-        'V1.ac',
+        'supply.ac',
       );
     });
   });
@@ -314,21 +334,26 @@ describe('Circuit builder', () => {
     it('rejects output and control pairs that are not two node names', () => {
       // docs/circuit-api.md, "Elements": out and control are [plus, minus] pairs
       expectRejected(
-        () => new Circuit().vcvs('E1', ['a'] as unknown as [string, string], ['b', 'c'], 1),
+        () => new Circuit().vcvs('buffer', ['a'] as unknown as [string, string], ['b', 'c'], 1),
         'invalid-circuit',
-        'E1.out',
+        'buffer.out',
       );
       expectRejected(
-        () => new Circuit().vccs('G1', ['a', 'b'], ['b', 'c', 'd'] as unknown as [string, string], 1),
+        () =>
+          new Circuit().vccs('transconductor', ['a', 'b'], ['b', 'c', 'd'] as unknown as [string, string], 1),
         'invalid-circuit',
-        'G1.control',
+        'transconductor.control',
       );
       expectRejected(
-        () => new Circuit().ccvs('H1', 'ab' as unknown as [string, string], 'V1', 1),
+        () => new Circuit().ccvs('senseAmp', 'ab' as unknown as [string, string], 'supply', 1),
         'invalid-circuit',
-        'H1.out',
+        'senseAmp.out',
       );
-      expectRejected(() => new Circuit().cccs('F1', ['a', ''], 'V1', 1), 'invalid-circuit', 'F1.out[1]');
+      expectRejected(
+        () => new Circuit().cccs('mirror', ['a', ''], 'supply', 1),
+        'invalid-circuit',
+        'mirror.out[1]',
+      );
     });
 
     it('rejects an op-amp terminal map with a missing or an unknown terminal', () => {
@@ -362,20 +387,24 @@ describe('Circuit builder', () => {
         'Q1.body',
       );
       expectRejected(
-        () => new Circuit().mosfet('M1', { drain: 'd', gate: 'g' } as never, { polarity: 'nmos' }),
+        () => new Circuit().mosfet('switch', { drain: 'd', gate: 'g' } as never, { polarity: 'nmos' }),
         'invalid-circuit',
-        'M1.source',
+        'switch.source',
       );
       expectRejected(
         () =>
-          new Circuit().mosfet('M1', { drain: 'd', gate: 'g', source: 's', body: '' }, { polarity: 'nmos' }),
+          new Circuit().mosfet(
+            'switch',
+            { drain: 'd', gate: 'g', source: 's', body: '' },
+            { polarity: 'nmos' },
+          ),
         'invalid-circuit',
-        'M1.body',
+        'switch.body',
       );
       expectRejected(
-        () => new Circuit().mosfet('M1', null as never, { polarity: 'nmos' }),
+        () => new Circuit().mosfet('switch', null as never, { polarity: 'nmos' }),
         'invalid-circuit',
-        'M1',
+        'switch',
       );
     });
   });
@@ -397,9 +426,9 @@ describe('Circuit builder', () => {
     it.each([['PMOS'], ['npn'], ['p']])('rejects %s as a MOSFET polarity', (polarity) => {
       // docs/devices.md, "MOSFET": model.polarity is 'nmos' | 'pmos'
       expectRejected(
-        () => new Circuit().mosfet('M9', { drain: 'd', gate: 'g', source: 's' }, { polarity } as never),
+        () => new Circuit().mosfet('switch', { drain: 'd', gate: 'g', source: 's' }, { polarity } as never),
         'invalid-circuit',
-        'M9.model.polarity',
+        'switch.model.polarity',
       );
     });
 
@@ -412,9 +441,9 @@ describe('Circuit builder', () => {
         'Q1.model',
       );
       expectRejected(
-        () => new Circuit().mosfet('M1', { drain: 'd', gate: 'g', source: 's' }, {} as never),
+        () => new Circuit().mosfet('switch', { drain: 'd', gate: 'g', source: 's' }, {} as never),
         'invalid-circuit',
-        'M1.model.polarity',
+        'switch.model.polarity',
       );
     });
   });
@@ -425,22 +454,22 @@ describe('Circuit builder', () => {
         'a MOSFET gain factor in farads',
         () =>
           new Circuit().mosfet(
-            'M1',
+            'switch',
             { drain: 'd', gate: 'g', source: GROUND },
             { polarity: 'nmos', gainFactor: '2 mF' },
           ),
-        'M1.model.gainFactor',
+        'switch.model.gainFactor',
         'A/V²',
       ],
       [
         'a channel-length modulation in ohms',
         () =>
           new Circuit().mosfet(
-            'M1',
+            'switch',
             { drain: 'd', gate: 'g', source: GROUND },
             { polarity: 'nmos', channelLengthModulation: '0.02 Ω' },
           ),
-        'M1.model.channelLengthModulation',
+        'switch.model.channelLengthModulation',
         '1/V',
       ],
       [
@@ -472,9 +501,9 @@ describe('Circuit builder', () => {
       // BIPM, SI Brochure, 9th ed., 2019, §5.4.7: prefixes apply to the unit one as well (common practice)
       const c = new Circuit()
         .vcvs('amplifier', ['out', GROUND], ['in', GROUND], '10k')
-        .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', gainFactor: '2m' });
+        .mosfet('switch', { drain: 'd', gate: 'g', source: GROUND }, { polarity: 'nmos', gainFactor: '2m' });
       expect(c.element('amplifier')).toMatchObject({ gain: 10000 });
-      expect(c.element('M1')).toMatchObject({ model: { gainFactor: 0.002 } });
+      expect(c.element('switch')).toMatchObject({ model: { gainFactor: 0.002 } });
     });
 
     it('carries the expected range and unit in the details of an out-of-range parameter', () => {
@@ -577,21 +606,21 @@ describe('Circuit builder', () => {
         'a negative gain factor',
         () =>
           new Circuit().mosfet(
-            'M4',
+            'switch',
             { drain: 'd', gate: 'g', source: 's' },
             { polarity: 'nmos', gainFactor: -1e-3 },
           ),
-        'M4.model.gainFactor',
+        'switch.model.gainFactor',
       ],
       [
         'a negative gate capacitance',
         () =>
           new Circuit().mosfet(
-            'M4',
+            'switch',
             { drain: 'd', gate: 'g', source: 's' },
             { polarity: 'pmos', gateSourceCapacitance: '-1p' },
           ),
-        'M4.model.gateSourceCapacitance',
+        'switch.model.gateSourceCapacitance',
       ],
       [
         'a zero open-loop gain',

@@ -20,7 +20,7 @@ import {
 /** A circuit using every kind of element, with a DC solution (each part is biased by a source). */
 function everyKind(): Circuit {
   return new Circuit()
-    .voltageSource('Vcc', 'vcc', GROUND, { dc: 5, ac: { magnitude: '10m', phase: 30 } })
+    .voltageSource('supply', 'vcc', GROUND, { dc: 5, ac: { magnitude: '10m', phase: 30 } })
     .resistor('Rb', 'vcc', 'b', '430k')
     .resistor('Rc', 'vcc', 'c', '2.2k')
     .bjt(
@@ -32,16 +32,16 @@ function everyKind(): Circuit {
     .resistor('Rout', 'out', GROUND, '10k')
     .inductor('L1', 'vcc', 'l', '1m')
     .resistor('Rl', 'l', GROUND, '1k')
-    .currentSource('I1', GROUND, 'i', { dc: '1m', ac: 0.5 })
+    .currentSource('bias', GROUND, 'i', { dc: '1m', ac: 0.5 })
     .resistor('Ri', 'i', GROUND, '1k')
-    .vcvs('E1', ['e', GROUND], ['i', GROUND], 2)
+    .vcvs('buffer', ['e', GROUND], ['i', GROUND], 2)
     .resistor('Re', 'e', GROUND, '1k')
-    .vccs('G1', [GROUND, 'g'], ['i', GROUND], '1m')
+    .vccs('transconductor', [GROUND, 'g'], ['i', GROUND], '1m')
     .resistor('Rg', 'g', GROUND, '1k')
-    .ccvs('H1', ['h', GROUND], 'Vcc', 100)
+    .ccvs('senseAmp', ['h', GROUND], 'supply', 100)
     .loopProbe('sense', 'h', 'hs')
     .resistor('Rh', 'hs', GROUND, '1k')
-    .cccs('F1', [GROUND, 'f'], 'L1', 2)
+    .cccs('mirror', [GROUND, 'f'], 'L1', 2)
     .resistor('Rf', 'f', GROUND, '1k')
     .opAmp('U1', { plus: 'i', minus: 'u1', output: 'u1' })
     .opAmp(
@@ -52,10 +52,10 @@ function everyKind(): Circuit {
     .resistor('Ru2', 'u2', GROUND, '10k')
     .diode('D1', 'vcc', 'd', { saturationCurrent: '2n', emissionCoefficient: 1.9, breakdownVoltage: 100 })
     .resistor('Rd', 'd', GROUND, '1k')
-    .mosfet('M1', { drain: 'md', gate: 'i', source: GROUND }, { polarity: 'nmos', thresholdVoltage: 0.5 })
+    .mosfet('switch', { drain: 'md', gate: 'i', source: GROUND }, { polarity: 'nmos', thresholdVoltage: 0.5 })
     .resistor('Rmd', 'vcc', 'md', '10k')
     .mosfet(
-      'M2',
+      'pullUp',
       { drain: 'pd', gate: GROUND, source: 'vcc', body: 'vcc' },
       { polarity: 'pmos', gainFactor: '2m' },
     )
@@ -85,7 +85,7 @@ function dividerDocument(): { format: unknown; version: unknown; elements: Recor
   return JSON.parse(
     JSON.stringify(
       new Circuit()
-        .voltageSource('V1', 'in', GROUND, { dc: 10 })
+        .voltageSource('supply', 'in', GROUND, { dc: 10 })
         .resistor('R1', 'in', 'out', '1k')
         .capacitor('C1', 'out', GROUND, '1n')
         .resistor('R2', 'out', GROUND, '3k')
@@ -155,11 +155,11 @@ describe('Circuit JSON documents', () => {
     it('hands out a document detached from the circuit', () => {
       // common practice, no source: editing an export does not edit the source
       const c = new Circuit()
-        .voltageSource('V1', 'a', GROUND, { dc: 1, ac: 1 })
+        .voltageSource('supply', 'a', GROUND, { dc: 1, ac: 1 })
         .resistor('R1', 'a', GROUND, 1);
       const doc = c.toJSON() as unknown as { elements: { ac: { magnitude: number } }[] };
       doc.elements[0]!.ac.magnitude = 99;
-      expect(c.element('V1')).toMatchObject({ ac: { magnitude: 1 } });
+      expect(c.element('supply')).toMatchObject({ ac: { magnitude: 1 } });
     });
   });
 
@@ -225,7 +225,7 @@ describe('Circuit JSON documents', () => {
     it('rejects an element that is not an object, and elements that are not an array', () => {
       // common practice, no source
       const doc = dividerDocument() as { elements: unknown[] };
-      doc.elements[0] = 'V1 in gnd 10';
+      doc.elements[0] = 'supply in gnd 10';
       expectRejected(doc, 'invalid-circuit', 'elements[0]');
       expectRejected({ ...dividerDocument(), elements: {} }, 'invalid-circuit', 'elements');
     });
@@ -319,7 +319,7 @@ describe('Circuit JSON documents', () => {
         elements: [
           {
             kind: 'mosfet',
-            name: 'M1',
+            name: 'switch',
             drain: 'd',
             gate: 'g',
             source: GROUND,
@@ -328,7 +328,7 @@ describe('Circuit JSON documents', () => {
           },
         ],
       };
-      expectRejected(doc, 'invalid-circuit', 'elements[0].model.polarity', 'M1');
+      expectRejected(doc, 'invalid-circuit', 'elements[0].model.polarity', 'switch');
     });
 
     it('names the path of a bad model parameter', () => {
@@ -364,7 +364,7 @@ describe('Circuit JSON documents', () => {
         '{"format":"quiescent-circuit","version":1,"elements":[{"kind":"diode","name":"D1","anode":"a","cathode":"gnd","model":{"__proto__":{"injected":1}}}]}',
         '{"format":"quiescent-circuit","version":1,"elements":[{"kind":"bjt","name":"Q1","collector":"c","base":"b","emitter":"gnd","polarity":"npn","model":{"constructor":{"prototype":{"injected":1}}}}]}',
         '{"format":"quiescent-circuit","version":1,"elements":[{"kind":"op-amp","name":"U1","plus":"a","minus":"o","output":"o","options":{"__proto__":{"injected":1}}}]}',
-        '{"format":"quiescent-circuit","version":1,"elements":[{"kind":"voltage-source","name":"V1","plus":"a","minus":"gnd","ac":{"magnitude":1,"__proto__":{"injected":1}}}]}',
+        '{"format":"quiescent-circuit","version":1,"elements":[{"kind":"voltage-source","name":"supply","plus":"a","minus":"gnd","ac":{"magnitude":1,"__proto__":{"injected":1}}}]}',
         '{"format":"quiescent-circuit","version":1,"elements":[{"kind":"resistor","name":"R1","a":"a","b":"gnd","resistance":1,"constructor":{"injected":1}}]}',
       ];
       for (const text of texts) {

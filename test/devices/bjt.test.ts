@@ -14,8 +14,8 @@ const VT = thermalVoltage(298.15);
 /** A transistor with its base-emitter and collector-emitter voltages set by ideal sources. */
 function biased(vbe: number, vce: number, model: BjtModel, options: OperatingPointOptions = {}) {
   const c = new Circuit()
-    .voltageSource('Vbe', 'b', GROUND, { dc: vbe })
-    .voltageSource('Vce', 'c', GROUND, { dc: vce })
+    .voltageSource('baseBias', 'b', GROUND, { dc: vbe })
+    .voltageSource('collectorBias', 'c', GROUND, { dc: vce })
     .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, model);
   return operatingPoint(c, options).bjt('Q1');
 }
@@ -66,8 +66,8 @@ describe('the pnp transistor', () => {
     // obeys the npn law in the mirrored voltages.
     const model = { forwardBeta: 80, earlyVoltage: 40 };
     const c = new Circuit()
-      .voltageSource('Veb', 'e', 'b', { dc: 0.66 })
-      .voltageSource('Vb', 'b', GROUND, { dc: 2 })
+      .voltageSource('emitterBias', 'e', 'b', { dc: 0.66 })
+      .voltageSource('baseBias', 'b', GROUND, { dc: 2 })
       .bjt('Q1', { collector: GROUND, base: 'b', emitter: 'e' }, { polarity: 'pnp', ...model });
     const p = operatingPoint(c).bjt('Q1');
     const n = biased(0.66, 2.66, { polarity: 'npn', ...model });
@@ -80,8 +80,8 @@ describe('the pnp transistor', () => {
     for (const key of ['ic', 'ib', 'ie', 'gm', 'rpi', 'ro'] as const) {
       expectRelativelyClose(p[key], n[key], 1e-9, key);
     }
-    // The emitter current flows in: the source Veb delivers ie (passive sign: −ie through it).
-    expectRelativelyClose(operatingPoint(c).current('Veb'), -p.ie, 1e-12, 'emitter current');
+    // The emitter current flows in: the source emitterBias delivers ie (passive sign: −ie through it).
+    expectRelativelyClose(operatingPoint(c).current('emitterBias'), -p.ie, 1e-12, 'emitter current');
   });
 });
 
@@ -119,7 +119,7 @@ describe('the Widlar current source', () => {
     const model: BjtModel = { polarity: 'npn', forwardBeta: 1e6 };
     const re = 5e3;
     const c = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 10 })
+      .voltageSource('supply', 'vcc', GROUND, { dc: 10 })
       .resistor('Rref', 'vcc', 'b', '9.3k')
       .bjt('Q1', { collector: 'b', base: 'b', emitter: GROUND }, model)
       .bjt('Q2', { collector: 'vcc', base: 'b', emitter: 'e' }, model)
@@ -142,8 +142,8 @@ describe('the bipolar transistor with temperature', () => {
   it('gives g_m = I_C/Vt at the analysis temperature', () => {
     // Hybrid-π model (Sedra & Smith, from memory) with Vt = k·T/q.
     const c = new Circuit()
-      .currentSource('Ib', GROUND, 'b', { dc: 1e-5 })
-      .voltageSource('Vce', 'c', GROUND, { dc: 3 })
+      .currentSource('baseDrive', GROUND, 'b', { dc: 1e-5 })
+      .voltageSource('collectorBias', 'c', GROUND, { dc: 3 })
       .bjt('Q1', { collector: 'c', base: 'b', emitter: GROUND }, { polarity: 'npn' });
     const q = operatingPoint(c, { temperature: 350 }).bjt('Q1');
     expectRelativelyClose(q.gm, q.ic / thermalVoltage(350), 1e-7, 'g_m at 350 K');

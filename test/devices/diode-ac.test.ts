@@ -6,7 +6,7 @@ describe("a diode's small-signal current", () => {
   // practice, no source); with and without the diode's own series resistance and capacitance.
   it.each([0, 12])('equals the current of the resistor in series with it (series resistance %d Ω)', (rs) => {
     const circuit = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { dc: 5, ac: 1 })
+      .voltageSource('input', 'in', GROUND, { dc: 5, ac: 1 })
       .resistor('Rfeed', 'in', 'anode', '1k')
       .diode('D1', 'anode', GROUND, { seriesResistance: rs, junctionCapacitance: '10n', transitTime: '5n' });
     const ac = acAnalysis(operatingPoint(circuit), { frequencies: [0, 1e3, 1e6] });
@@ -21,7 +21,7 @@ describe("a diode's small-signal current", () => {
   // Sedra & Smith, Microelectronic Circuits, ch. 4, from memory): i = v_j / r_d.
   it('is the junction voltage over r_d at 0 Hz', () => {
     const circuit = new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { dc: 2, ac: 1 })
+      .voltageSource('input', 'in', GROUND, { dc: 2, ac: 1 })
       .resistor('Rfeed', 'in', 'anode', '2.2k')
       .diode('D1', 'anode', GROUND);
     const op = operatingPoint(circuit);

@@ -9,14 +9,14 @@ const saturationCurrent = 1e-14;
 /** A supply V into a resistor R into the anode of diode D1, cathode to ground. */
 function seriesLoop(supply: number, resistance: number, model: object = {}): Circuit {
   return new Circuit()
-    .voltageSource('V1', 'in', GROUND, { dc: supply })
+    .voltageSource('supply', 'in', GROUND, { dc: supply })
     .resistor('R1', 'in', 'a', resistance)
     .diode('D1', 'a', GROUND, { saturationCurrent, ...model });
 }
 
 /** The diode driven by a DC current source, anode to cathode. */
 function currentDriven(current: number, model: object = {}): Circuit {
-  return new Circuit().currentSource('I1', GROUND, 'a', { dc: current }).diode('D1', 'a', GROUND, model);
+  return new Circuit().currentSource('bias', GROUND, 'a', { dc: current }).diode('D1', 'a', GROUND, model);
 }
 
 describe('a diode in series with a resistor', () => {
@@ -108,7 +108,7 @@ describe('the diode small-signal and capacitance report', () => {
     const model = { junctionCapacitance: 2e-12, junctionPotential: 0.8, gradingCoefficient: 0.4 };
     for (const v of [-10, -1, 0]) {
       const op = operatingPoint(
-        new Circuit().voltageSource('V1', 'a', GROUND, { dc: v }).diode('D1', 'a', GROUND, model),
+        new Circuit().voltageSource('supply', 'a', GROUND, { dc: v }).diode('D1', 'a', GROUND, model),
       );
       expectRelativelyClose(op.diode('D1').capacitance, 2e-12 / (1 - v / 0.8) ** 0.4, 1e-12, `C at ${v} V`);
     }
@@ -120,7 +120,7 @@ describe('the diode small-signal and capacitance report', () => {
     const model = { junctionCapacitance: 2e-12, junctionPotential: 0.8, gradingCoefficient: 0.5 };
     const at = (v: number) =>
       operatingPoint(
-        new Circuit().voltageSource('V1', 'a', GROUND, { dc: v }).diode('D1', 'a', GROUND, model),
+        new Circuit().voltageSource('supply', 'a', GROUND, { dc: v }).diode('D1', 'a', GROUND, model),
       ).diode('D1').capacitance;
     const knee = 0.4;
     const law = (v: number) => 2e-12 / (1 - v / 0.8) ** 0.5;

@@ -28,7 +28,7 @@ describe('the thermal voltage k·T/q', () => {
   it('is what an operating point reports at its temperature', () => {
     // docs/devices.md, introduction, and docs/analyses.md, "Results": op.thermalVoltage = k·T/q at
     // the analysis temperature.
-    const c = new Circuit().voltageSource('V1', 'a', GROUND, { dc: 1 }).resistor('R1', 'a', GROUND, 1);
+    const c = new Circuit().voltageSource('supply', 'a', GROUND, { dc: 1 }).resistor('R1', 'a', GROUND, 1);
     expect(operatingPoint(c, { temperature: 350 }).thermalVoltage).toBe(
       (BOLTZMANN * 350) / ELEMENTARY_CHARGE,
     );

@@ -23,7 +23,7 @@ function biased(vgs: number, vds: number, vbs: number, model: MosfetModel = MODE
     .voltageSource('gateDrive', 'g', GROUND, { dc: polarity * vgs })
     .voltageSource('drainDrive', 'd', GROUND, { dc: polarity * vds })
     .voltageSource('bodyDrive', 'b', GROUND, { dc: polarity * vbs })
-    .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND, body: 'b' }, model);
+    .mosfet('underTest', { drain: 'd', gate: 'g', source: GROUND, body: 'b' }, model);
 }
 
 describe('the charge-based MOSFET channel', () => {
@@ -32,7 +32,7 @@ describe('the charge-based MOSFET channel', () => {
     // Integrated Circuits and Signal Processing 8, 1995, at 50 digits with mpmath.
     for (const c of reference.cases) {
       const what = `vgs ${c.vgs}, vds ${c.vds}, vbs ${c.vbs}`;
-      const m = operatingPoint(biased(c.vgs, c.vds, c.vbs), BARE).mosfet('M1');
+      const m = operatingPoint(biased(c.vgs, c.vds, c.vbs), BARE).mosfet('underTest');
       expectRelativelyClose(m.id, c.id, 1e-10, `id at ${what}`);
       expectRelativelyClose(m.gm, c.gm, 1e-9, `gm at ${what}`);
       expectRelativelyClose(m.gds, c.gds, 1e-8, `gds at ${what}`);
@@ -51,7 +51,7 @@ describe('the charge-based MOSFET channel', () => {
     // Source: test/reference/mosfet-charge.py, mpmath.diff of the published current at 50 digits.
     for (const c of reference.cases) {
       const op = operatingPoint(biased(c.vgs, c.vds, c.vbs), BARE);
-      const [channel] = op.system.deviceByName.get('M1')!.nonlinearCurrents!(op.x);
+      const [channel] = op.system.deviceByName.get('underTest')!.nonlinearCurrents!(op.x);
       const what = `vgs ${c.vgs}, vds ${c.vds}, vbs ${c.vbs}`;
       // Controls (vgs, vds, vbs); second is 3×3, third 3×3×3, row-major.
       expectRelativelyClose(channel!.second[0]!, c.d2Dvgs2, 1e-8, `∂²id/∂vgs² at ${what}`);
@@ -66,7 +66,7 @@ describe('the charge-based MOSFET channel', () => {
     // Enz, Krummenacher and Vittoz 1995: the exponential weak-inversion limit.
     const limit = 1 / (reference.slopeFactor * reference.thermalVoltage);
     const errors = [0.2, 0.05, -0.1, -0.25].map((vgs) => {
-      const m = operatingPoint(biased(vgs, 1, 0), BARE).mosfet('M1');
+      const m = operatingPoint(biased(vgs, 1, 0), BARE).mosfet('underTest');
       expect(m.inversion).toBe('weak');
       return Math.abs(m.gmOverId! / limit - 1);
     });
@@ -79,7 +79,7 @@ describe('the charge-based MOSFET channel', () => {
     // Enz, Krummenacher and Vittoz 1995: the strong-inversion limit (λ = 0 here).
     const model = { ...MODEL, channelLengthModulation: 0 };
     for (const overdrive of [1.5, 2.5]) {
-      const m = operatingPoint(biased(0.45 + overdrive, 5, 0, model), BARE).mosfet('M1');
+      const m = operatingPoint(biased(0.45 + overdrive, 5, 0, model), BARE).mosfet('underTest');
       const square = (reference.gainFactor / (2 * reference.slopeFactor)) * overdrive ** 2;
       expectRelativelyClose(m.id, square, 0.05 / overdrive, `id at V_ov = ${overdrive}`);
     }
@@ -88,7 +88,7 @@ describe('the charge-based MOSFET channel', () => {
   it('mirrors a pmos: the same currents in vsg, vsd, vsb, flowing out of the drain', () => {
     const c = reference.cases[4]!;
     const pmos = { ...MODEL, polarity: 'pmos' as const, thresholdVoltage: -reference.thresholdVoltage };
-    const m = operatingPoint(biased(c.vgs, c.vds, c.vbs, pmos, -1), BARE).mosfet('M1');
+    const m = operatingPoint(biased(c.vgs, c.vds, c.vbs, pmos, -1), BARE).mosfet('underTest');
     expectRelativelyClose(m.id, c.id, 1e-10, 'pmos id');
     expectRelativelyClose(m.gm, c.gm, 1e-9, 'pmos gm');
     expect(m.vgs).toBe(-c.vgs);
@@ -102,7 +102,9 @@ describe('the charge-based MOSFET channel', () => {
       .voltageSource('tone', 'in', GROUND, { ac: 1e-3 })
       .capacitor('couple', 'in', 'g', '1');
     const op = operatingPoint(circuit, BARE);
-    const entry = linearity(acAnalysis(op, { frequencies: [1e3] })).junctions.find((j) => j.device === 'M1')!;
+    const entry = linearity(acAnalysis(op, { frequencies: [1e3] })).junctions.find(
+      (j) => j.device === 'underTest',
+    )!;
     const scale = c.id / c.gm;
     expectRelativelyClose(entry.scale, scale, 1e-9, 'scale id/gm');
     const x = entry.amplitude / scale;
@@ -129,7 +131,7 @@ describe('MOSFET temperature laws and channel conductance', () => {
     const m = operatingPoint(biased(1.5, 3, 0, model), {
       temperature: 350,
       junctionConductance: 1e-30,
-    }).mosfet('M1');
+    }).mosfet('underTest');
     const vth = 0.6 - 2e-3 * 50;
     const beta = 1e-3 * (350 / 300) ** -1.5;
     expectRelativelyClose(m.thresholdVoltage, vth, 1e-12, 'Vth at 350 K');
@@ -138,14 +140,14 @@ describe('MOSFET temperature laws and channel conductance', () => {
 
   it('leave the square law unchanged at any temperature with the defaults', () => {
     const at = (temperature: number) =>
-      operatingPoint(biased(1.5, 3, 0, { polarity: 'nmos' }), { temperature }).mosfet('M1').gm;
+      operatingPoint(biased(1.5, 3, 0, { polarity: 'nmos' }), { temperature }).mosfet('underTest').gm;
     expect(at(250)).toBe(at(400));
   });
 
   it('carry the small channel conductance of a cut-off channel in id', () => {
     // docs/devices.md: a cut-off channel conducts junctionConductance·vds (about 1 pA per volt).
     const m = operatingPoint(biased(0, 5, 0, { polarity: 'nmos' }), { junctionConductance: 1e-12 }).mosfet(
-      'M1',
+      'underTest',
     );
     expect(m.region).toBe('cutoff');
     expectRelativelyClose(m.id, 5e-12, 1e-12, 'cut-off drain current');
@@ -162,8 +164,8 @@ describe('the charge-based channel at any bias (properties)', () => {
         fc.double({ min: 0, max: 3, noNaN: true }).map(noSubnormal),
         fc.double({ min: -1, max: 0, noNaN: true }).map(noSubnormal),
         (vgs, vds, vbs) => {
-          const forward = operatingPoint(biased(vgs, vds, vbs), BARE).mosfet('M1');
-          const swapped = operatingPoint(biased(vgs - vds, -vds, vbs - vds), BARE).mosfet('M1');
+          const forward = operatingPoint(biased(vgs, vds, vbs), BARE).mosfet('underTest');
+          const swapped = operatingPoint(biased(vgs - vds, -vds, vbs - vds), BARE).mosfet('underTest');
           const scale = Math.abs(forward.id) + 1e-30;
           return (
             forward.id >= 0 &&

@@ -7,12 +7,12 @@ const BETA = 2e-3;
 /** A MOSFET with gate, drain and body voltages (to the grounded source) set by ideal sources. */
 function biased(vgs: number, vds: number, model: MosfetModel, vbs = 0) {
   const c = new Circuit()
-    .voltageSource('Vg', 'g', GROUND, { dc: vgs })
-    .voltageSource('Vd', 'd', GROUND, { dc: vds })
-    .voltageSource('Vb', 'bulk', GROUND, { dc: vbs })
-    .mosfet('M1', { drain: 'd', gate: 'g', source: GROUND, body: 'bulk' }, model);
+    .voltageSource('gateBias', 'g', GROUND, { dc: vgs })
+    .voltageSource('drainBias', 'd', GROUND, { dc: vds })
+    .voltageSource('bodyBias', 'bulk', GROUND, { dc: vbs })
+    .mosfet('underTest', { drain: 'd', gate: 'g', source: GROUND, body: 'bulk' }, model);
   const op = operatingPoint(c);
-  return { report: op.mosfet('M1'), drainSource: op.current('Vd') };
+  return { report: op.mosfet('underTest'), drainSource: op.current('drainBias') };
 }
 
 describe('the MOSFET square law', () => {

@@ -50,7 +50,7 @@ describe('examples/voltage-controlled-attenuator', () => {
     for (const setting of attenuationCurve(4)) {
       const document = batDetectorAttenuator().toJSON();
       const elements = document.elements.map((e) =>
-        e.name === 'Vcontrol' ? { ...e, dc: setting.control } : e,
+        e.name === 'control' ? { ...e, dc: setting.control } : e,
       );
       const circuit = Circuit.fromJSON({ ...document, elements } as typeof document);
       const check = quasiStaticHarmonics(circuit, { output: 'shunt' });

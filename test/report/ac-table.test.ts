@@ -9,7 +9,7 @@ const fc = 1 / (2 * Math.PI * 10e3 * 10e-9);
 const ac = acAnalysis(
   operatingPoint(
     new Circuit()
-      .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+      .voltageSource('input', 'in', GROUND, { ac: 1 })
       .resistor('R', 'in', 'out', '10k')
       .capacitor('C', 'out', GROUND, '10n'),
   ),

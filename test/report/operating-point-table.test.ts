@@ -11,7 +11,7 @@ import {
 /** 10 V across 1 kΩ and 4 kΩ in series: 8 V at the tap and 2 mA (Ohm's law; common practice, no source). */
 function divider(): Circuit {
   return new Circuit()
-    .voltageSource('Vin', 'in', GROUND, { dc: 10 })
+    .voltageSource('input', 'in', GROUND, { dc: 10 })
     .resistor('Rtop', 'in', 'tap', '1k')
     .resistor('Rbottom', 'tap', GROUND, '4k');
 }
@@ -40,15 +40,20 @@ describe('formatOperatingPoint', () => {
     const tables = operatingPointTables(operatingPoint(divider()));
     expect(rowOf(tables, 'Element currents', 'Rtop')).toEqual(['Rtop', 'resistor', 'in → tap', '2 mA']);
     // The source delivers power, so by the passive sign convention its current is negative.
-    expect(rowOf(tables, 'Element currents', 'Vin')).toEqual(['Vin', 'voltage-source', 'in → gnd', '-2 mA']);
+    expect(rowOf(tables, 'Element currents', 'input')).toEqual([
+      'input',
+      'voltage-source',
+      'in → gnd',
+      '-2 mA',
+    ]);
   });
 
   it('gives a bipolar transistor its region and small-signal parameters', () => {
     // Base held at 0.7 V, collector at 5 V: forward-active, and gm = ic/Vt
     // (Sedra & Smith, Microelectronic Circuits, 7th ed., 2015, eq. 7.14).
     const circuit = new Circuit()
-      .voltageSource('Vcc', 'vcc', GROUND, { dc: 5 })
-      .voltageSource('Vb', 'base', GROUND, { dc: 0.7 })
+      .voltageSource('supply', 'vcc', GROUND, { dc: 5 })
+      .voltageSource('baseBias', 'base', GROUND, { dc: 0.7 })
       .resistor('Rc', 'vcc', 'collector', '1k')
       .bjt('Q1', { collector: 'collector', base: 'base', emitter: GROUND }, { polarity: 'npn' });
     const op = operatingPoint(circuit);
@@ -66,12 +71,20 @@ describe('formatOperatingPoint', () => {
     // vgs = 2 V, Vth0 = 0.7 V by default: overdrive 1.3 V and id = ½·β·Vov² = 845 µA with β = 1 mA/V²
     // (Shichman & Hodges, IEEE J. Solid-State Circuits 3(3), 1968, square law).
     const circuit = new Circuit()
-      .voltageSource('Vdd', 'vdd', GROUND, { dc: 5 })
-      .voltageSource('Vg', 'gate', GROUND, { dc: 2 })
+      .voltageSource('supply', 'vdd', GROUND, { dc: 5 })
+      .voltageSource('gateBias', 'gate', GROUND, { dc: 2 })
       .resistor('Rd', 'vdd', 'drain', '1k')
-      .mosfet('M1', { drain: 'drain', gate: 'gate', source: GROUND }, { polarity: 'nmos' });
-    const row = rowOf(operatingPointTables(operatingPoint(circuit)), 'MOSFETs', 'M1');
-    expect(row.slice(0, 7)).toEqual(['M1', 'saturation', '2 V', '4.155 V', '845 µA', '700 mV', '1.3 V']);
+      .mosfet('amplifier', { drain: 'drain', gate: 'gate', source: GROUND }, { polarity: 'nmos' });
+    const row = rowOf(operatingPointTables(operatingPoint(circuit)), 'MOSFETs', 'amplifier');
+    expect(row.slice(0, 7)).toEqual([
+      'amplifier',
+      'saturation',
+      '2 V',
+      '4.155 V',
+      '845 µA',
+      '700 mV',
+      '1.3 V',
+    ]);
   });
 
   it('prints a heading, then each table separated by a blank line', () => {

@@ -159,7 +159,7 @@ describe('bodePlotSvg', () => {
     const ac = acAnalysis(
       operatingPoint(
         new Circuit()
-          .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+          .voltageSource('input', 'in', GROUND, { ac: 1 })
           .resistor('R', 'in', 'out', '1k')
           .capacitor('C', 'out', GROUND, '100n'),
       ),

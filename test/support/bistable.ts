@@ -12,7 +12,7 @@ import { type BjtModel, Circuit, GROUND } from '../../src/index.js';
  */
 export function crossCoupledBistable(model: BjtModel): Circuit {
   return new Circuit()
-    .voltageSource('Vcc', 'vcc', GROUND, { dc: 5 })
+    .voltageSource('supply', 'vcc', GROUND, { dc: 5 })
     .resistor('Rc1', 'vcc', 'c1', '1k')
     .resistor('Rc2', 'vcc', 'c2', '1k')
     .resistor('Rx1', 'c1', 'b2', '10k')

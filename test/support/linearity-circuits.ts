@@ -58,7 +58,7 @@ export function commonSourceStage(amplitude: number): Circuit {
     .voltageSource('gate', 'g', GROUND, { dc: 1.7, ac: amplitude })
     .resistor('Rdrain', 'vdd', 'd', '5k')
     .mosfet(
-      'M1',
+      'amplifier',
       { drain: 'd', gate: 'g', source: GROUND },
       { polarity: 'nmos', channelLengthModulation: 0.05 },
     );

@@ -6,7 +6,7 @@ import { failure } from './assertion-failure.js';
 // 10 V across 1 kΩ and 4 kΩ: 8 V at the tap, 2 mA through both (Ohm's law; common practice, no source).
 const divider = operatingPoint(
   new Circuit()
-    .voltageSource('Vin', 'in', GROUND, { dc: 10 })
+    .voltageSource('input', 'in', GROUND, { dc: 10 })
     .resistor('Rtop', 'in', 'tap', '1k')
     .resistor('Rbottom', 'tap', GROUND, '4k'),
 );
@@ -69,8 +69,10 @@ describe('assertElementCurrent', () => {
   it('passes and fails by the sign conventions of docs/circuit-api.md', () => {
     assertElementCurrent(divider, 'Rtop', '2 mA', { relative: 1e-9 });
     // The source delivers power, so its current is −2 mA.
-    const error = failure(() => assertElementCurrent(divider, 'Vin', '2 mA', { relative: 0.05 }));
-    expect(error.message).toBe('current in Vin: expected 2 mA ± 100 µA (±5 %), actual -2 mA (off by -4 mA)');
+    const error = failure(() => assertElementCurrent(divider, 'input', '2 mA', { relative: 0.05 }));
+    expect(error.message).toBe(
+      'current in input: expected 2 mA ± 100 µA (±5 %), actual -2 mA (off by -4 mA)',
+    );
   });
 });
 
@@ -81,8 +83,8 @@ describe('assertDeviceRegion', () => {
   const stage = (collectorResistance: string) =>
     operatingPoint(
       new Circuit()
-        .voltageSource('Vcc', 'vcc', GROUND, { dc: 5 })
-        .voltageSource('Vb', 'base', GROUND, { dc: 0.7 })
+        .voltageSource('supply', 'vcc', GROUND, { dc: 5 })
+        .voltageSource('baseBias', 'base', GROUND, { dc: 0.7 })
         .resistor('Rc', 'vcc', 'collector', collectorResistance)
         .bjt('Q1', { collector: 'collector', base: 'base', emitter: GROUND }, { polarity: 'npn' }),
     );

@@ -14,10 +14,10 @@ expect.extend(quiescentMatchers);
 // Circuits 3(3), 1968, square law).
 const op = operatingPoint(
   new Circuit()
-    .voltageSource('Vdd', 'vdd', GROUND, { dc: 5 })
-    .voltageSource('Vg', 'gate', GROUND, { dc: 2 })
+    .voltageSource('supply', 'vdd', GROUND, { dc: 5 })
+    .voltageSource('gateBias', 'gate', GROUND, { dc: 2 })
     .resistor('Rd', 'vdd', 'drain', '2k')
-    .mosfet('M1', { drain: 'drain', gate: 'gate', source: GROUND }, { polarity: 'nmos' }),
+    .mosfet('amplifier', { drain: 'drain', gate: 'gate', source: GROUND }, { polarity: 'nmos' }),
 );
 
 /** The message of a failing expectation. */
@@ -34,8 +34,8 @@ describe('quiescentMatchers', () => {
   it('check node voltages, element currents and regions', () => {
     expect(op).toHaveNodeVoltage('drain', '3.31 V', { absolute: '1 mV' });
     expect(op).toHaveElementCurrent('Rd', '845 µA', { relative: 1e-6 });
-    expect(op).toHaveDeviceRegion('M1', 'saturation');
-    expect(op).not.toHaveDeviceRegion('M1', 'triode');
+    expect(op).toHaveDeviceRegion('amplifier', 'saturation');
+    expect(op).not.toHaveDeviceRegion('amplifier', 'triode');
   });
 
   it('fail with the node, expected value, tolerance and actual value', () => {
@@ -51,8 +51,8 @@ describe('quiescentMatchers', () => {
   });
 
   it('name the region and the bias of a MOSFET in the wrong region', () => {
-    expect(messageOf(() => expect(op).toHaveDeviceRegion('M1', 'triode'))).toBe(
-      'region of M1: expected triode, actual saturation (vgs 2 V, vds 3.31 V, Vth 700 mV)',
+    expect(messageOf(() => expect(op).toHaveDeviceRegion('amplifier', 'triode'))).toBe(
+      'region of amplifier: expected triode, actual saturation (vgs 2 V, vds 3.31 V, Vth 700 mV)',
     );
   });
 

@@ -23,7 +23,7 @@ expect.extend(quiescentMatchers);
 // −atan(10) = −84.2894° (Horowitz & Hill, The Art of Electronics, 3rd ed., 2015, §1.7; from memory).
 const fc = 1 / (2 * Math.PI * 10e3 * 10e-9);
 const lowPass = new Circuit()
-  .voltageSource('Vin', 'in', GROUND, { ac: 1 })
+  .voltageSource('input', 'in', GROUND, { ac: 1 })
   .resistor('R', 'in', 'out', '10k')
   .capacitor('C', 'out', GROUND, '10n');
 const ac = acAnalysis(operatingPoint(lowPass), { frequencies: [fc, 10 * fc] });
@@ -77,8 +77,8 @@ describe('assertJunctionWithinBudget', () => {
       acAnalysis(
         operatingPoint(
           new Circuit()
-            .currentSource('Ibias', GROUND, 'anode', { dc: '1 mA' })
-            .voltageSource('Vsignal', 'drive', GROUND, { ac: drive })
+            .currentSource('bias', GROUND, 'anode', { dc: '1 mA' })
+            .voltageSource('signal', 'drive', GROUND, { ac: drive })
             .capacitor('Ccouple', 'drive', 'feed', '10µ')
             .resistor('Rsignal', 'feed', 'anode', '10k')
             .diode('D1', 'anode', GROUND),
