@@ -124,7 +124,12 @@ describe('AcAnalysis.unityGainFrequency', () => {
     // Far above the pole the gain falls as a straight line in dB against log f, so interpolation is exact
     // to rounding there.
     expectRelativelyClose(ac.unityGainFrequency('out', 'in')!, expected, 1e-9, 'unity-gain frequency');
-    expectRelativelyClose(ac.unityGainFrequency('out')!, expected, 1e-9, 'unity-gain frequency of v(out)');
+    expectRelativelyClose(
+      ac.unityGainFrequency('out')!,
+      expected,
+      1e-9,
+      'unity-gain frequency of voltage at out',
+    );
     // A sweep that stops below it has no crossing.
     expect(acAnalysis(op, { frequencies: logSweep(1, 1e6, 10) }).unityGainFrequency('out', 'in')).toBeNull();
   });

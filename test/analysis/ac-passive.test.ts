@@ -64,11 +64,11 @@ describe('acAnalysis on first-order RC filters', () => {
       .capacitor('C1', 'out', GROUND, C);
     const ac = acAnalysis(operatingPoint(c), { frequencies: [fc0] });
     const vin = ac.voltage('in')[0]!;
-    expectRelativelyClose(vin.abs(), 2.5, 1e-14, '|v(in)|');
-    expectRelativelyClose(vin.arg() * DEG, 30, 1e-13, 'arg v(in)');
+    expectRelativelyClose(vin.abs(), 2.5, 1e-14, '|voltage at in|');
+    expectRelativelyClose(vin.arg() * DEG, 30, 1e-13, 'arg voltage at in');
     const vout = ac.voltage('out')[0]!;
-    expectRelativelyClose(vout.abs(), 2.5 / Math.SQRT2, 1e-13, '|v(out)| at f_c');
-    expectRelativelyClose(vout.arg() * DEG, -15, 1e-12, 'arg v(out) at f_c');
+    expectRelativelyClose(vout.abs(), 2.5 / Math.SQRT2, 1e-13, '|voltage at out| at f_c');
+    expectRelativelyClose(vout.arg() * DEG, -15, 1e-12, 'arg voltage at out at f_c');
   });
 
   it('finds the −3 dB frequency of the low-pass by interpolation', () => {
@@ -113,7 +113,7 @@ describe('acAnalysis on RLC resonance', () => {
     expectRelativelyClose(atF0.gain('out', 'in')[0]!.abs(), 1, 1e-12, '|H(f0)|');
     expect(Math.abs(atF0.phaseDegrees('out', 'in')[0]!)).toBeLessThan(1e-9);
     // The loop current is v/R at f0 and flows through every element alike.
-    expectRelativelyClose(atF0.current('L1')[0]!.abs(), 1 / R, 1e-12, '|i(L1)| at f0');
+    expectRelativelyClose(atF0.current('L1')[0]!.abs(), 1 / R, 1e-12, '|current in L1| at f0');
     const cutoffs = ac.cutoffFrequencies('out', 'in');
     const [low, high] = halfPower(q);
     expect(cutoffs).toHaveLength(2);
@@ -139,7 +139,7 @@ describe('acAnalysis on RLC resonance', () => {
     // At f0 the inductor and capacitor carry equal and opposite currents Q times the source current.
     const iL = atF0.current('L1')[0]!;
     const iC = atF0.current('C1')[0]!;
-    expectRelativelyClose(iL.abs(), q, 1e-10, '|i(L1)| = Q·I at f0');
+    expectRelativelyClose(iL.abs(), q, 1e-10, '|current in L1| = Q·I at f0');
     expect(iL.add(iC).abs()).toBeLessThan(1e-9 * q);
     const ac = acAnalysis(op, { frequencies: logSweep(f0 / 2, f0 * 2, 20000) });
     const cutoffs = ac.cutoffFrequencies('top');
@@ -167,8 +167,8 @@ describe('acAnalysis element currents', () => {
     const b = omega * C - 1 / (omega * L);
     const d = G * G + b * b;
     const v = ac.voltage('top')[0]!;
-    expectRelativelyClose(v.re, (2e-3 * G) / d, 1e-12, 'Re v(top)');
-    expectRelativelyClose(v.im, (-2e-3 * b) / d, 1e-12, 'Im v(top)');
+    expectRelativelyClose(v.re, (2e-3 * G) / d, 1e-12, 'Re voltage at top');
+    expectRelativelyClose(v.im, (-2e-3 * b) / d, 1e-12, 'Im voltage at top');
     const iC = ac.current('C1')[0]!;
     const iL = ac.current('L1')[0]!;
     const iR = ac.current('R1')[0]!;
@@ -189,7 +189,7 @@ describe('acAnalysis element currents', () => {
       .resistor('R2', 'b', GROUND, 300)
       .capacitor('C1', 'b', GROUND, 1e-6);
     const ac = acAnalysis(operatingPoint(c), { frequencies: [0] });
-    expectRelativelyClose(ac.voltage('b')[0]!.re, 0.75, 1e-14, 'v(b) at 0 Hz: 300/(100 + 300)');
+    expectRelativelyClose(ac.voltage('b')[0]!.re, 0.75, 1e-14, 'voltage at b at 0 Hz: 300/(100 + 300)');
     expect(ac.voltage('a', 'b')[0]!.abs()).toBe(0);
     expect(ac.current('C1')[0]!.abs()).toBe(0);
   });

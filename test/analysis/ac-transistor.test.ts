@@ -30,7 +30,7 @@ describe('acAnalysis on a common-emitter stage', () => {
     const q = op.bjt('Q1');
     expect(q.region).toBe('forward-active');
     const gain = acAnalysis(op, { frequencies: [1e3] }).gain('c', 'b')[0]!;
-    expectRelativelyClose(gain.re, -q.gm * parallel(RC, q.ro), 1e-7, 'v(c)/v(b)');
+    expectRelativelyClose(gain.re, -q.gm * parallel(RC, q.ro), 1e-7, 'voltage at c/voltage at b');
     expect(Math.abs(gain.im)).toBe(0);
     // r_o is finite and matters here: (V_A + vce)/ic within a percent.
     expectRelativelyClose(q.ro, (80 + q.vce) / q.ic, 1e-2, 'r_o');
@@ -68,7 +68,7 @@ describe('acAnalysis on a common-emitter stage', () => {
     const rin = parallel(RB, q.rpi);
     const expected = (-rin / (RSIG + rin)) * q.gm * parallel(RC, q.ro, RL);
     const gain = acAnalysis(op, { frequencies: [10e3] }).gain('out', 'sig')[0]!;
-    expectRelativelyClose(gain.re, expected, 1e-6, 'v(out)/v(sig) at 10 kHz');
+    expectRelativelyClose(gain.re, expected, 1e-6, 'voltage at out/voltage at sig at 10 kHz');
     expect(Math.abs(gain.im)).toBeLessThan(1e-6 * Math.abs(expected));
   });
 
@@ -145,7 +145,8 @@ describe('acAnalysis on a common-source MOSFET stage', () => {
     expectRelativelyClose(m.gm, 1e-3 * 0.8 * (1 + 0.02 * m.vds), 1e-9, 'gm');
     expectRelativelyClose(m.gds, 0.5 * 1e-3 * 0.64 * 0.02, 1e-6, 'gds');
     const gain = acAnalysis(op, { frequencies: [0, 1e4] }).gain('d', 'g');
-    for (const g of gain) expectRelativelyClose(g.re, -m.gm * parallel(RD, 1 / m.gds), 1e-8, 'v(d)/v(g)');
+    for (const g of gain)
+      expectRelativelyClose(g.re, -m.gm * parallel(RD, 1 / m.gds), 1e-8, 'voltage at d/voltage at g');
   });
 
   it('adds the Miller feed-forward of C_gd: H = −(g_m − jωC_gd)/(G_D + g_ds + jωC_gd)', () => {
@@ -191,7 +192,7 @@ describe('acAnalysis on a diode attenuator', () => {
     // r_d ≈ n·Vt/I_D (Shockley, 1949).
     expectRelativelyClose(rd, op.thermalVoltage / op.diode('D1').current, 1e-6, 'r_d');
     const gain = acAnalysis(op, { frequencies: [0, 1e6] }).gain('a', 'in');
-    for (const g of gain) expectRelativelyClose(g.re, rd / (R + rd), 1e-12, 'v(a)/v(in)');
+    for (const g of gain) expectRelativelyClose(g.re, rd / (R + rd), 1e-12, 'voltage at a/voltage at in');
   });
 
   it('adds the series resistance and the junction capacitance: Z_D = R_S + 1/(g + jωC)', () => {

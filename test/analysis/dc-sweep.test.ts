@@ -36,7 +36,7 @@ describe('dcSweep over a source value', () => {
     const i = sweep.current('R1');
     values.forEach((v, k) => {
       const ref = lambert(v, 1000);
-      expectRelativelyClose(va[k]!, ref.junctionVoltage, 1e-10, `v(a) at ${v} V`);
+      expectRelativelyClose(va[k]!, ref.junctionVoltage, 1e-10, `voltage at a at ${v} V`);
       expectRelativelyClose(i[k]!, ref.current, 1e-10, `current at ${v} V`);
       // The supply delivers the loop current (passive sign convention: negative through it).
       expectRelativelyClose(sweep.current('supply')[k]!, -ref.current, 1e-10, `supply current at ${v} V`);
@@ -89,7 +89,7 @@ describe('dcSweep over an element parameter', () => {
     expect(sweep.swept).toEqual({ kind: 'parameter', element: 'R1', parameter: 'resistance' });
     const va = sweep.voltage('a');
     values.forEach((r, k) => {
-      expectRelativelyClose(va[k]!, lambert(5, r).junctionVoltage, 1e-10, `v(a) at R = ${r}`);
+      expectRelativelyClose(va[k]!, lambert(5, r).junctionVoltage, 1e-10, `voltage at a at R = ${r}`);
     });
   });
 
@@ -125,7 +125,12 @@ describe('dcSweep over temperature', () => {
       expect(p.thermalVoltage).toBe(thermalVoltage(values[k]!));
     });
     // At the reference temperature I_S is unchanged, so Banwell & Jayakumar (2000) applies as is.
-    expectRelativelyClose(sweep.voltage('a')[1]!, lambert(5, 1000).junctionVoltage, 1e-10, 'v(a) at Tref');
+    expectRelativelyClose(
+      sweep.voltage('a')[1]!,
+      lambert(5, 1000).junctionVoltage,
+      1e-10,
+      'voltage at a at Tref',
+    );
     // Common practice, no source: the forward voltage falls as the temperature rises.
     const v = sweep.voltage('a');
     for (let k = 1; k < v.length; k++) expect(v[k]!).toBeLessThan(v[k - 1]!);

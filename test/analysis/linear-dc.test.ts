@@ -32,9 +32,9 @@ describe('linear DC operating point', () => {
           .resistor('R1', 'in', 'out', '1k')
           .resistor('R2', 'out', GROUND, '3k'),
       );
-      expectClose(op.voltage('out'), (10 * 3000) / 4000, 'v(out)');
-      expectClose(op.voltage('in', 'out'), (10 * 1000) / 4000, 'v(in, out)');
-      expectClose(op.current('R1'), 10 / 4000, 'i(R1)');
+      expectClose(op.voltage('out'), (10 * 3000) / 4000, 'voltage at out');
+      expectClose(op.voltage('in', 'out'), (10 * 1000) / 4000, 'voltage in − out');
+      expectClose(op.current('R1'), 10 / 4000, 'current in R1');
     });
 
     it('finds the galvanometer current of a Wheatstone bridge off balance from its Thevenin equivalent', () => {
@@ -173,9 +173,9 @@ describe('linear DC operating point', () => {
           .vcvs('buffer', ['out', GROUND], ['c', GROUND], -25)
           .resistor('Rl', 'out', GROUND, '2k'),
       );
-      expectClose(op.voltage('out'), -25 * 0.9, 'v(out)');
+      expectClose(op.voltage('out'), -25 * 0.9, 'voltage at out');
       // The output branch current flows from outPlus through the source to outMinus.
-      expectClose(op.current('buffer'), (25 * 0.9) / 2000, 'i(buffer)');
+      expectClose(op.current('buffer'), (25 * 0.9) / 2000, 'current in buffer');
     });
 
     it('drives a load with the current of a vccs, in the direction of the documented sign convention', () => {
@@ -187,8 +187,8 @@ describe('linear DC operating point', () => {
           .vccs('transconductor', [GROUND, 'out'], ['in', GROUND], '5m')
           .resistor('Rl', 'out', GROUND, '1k'),
       );
-      expectClose(op.voltage('out'), 2 * 5e-3 * 1e3, 'v(out)');
-      expectClose(op.current('transconductor'), 2 * 5e-3, 'i(transconductor)');
+      expectClose(op.voltage('out'), 2 * 5e-3 * 1e3, 'voltage at out');
+      expectClose(op.current('transconductor'), 2 * 5e-3, 'current in transconductor');
     });
 
     it('solves a vccs that feeds back on its own control voltage', () => {
@@ -201,7 +201,7 @@ describe('linear DC operating point', () => {
           .resistor('R', 'x', GROUND, r)
           .vccs('transconductor', ['x', GROUND], ['x', GROUND], gm),
       );
-      expectClose(op.voltage('x'), is / (1 / r + gm), 'v(x)');
+      expectClose(op.voltage('x'), is / (1 / r + gm), 'voltage at x');
     });
 
     it('sets a ccvs output from the current of its controlling voltage source', () => {
@@ -215,8 +215,8 @@ describe('linear DC operating point', () => {
           .resistor('Rl', 'out', GROUND, '10k'),
       );
       const iV1 = -5 / 2500;
-      expectClose(op.current('supply'), iV1, 'i(supply)');
-      expectClose(op.voltage('out'), 1000 * iV1, 'v(out)');
+      expectClose(op.current('supply'), iV1, 'current in supply');
+      expectClose(op.voltage('out'), 1000 * iV1, 'voltage at out');
     });
 
     it('mirrors the current of its controlling voltage source with a cccs', () => {
@@ -229,8 +229,8 @@ describe('linear DC operating point', () => {
           .resistor('Rl', 'out', GROUND, '500'),
       );
       const iV1 = -5 / 1000;
-      expectClose(op.current('mirror'), 3 * iV1, 'i(mirror)');
-      expectClose(op.voltage('out'), 3 * iV1 * 500, 'v(out)');
+      expectClose(op.current('mirror'), 3 * iV1, 'current in mirror');
+      expectClose(op.voltage('out'), 3 * iV1 * 500, 'voltage at out');
     });
 
     it('senses the current of an inductor, a short at DC, with a cccs', () => {
@@ -243,8 +243,8 @@ describe('linear DC operating point', () => {
           .cccs('mirror', [GROUND, 'out'], 'L1', 10)
           .resistor('Rl', 'out', GROUND, '100'),
       );
-      expectClose(op.current('L1'), 4 / 2000, 'i(L1)');
-      expectClose(op.voltage('out'), 10 * (4 / 2000) * 100, 'v(out)');
+      expectClose(op.current('L1'), 4 / 2000, 'current in L1');
+      expectClose(op.voltage('out'), 10 * (4 / 2000) * 100, 'voltage at out');
     });
   });
 
@@ -261,11 +261,11 @@ describe('linear DC operating point', () => {
           .resistor('Rl', 'out', GROUND, '2k'),
       );
       const vout = -10 * 0.7;
-      expectClose(op.voltage('out'), vout, 'v(out)');
+      expectClose(op.voltage('out'), vout, 'voltage at out');
       expect(Math.abs(op.voltage('minus'))).toBeLessThan(1e-15); // virtual ground
       // docs/circuit-api.md, "Elements": the op-amp current flows out of its output into the
       // circuit, here into Rl and Rf.
-      expectClose(op.current('U1'), vout / 2000 + vout / 10000, 'i(U1)');
+      expectClose(op.current('U1'), vout / 2000 + vout / 10000, 'current in U1');
     });
 
     it('amplifies without inversion with gain 1 + Rf/Rg', () => {
@@ -276,8 +276,8 @@ describe('linear DC operating point', () => {
           .resistor('Rf', 'out', 'minus', '39k')
           .resistor('Rg', 'minus', GROUND, '10k'),
       );
-      expectClose(op.voltage('out'), -0.25 * (1 + 39 / 10), 'v(out)');
-      expectClose(op.current('U1'), (-0.25 * (1 + 39 / 10)) / 49e3, 'i(U1)');
+      expectClose(op.voltage('out'), -0.25 * (1 + 39 / 10), 'voltage at out');
+      expectClose(op.current('U1'), (-0.25 * (1 + 39 / 10)) / 49e3, 'current in U1');
     });
 
     it('sums weighted inputs: vout = −Rf·(v1/R1 + v2/R2 + v3/R3)', () => {
@@ -292,7 +292,7 @@ describe('linear DC operating point', () => {
           .resistor('Rf', 'sum', 'out', '15k')
           .opAmp('U1', { plus: GROUND, minus: 'sum', output: 'out' }),
       );
-      expectClose(op.voltage('out'), -15e3 * (1 / 10e3 + -2 / 20e3 + 0.5 / 5e3), 'v(out)');
+      expectClose(op.voltage('out'), -15e3 * (1 / 10e3 + -2 / 20e3 + 0.5 / 5e3), 'voltage at out');
     });
 
     it('takes a difference: vout = v2·(R4/(R3 + R4))·(1 + R2/R1) − v1·R2/R1', () => {
@@ -307,7 +307,11 @@ describe('linear DC operating point', () => {
           .resistor('R4', 'plus', GROUND, r4)
           .opAmp('U1', { plus: 'plus', minus: 'minus', output: 'out' }),
       );
-      expectClose(op.voltage('out'), v2 * (r4 / (r3 + r4)) * (1 + r2 / r1) - (v1 * r2) / r1, 'v(out)');
+      expectClose(
+        op.voltage('out'),
+        v2 * (r4 / (r3 + r4)) * (1 + r2 / r1) - (v1 * r2) / r1,
+        'voltage at out',
+      );
     });
 
     it('amplifies only the difference when R4/R3 = R2/R1', () => {
@@ -321,7 +325,7 @@ describe('linear DC operating point', () => {
           .resistor('R4', 'plus', GROUND, '100k')
           .opAmp('U1', { plus: 'plus', minus: 'minus', output: 'out' }),
       );
-      expectClose(op.voltage('out'), 10 * (3.4 - 3.1), 'v(out)');
+      expectClose(op.voltage('out'), 10 * (3.4 - 3.1), 'voltage at out');
     });
   });
 
@@ -340,9 +344,9 @@ describe('linear DC operating point', () => {
           .resistor('Rf', 'out', 'minus', rf)
           .resistor('Rg', 'minus', GROUND, rg),
       );
-      expectClose(op.voltage('out'), (0.1 * a) / (1 + a * beta), 'v(out)');
+      expectClose(op.voltage('out'), (0.1 * a) / (1 + a * beta), 'voltage at out');
       // the error voltage between the inputs is v(out)/A
-      expectClose(op.voltage('in', 'minus'), op.voltage('out') / a, 'v(in) − v(minus)');
+      expectClose(op.voltage('in', 'minus'), op.voltage('out') / a, 'voltage at in − voltage at minus');
     });
 
     it('falls short of the ideal gain by the factor 1/(1 + 1/(Aβ)) and approaches it as A grows', () => {
@@ -386,8 +390,8 @@ describe('linear DC operating point', () => {
         ).voltage('out');
       const light = vout(1e6);
       const heavy = vout(100);
-      expectClose(light, (a * vin) / (1 + a * beta + ro * (1 / 1e6 + gf)), 'v(out), RL = 1 MΩ');
-      expectClose(heavy, (a * vin) / (1 + a * beta + ro * (1 / 100 + gf)), 'v(out), RL = 100 Ω');
+      expectClose(light, (a * vin) / (1 + a * beta + ro * (1 / 1e6 + gf)), 'voltage at out, RL = 1 MΩ');
+      expectClose(heavy, (a * vin) / (1 + a * beta + ro * (1 / 100 + gf)), 'voltage at out, RL = 100 Ω');
       // The closed-loop output resistance from the two loads, against Ro/(1 + Aβ).
       const iLight = light / 1e6;
       const iHeavy = heavy / 100;
@@ -406,7 +410,7 @@ describe('linear DC operating point', () => {
           .capacitor('C1', 'a', GROUND, '10u')
           .resistor('R2', 'a', GROUND, '2k'),
       );
-      expectClose(op.voltage('a'), (9 * 2) / 3, 'v(a)');
+      expectClose(op.voltage('a'), (9 * 2) / 3, 'voltage at a');
       expect(op.current('C1')).toBe(0);
     });
 
@@ -420,7 +424,7 @@ describe('linear DC operating point', () => {
           .resistor('R2', 'b', GROUND, '2k'),
       );
       expect(Math.abs(op.voltage('a', 'b'))).toBeLessThan(1e-15);
-      expectClose(op.current('L1'), 9 / 3000, 'i(L1)');
+      expectClose(op.current('L1'), 9 / 3000, 'current in L1');
     });
   });
 
@@ -455,18 +459,18 @@ describe('linear DC operating point', () => {
 
     it('gives a resistor current from its first node to its second', () => {
       const op = operatingPoint(circuit());
-      expectClose(op.current('Rab'), (op.voltage('p') - op.voltage('m')) / 1000, 'i(Rab)');
-      expectClose(op.current('Rba'), (0 - op.voltage('m')) / 2000, 'i(Rba)');
+      expectClose(op.current('Rab'), (op.voltage('p') - op.voltage('m')) / 1000, 'current in Rab');
+      expectClose(op.current('Rba'), (0 - op.voltage('m')) / 2000, 'current in Rba');
       // nodal equation at m: (6 − vm)/1k = vm/2k + i_sink, i_sink = −1 mA leaving m through the source
       const vm = (6 / 1000 + 1e-3) / (1 / 1000 + 1 / 2000);
-      expectClose(op.voltage('m'), vm, 'v(m)');
+      expectClose(op.voltage('m'), vm, 'voltage at m');
     });
 
     it('gives a voltage source that delivers power a current of the opposite sign to its voltage', () => {
       const op = operatingPoint(circuit());
       const i = op.current('supply');
       expect(i).toBeLessThan(0);
-      expectClose(i, -op.current('Rab'), 'i(supply)');
+      expectClose(i, -op.current('Rab'), 'current in supply');
       expect(op.voltage('p') * i).toBeLessThan(0); // absorbed power v·i < 0: delivered
     });
 
@@ -474,7 +478,7 @@ describe('linear DC operating point', () => {
       const op = operatingPoint(circuit());
       expect(op.current('sink')).toBe(-1e-3);
       expect(op.current('feed')).toBe(0.5e-3);
-      expectClose(op.voltage('q'), 0.5e-3 * 4000, 'v(q): feed flows from ground into q');
+      expectClose(op.voltage('q'), 0.5e-3 * 4000, 'voltage at q: feed flows from ground into q');
     });
   });
 
@@ -513,7 +517,7 @@ describe('linear DC operating point', () => {
       // docs/analyses.md, "Results": voltages are taken with respect to GROUND by default
       const op = solved();
       expect(op.voltage(GROUND)).toBe(0);
-      expectClose(op.voltage(GROUND, 'a'), -1, 'v(gnd, a)');
+      expectClose(op.voltage(GROUND, 'a'), -1, 'voltage gnd − a');
     });
   });
 });

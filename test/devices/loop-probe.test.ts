@@ -28,8 +28,8 @@ describe('loopProbe', () => {
 
   it('is a short in AC, with no excitation of its own', () => {
     const ac = acAnalysis(operatingPoint(sensed()), { frequencies: [1e3] });
-    expectRelativelyClose(ac.voltage('load')[0]!.re, 1, 1e-12, 'v(load)');
-    expectRelativelyClose(ac.current('sense')[0]!.re, 1e-3, 1e-12, 'i(sense)');
+    expectRelativelyClose(ac.voltage('load')[0]!.re, 1, 1e-12, 'voltage at load');
+    expectRelativelyClose(ac.current('sense')[0]!.re, 1e-3, 1e-12, 'current in sense');
   });
 
   it('senses the current of a current-controlled voltage source', () => {
