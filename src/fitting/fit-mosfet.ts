@@ -89,7 +89,11 @@ export function fitMosfet(
           .voltageSource(`gateDrive${k}`, `gate${k}`, GROUND, { dc: sign * v })
           .voltageSource(`drainDrive${k}`, `drain${k}`, GROUND, { dc: sign * vds[k]! })
           .voltageSource(`bodyDrive${k}`, `body${k}`, GROUND, { dc: sign * vbs[k]! })
-          .mosfet(`sample${k}`, { drain: `drain${k}`, gate: `gate${k}`, source: GROUND, body: `body${k}` }, model);
+          .mosfet(
+            `sample${k}`,
+            { drain: `drain${k}`, gate: `gate${k}`, source: GROUND, body: `body${k}` },
+            model,
+          );
       });
       const op = operatingPoint(circuit, { temperature, junctionConductance: FIT_JUNCTION_CONDUCTANCE });
       vgs.forEach((_, k) => {
