@@ -67,6 +67,13 @@ export class Mosfet implements Device {
   // Slots of rows (d, s) × columns (d, g, s, b), then the body tie and the two gate capacitors.
   private sChannel: Int32Array = new Int32Array(0);
   private sBody: Int32Array = new Int32Array(0);
+  /** The temperature the constants were last prepared for (NaN: never). */
+  private preparedTemperature = Number.NaN;
+  // The square law's constants, read once from the parameters: λ, γ, φ and √φ.
+  private readonly lambda: number;
+  private readonly gamma: number;
+  private readonly phi: number;
+  private readonly rootPhi: number;
   private sGs: Int32Array = new Int32Array(0);
   private sGd: Int32Array = new Int32Array(0);
   private junctionConductance = 0;
@@ -89,6 +96,10 @@ export class Mosfet implements Device {
     this.signedThreshold = given === undefined ? defaultThreshold(record.polarity) : given;
     this.vth0 = this.sign * this.signedThreshold;
     this.beta = this.p.gainFactor;
+    this.lambda = this.p.channelLengthModulation;
+    this.gamma = this.p.bodyEffect;
+    this.phi = this.p.surfacePotential;
+    this.rootPhi = Math.sqrt(this.phi);
     this.chargeBased = !Number.isNaN(this.p.slopeFactor);
     this.charge = {
       thresholdVoltage: this.vth0,
@@ -113,6 +124,9 @@ export class Mosfet implements Device {
   }
   prepare({ temperature, thermalVoltage, junctionConductance }: Conditions): void {
     this.junctionConductance = junctionConductance;
+    // Every solve prepares again; at unchanged conditions the temperature laws give the same numbers.
+    if (temperature === this.preparedTemperature && thermalVoltage === this.charge.thermalVoltage) return;
+    this.preparedTemperature = temperature;
     // With both temperature parameters at 0 these give the values as given, exactly.
     const p = this.p;
     const rise = temperature - p.referenceTemperature;
@@ -124,13 +138,15 @@ export class Mosfet implements Device {
   }
   /** The square law for vds ≥ 0 in the mirrored frame; writes id, gm, gds, gmb, vth, regionNow. */
   private channel(vgs: number, vds: number, vbs: number): void {
-    const { channelLengthModulation: lambda, bodyEffect: gamma, surfacePotential: phi } = this.p;
+    const lambda = this.lambda;
+    const gamma = this.gamma;
+    const phi = this.phi;
     const beta = this.beta;
     let root = Math.sqrt(Math.max(phi - vbs, 0));
     let dRootDvbs = 0;
     if (root < MIN_BODY_ROOT) root = MIN_BODY_ROOT;
     else dRootDvbs = -1 / (2 * root);
-    this.vth = this.vth0 + gamma * (root - Math.sqrt(phi));
+    this.vth = this.vth0 + gamma * (root - this.rootPhi);
     const vov = vgs - this.vth;
     const clm = 1 + lambda * vds;
     if (vov <= 0) {
