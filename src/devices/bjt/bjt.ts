@@ -69,6 +69,8 @@ export class Bjt implements Device {
   private sRb: Int32Array = new Int32Array(0);
   private sRe: Int32Array = new Int32Array(0);
   private kneeCurrent = Number.POSITIVE_INFINITY;
+  /** Whether any terminal resistance is present: read in every load without touching the parameters. */
+  private readonly hasSeries: boolean;
   /** ∂(I_S·e_f/q_h)/∂vbe at the last evaluation: the slope of the forward charge over τF. */
   private forwardChargeSlope = 0;
   // Slots of rows (c, b, e) × columns (c, b, e), row-major, then the two junction capacitors.
@@ -114,6 +116,8 @@ export class Bjt implements Device {
     this.earlyVoltage = this.p.earlyVoltage;
     this.dqdv = this.earlyVoltage === Number.POSITIVE_INFINITY ? 0 : 1 / this.earlyVoltage;
     this.kneeCurrent = this.p.kneeCurrent;
+    this.hasSeries =
+      this.p.collectorResistance > 0 || this.p.baseResistance > 0 || this.p.emitterResistance > 0;
   }
   allocateNodes(ctx: AllocationContext): void {
     const p = this.p;
@@ -166,8 +170,9 @@ export class Bjt implements Device {
     this.isOverForwardBeta = this.is / this.forwardBeta;
     this.isOverReverseBeta = this.is / this.reverseBeta;
   }
-  /** Add the terminal resistances' conductances. */
+  /** Add the terminal resistances' conductances (none without terminal resistances). */
   private loadSeries(A: Float64Array): void {
+    if (!this.hasSeries) return;
     const p = this.p;
     if (p.collectorResistance > 0) addConductance(A, this.sRc, 0, 1 / p.collectorResistance);
     if (p.baseResistance > 0) addConductance(A, this.sRb, 0, 1 / p.baseResistance);
