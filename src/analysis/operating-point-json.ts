@@ -23,7 +23,7 @@ export interface OperatingPointJson {
   readonly iterations: number;
   /** Every node's voltage to ground, in V, ground left out, in the circuit's node order. */
   readonly nodes: Readonly<Record<string, number>>;
-  /** The current of every element that has one, in A, by the sign conventions of docs/circuit-api.md. */
+  /** The current of every element that has one, in A, by the sign conventions of docs/building-circuits.md. */
   readonly currents: Readonly<Record<string, number>>;
   /** The report of every diode and transistor, by name, with its `kind`. */
   readonly devices: Readonly<Record<string, DeviceJson>>;

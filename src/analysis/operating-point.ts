@@ -76,7 +76,7 @@ export class OperatingPoint {
   }
 
   /**
-   * The current of an element, in A, by the sign conventions of docs/circuit-api.md: for two-terminal
+   * The current of an element, in A, by the sign conventions of docs/building-circuits.md: for two-terminal
    * elements from the first node named to the second, for controlled sources their output branch,
    * for an op-amp the current out of its output into the circuit. Transistors are read through
    * {@link OperatingPoint.device}.

@@ -25,7 +25,7 @@ export interface DcSweepJson {
   readonly values: readonly number[];
   /** Every node's voltage to ground at every point, in V. */
   readonly nodes: Readonly<Record<string, readonly number[]>>;
-  /** Every element current at every point, in A, by the sign conventions of docs/circuit-api.md. */
+  /** Every element current at every point, in A, by the sign conventions of docs/building-circuits.md. */
   readonly currents: Readonly<Record<string, readonly number[]>>;
 }
 

@@ -54,7 +54,7 @@ function voltageBranch(e: ElementRecord): readonly [string, string] | undefined 
   return descriptorOf(e).voltageBranch(e);
 }
 
-/** Run every whole-circuit check; throws the first failure in the order of docs/circuit-api.md, "Errors". */
+/** Run every whole-circuit check; throws the first failure in the order of docs/building-circuits.md, "Errors". */
 export function checkTopology(elements: readonly ElementRecord[]): void {
   const byName = new Map(elements.map((e) => [e.name, e] as const));
   for (const e of elements) {

@@ -81,7 +81,7 @@ export function compileCount(): number {
   return compilations;
 }
 
-/** Check and compile element records. Throws the topology errors of docs/circuit-api.md, "Errors". */
+/** Check and compile element records. Throws the topology errors of docs/building-circuits.md, "Errors". */
 export function compileCircuit(records: readonly ElementRecord[]): CompiledSystem {
   checkTopology(records);
   compilations++;

@@ -52,7 +52,7 @@ export function assertNodeVoltage(
  *
  * @param op - the operating point
  * @param element - the element
- * @param expected - the expected current (`1e-3`, `'1 mA'`), by the sign conventions of docs/circuit-api.md
+ * @param expected - the expected current (`1e-3`, `'1 mA'`), by the sign conventions of docs/building-circuits.md
  * @param tolerance - `absolute` and/or `relative`
  * @throws QuiescentAssertionError when the current is outside the tolerance
  * @throws QuiescentError `unknown-element`, or `invalid-value` for an unreadable expectation or tolerance

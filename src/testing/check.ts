@@ -130,7 +130,7 @@ export function checkNodeVoltage(
 }
 
 /**
- * Checks the current of an element, by the sign conventions of docs/circuit-api.md.
+ * Checks the current of an element, by the sign conventions of docs/building-circuits.md.
  *
  * @param op - the operating point
  * @param element - the element (any with a current: two-terminal elements, sources, op-amps)

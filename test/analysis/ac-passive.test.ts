@@ -56,7 +56,7 @@ describe('acAnalysis on first-order RC filters', () => {
   });
 
   it('reads the source amplitude and phase as a peak phasor', () => {
-    // Source: phasor of a source of magnitude M and phase φ is M·e^{jφ} (docs/circuit-api.md, "Sources and
+    // Source: phasor of a source of magnitude M and phase φ is M·e^{jφ} (docs/building-circuits.md, "Sources and
     // their AC excitation": peak phasors, degrees); the divider H = 1/(1 + jωRC) then scales it.
     const c = new Circuit()
       .voltageSource('input', 'in', GROUND, { ac: { magnitude: 2.5, phase: 30 } })

@@ -1,7 +1,7 @@
 /**
  * Bad input is refused at the boundary with a QuiescentError naming where it was given: sweep
  * parameter names that only Object's prototype knows, a bad fixed temperature of a sweep, subnormal
- * and absurd magnitudes (docs/circuit-api.md, "Values"), and grids too large or out of range.
+ * and absurd magnitudes (docs/building-circuits.md, "Values"), and grids too large or out of range.
  */
 import { describe, expect, it } from 'vitest';
 import {

@@ -34,7 +34,7 @@ const network: fc.Arbitrary<Branch[]> = fc
   .chain((count) => {
     const node = fc.integer({ min: 0, max: count - 1 });
     const resistance = fc.double({ min: 1, max: 5, noNaN: true }).map((e) => 10 ** e); // 10 Ω … 100 kΩ
-    // Magnitudes below 1e-60 are rejected by the builder (docs/circuit-api.md, "Values"): they read as 0 here.
+    // Magnitudes below 1e-60 are rejected by the builder (docs/building-circuits.md, "Values"): they read as 0 here.
     const volts = fc.double({ min: -20, max: 20, noNaN: true, noDefaultInfinity: true }).map(flushTiny);
     const amps = fc.double({ min: -0.01, max: 0.01, noNaN: true, noDefaultInfinity: true }).map(flushTiny);
     const edge = fc.tuple(node, node).filter(([a, b]) => a !== b);
@@ -103,7 +103,7 @@ const RUNS = { numRuns: 100 };
 describe('random linear resistor networks with sources', () => {
   it('obey Kirchhoff’s current law at every node, from the element currents', () => {
     // Kirchhoff's current law; every element current flows from its first node to its second
-    // (docs/circuit-api.md, "Sign conventions")
+    // (docs/building-circuits.md, "Sign conventions")
     fc.assert(
       fc.property(network, (branches) => {
         const c = build(branches);
@@ -124,7 +124,7 @@ describe('random linear resistor networks with sources', () => {
 
   it('obey Tellegen’s theorem: the sum of v·i over all elements is zero', () => {
     // Tellegen, 1952; every element current here follows the passive sign convention
-    // (docs/circuit-api.md, "Sign conventions")
+    // (docs/building-circuits.md, "Sign conventions")
     fc.assert(
       fc.property(network, (branches) => {
         const c = build(branches);

@@ -179,7 +179,7 @@ describe('linear DC operating point', () => {
     });
 
     it('drives a load with the current of a vccs, in the direction of the documented sign convention', () => {
-      // Alexander & Sadiku, 5th ed., 2013, §2.2 (from memory): i = gm·v_ctrl; docs/circuit-api.md, "Elements":
+      // Alexander & Sadiku, 5th ed., 2013, §2.2 (from memory): i = gm·v_ctrl; docs/building-circuits.md, "Elements":
       // gm·V(ctrl) flows from outFrom through the source into outTo
       const op = operatingPoint(
         new Circuit()
@@ -206,7 +206,7 @@ describe('linear DC operating point', () => {
 
     it('sets a ccvs output from the current of its controlling voltage source', () => {
       // Alexander & Sadiku, 5th ed., 2013, §2.2 (from memory): v = r·i_ctrl; the source current
-      // follows the passive sign convention of docs/circuit-api.md, "Sign conventions"
+      // follows the passive sign convention of docs/building-circuits.md, "Sign conventions"
       const op = operatingPoint(
         new Circuit()
           .voltageSource('supply', 'in', GROUND, { dc: 5 })
@@ -263,7 +263,7 @@ describe('linear DC operating point', () => {
       const vout = -10 * 0.7;
       expectClose(op.voltage('out'), vout, 'voltage at out');
       expect(Math.abs(op.voltage('minus'))).toBeLessThan(1e-15); // virtual ground
-      // docs/circuit-api.md, "Elements": the op-amp current flows out of its output into the
+      // docs/building-circuits.md, "Elements": the op-amp current flows out of its output into the
       // circuit, here into Rl and Rf.
       expectClose(op.current('U1'), vout / 2000 + vout / 10000, 'current in U1');
     });
@@ -445,7 +445,7 @@ describe('linear DC operating point', () => {
   });
 
   describe('sign conventions of op.current', () => {
-    // docs/circuit-api.md, "Sign conventions"; the passive sign convention of Alexander & Sadiku,
+    // docs/building-circuits.md, "Sign conventions"; the passive sign convention of Alexander & Sadiku,
     // 5th ed., 2013, §1.5
 
     const circuit = () =>
@@ -497,7 +497,7 @@ describe('linear DC operating point', () => {
     }
 
     it('rejects a node the circuit lacks with unknown-node, naming it', () => {
-      // docs/circuit-api.md, "Errors"
+      // docs/building-circuits.md, "Errors"
       const op = solved();
       expectRejected(() => op.voltage('nowhere'), 'unknown-node', 'nowhere');
       expectRejected(() => op.voltage('a', 'elsewhere'), 'unknown-node', 'elsewhere');
@@ -505,7 +505,7 @@ describe('linear DC operating point', () => {
     });
 
     it('rejects an element the circuit lacks, or one without a device report, with unknown-element', () => {
-      // docs/circuit-api.md, "Errors"; docs/analyses.md, "Results": op.device answers for diodes and transistors
+      // docs/building-circuits.md, "Errors"; docs/analyses.md, "Results": op.device answers for diodes and transistors
       const op = solved();
       expectRejected(() => op.current('R9'), 'unknown-element', 'R9');
       expectRejected(() => op.current('a'), 'unknown-element', 'a');

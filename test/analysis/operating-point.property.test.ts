@@ -27,7 +27,7 @@ const nodeName = (k: number, nodes: number) => (k === nodes ? GROUND : `n${k}`);
 const network: fc.Arbitrary<Network> = fc.integer({ min: 1, max: 7 }).chain((nodes) =>
   fc.record({
     nodes: fc.constant(nodes),
-    // Magnitudes below 1e-60 are rejected by the builder (docs/circuit-api.md, "Values"): they read as 0 here.
+    // Magnitudes below 1e-60 are rejected by the builder (docs/building-circuits.md, "Values"): they read as 0 here.
     supply: fc.double({ min: -20, max: 20, noNaN: true }).map(flushTiny),
     parts: fc
       .tuple(

@@ -97,7 +97,7 @@ describe('quasiStaticHarmonics', () => {
     ['an unknown element', { output: { element: 'R7' } }, 'unknown-element'],
   ] as const) {
     it(`refuses ${what} with ${code}`, () => {
-      // Source: the error table of docs/circuit-api.md, "Errors".
+      // Source: the error table of docs/building-circuits.md, "Errors".
       try {
         quasiStaticHarmonics(diodeAttenuator(0.001), options as never);
         expect.unreachable('quasiStaticHarmonics accepted a bad argument');

@@ -9,7 +9,7 @@ import {
 } from '../../src/index.js';
 
 /**
- * What the builder promises (docs/circuit-api.md, introduction and "Elements"): every method
+ * What the builder promises (docs/building-circuits.md, introduction and "Elements"): every method
  * checks its own arguments at once, returns the circuit, and rejects bad input with a
  * QuiescentError whose message names the element. The ranges checked here
  * (a resistance is positive, a capacitance or inductance is not negative, a unit symbol must fit
@@ -93,14 +93,14 @@ describe('Circuit builder', () => {
     });
 
     it('defaults a source to no DC value and no AC signal', () => {
-      // docs/circuit-api.md, "Sources and their AC excitation": dc and ac are optional (common practice, no source)
+      // docs/building-circuits.md, "Sources and their AC excitation": dc and ac are optional (common practice, no source)
       const c = new Circuit().voltageSource('supply', 'a', GROUND).currentSource('bias', 'a', GROUND, {});
       expect(c.element('supply')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
       expect(c.element('bias')).toMatchObject({ dc: 0, ac: { magnitude: 0, phase: 0 } });
     });
 
     it('accepts zero for a capacitance and an inductance, and negative source values and gains', () => {
-      // docs/circuit-api.md, "Elements": zero is a valid capacitance; a source or a controlled gain
+      // docs/building-circuits.md, "Elements": zero is a valid capacitance; a source or a controlled gain
       // may have either sign
       // (Alexander & Sadiku, 5th ed., 2013, §2.2 and §4.2, from memory)
       const c = new Circuit()
@@ -123,7 +123,7 @@ describe('Circuit builder', () => {
     });
 
     it('ties the MOSFET body to its source when no body is given, and keeps the polarity', () => {
-      // docs/circuit-api.md, "Elements": body defaults to source
+      // docs/building-circuits.md, "Elements": body defaults to source
       const c = new Circuit().mosfet('switch', { drain: 'd', gate: 'g', source: 's' }, { polarity: 'pmos' });
       expect(c.element('switch')).toMatchObject({ source: 's', body: 's', polarity: 'pmos' });
     });
@@ -150,12 +150,12 @@ describe('Circuit builder', () => {
       ['an empty element name', () => new Circuit().resistor('', 'a', 'b', 1)],
       ['a number as element name', () => new Circuit().resistor(7 as unknown as string, 'a', 'b', 1)],
     ])('rejects %s with invalid-circuit', (_, build) => {
-      // docs/circuit-api.md, "Elements": element names are non-empty strings
+      // docs/building-circuits.md, "Elements": element names are non-empty strings
       expectRejected(build, 'invalid-circuit', 'name');
     });
 
     it('rejects an empty node name, naming the element and the terminal', () => {
-      // docs/circuit-api.md, "Elements": node names are non-empty strings
+      // docs/building-circuits.md, "Elements": node names are non-empty strings
       expectRejected(() => new Circuit().resistor('R1', '', 'b', 1), 'invalid-circuit', 'R1.a');
       expectRejected(() => new Circuit().capacitor('C1', 'a', '', 1), 'invalid-circuit', 'C1.b');
       expectRejected(
@@ -172,7 +172,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects an empty controlling-element name of a ccvs or cccs', () => {
-      // docs/circuit-api.md, "Elements": the controlling element is named
+      // docs/building-circuits.md, "Elements": the controlling element is named
       expectRejected(
         () => new Circuit().ccvs('senseAmp', ['a', GROUND], '', 1),
         'invalid-circuit',
@@ -188,7 +188,7 @@ describe('Circuit builder', () => {
 
   describe('rejects duplicate names', () => {
     it('rejects a second element of the same name with duplicate-name, whatever its kind', () => {
-      // docs/circuit-api.md, "Elements": element names are unique within a circuit
+      // docs/building-circuits.md, "Elements": element names are unique within a circuit
       const c = new Circuit().resistor('taken', 'a', GROUND, 1);
       const error = expectRejected(() => c.capacitor('taken', 'a', GROUND, 1e-9), 'duplicate-name', 'taken');
       expect(error.details).toEqual({ code: 'duplicate-name', name: 'taken' });
@@ -297,7 +297,7 @@ describe('Circuit builder', () => {
 
   describe('rejects malformed source settings', () => {
     it('rejects an unknown source setting with invalid-circuit naming it', () => {
-      // docs/circuit-api.md, "Sources and their AC excitation": a source takes { dc?, ac? }
+      // docs/building-circuits.md, "Sources and their AC excitation": a source takes { dc?, ac? }
       expectRejected(
         () => new Circuit().voltageSource('supply', 'a', GROUND, { dc: 1, amplitude: 2 } as never),
         'invalid-circuit',
@@ -311,7 +311,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects a source setting that is not an object', () => {
-      // docs/circuit-api.md, "Sources and their AC excitation": a source takes { dc?, ac? }
+      // docs/building-circuits.md, "Sources and their AC excitation": a source takes { dc?, ac? }
       expectRejected(
         () => new Circuit().voltageSource('supply', 'a', GROUND, 5 as never),
         'invalid-circuit',
@@ -332,7 +332,7 @@ describe('Circuit builder', () => {
 
   describe('rejects bad terminal maps', () => {
     it('rejects output and control pairs that are not two node names', () => {
-      // docs/circuit-api.md, "Elements": out and control are [plus, minus] pairs
+      // docs/building-circuits.md, "Elements": out and control are [plus, minus] pairs
       expectRejected(
         () => new Circuit().vcvs('buffer', ['a'] as unknown as [string, string], ['b', 'c'], 1),
         'invalid-circuit',
@@ -357,7 +357,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects an op-amp terminal map with a missing or an unknown terminal', () => {
-      // docs/circuit-api.md, "Elements": op-amp terminals are { plus, minus, output }
+      // docs/building-circuits.md, "Elements": op-amp terminals are { plus, minus, output }
       expectRejected(
         () => new Circuit().opAmp('U1', { plus: 'a', minus: 'b' } as never),
         'invalid-circuit',
@@ -372,7 +372,7 @@ describe('Circuit builder', () => {
     });
 
     it('rejects transistor terminal maps with a missing or an unknown terminal', () => {
-      // docs/circuit-api.md, "Elements": bjt { collector, base, emitter }; mosfet { drain, gate, source, body? }
+      // docs/building-circuits.md, "Elements": bjt { collector, base, emitter }; mosfet { drain, gate, source, body? }
       expectRejected(
         () => new Circuit().bjt('Q1', { collector: 'c', base: 'b' } as never, { polarity: 'npn' }),
         'invalid-circuit',
@@ -433,7 +433,7 @@ describe('Circuit builder', () => {
     });
 
     it('requires a model with a polarity for a transistor', () => {
-      // docs/circuit-api.md, "Elements"; docs/devices.md, "Bipolar transistor" and "MOSFET": the model
+      // docs/building-circuits.md, "Elements"; docs/devices.md, "Bipolar transistor" and "MOSFET": the model
       // (with its polarity) is required
       expectRejected(
         () => new Circuit().bjt('Q1', { collector: 'c', base: 'b', emitter: 'e' }, undefined as never),

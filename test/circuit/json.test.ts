@@ -212,7 +212,7 @@ describe('Circuit JSON documents', () => {
     });
 
     it('rejects a name that is not a non-empty string', () => {
-      // docs/circuit-api.md, "Elements": element names are non-empty strings
+      // docs/building-circuits.md, "Elements": element names are non-empty strings
       const doc = dividerDocument();
       doc.elements[1]!.name = 5;
       expectRejected(doc, 'invalid-circuit', 'elements[1].name');
@@ -255,7 +255,7 @@ describe('Circuit JSON documents', () => {
     });
 
     it('names the path of a bad AC setting', () => {
-      // docs/circuit-api.md, "Sources and their AC excitation": ac is a magnitude or { magnitude, phase }
+      // docs/building-circuits.md, "Sources and their AC excitation": ac is a magnitude or { magnitude, phase }
       const doc = dividerDocument();
       doc.elements[0]!.ac = 'big';
       expectRejected(doc, 'invalid-circuit', 'elements[0].ac');
@@ -345,7 +345,7 @@ describe('Circuit JSON documents', () => {
     });
 
     it('rejects a duplicate name with duplicate-name', () => {
-      // docs/circuit-api.md, "Elements": element names are unique
+      // docs/building-circuits.md, "Elements": element names are unique
       const doc = dividerDocument();
       doc.elements[3]!.name = 'R1';
       expectRejected(doc, 'duplicate-name', 'R1');

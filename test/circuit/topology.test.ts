@@ -79,7 +79,7 @@ describe('topology checks before solving', () => {
 
     it('reports a cut set of current sources and capacitors as the nodes it cuts off', () => {
       // Chua, Desoer & Kuh, 1987 (from memory): a cut set of current sources (capacitors open at
-      // DC) leaves the potential of one side undetermined; docs/circuit-api.md, "Errors", reports it
+      // DC) leaves the potential of one side undetermined; docs/building-circuits.md, "Errors", reports it
       // as floating-node, which comes before singular
       const c = new Circuit()
         .voltageSource('supply', 'in', GROUND, { dc: 5 })
@@ -180,7 +180,7 @@ describe('topology checks before solving', () => {
 
   describe('unknown-element', () => {
     it('rejects a ccvs whose controlling element is not in the circuit, naming both', () => {
-      // docs/circuit-api.md, introduction: controlling elements are checked when an analysis starts
+      // docs/building-circuits.md, introduction: controlling elements are checked when an analysis starts
       const c = new Circuit()
         .voltageSource('supply', 'a', GROUND, { dc: 1 })
         .resistor('R1', 'a', GROUND, 1e3)
@@ -191,7 +191,7 @@ describe('topology checks before solving', () => {
     });
 
     it('rejects a cccs whose controlling element is not in the circuit', () => {
-      // docs/circuit-api.md, introduction
+      // docs/building-circuits.md, introduction
       const c = new Circuit()
         .voltageSource('supply', 'a', GROUND, { dc: 1 })
         .resistor('R1', 'a', GROUND, 1e3)
@@ -206,7 +206,7 @@ describe('topology checks before solving', () => {
       ['a capacitor', (c: Circuit) => c.capacitor('candidate', 'a', GROUND, 1e-9)],
       ['an op-amp', (c: Circuit) => c.opAmp('candidate', { plus: GROUND, minus: 'o', output: 'o' })],
     ])('rejects %s as the controlling element, as it has no current unknown', (_, add) => {
-      // docs/circuit-api.md, "Elements": the controlling element is a voltage source, an inductor, a vcvs or a ccvs
+      // docs/building-circuits.md, "Elements": the controlling element is a voltage source, an inductor, a vcvs or a ccvs
       const c = new Circuit()
         .voltageSource('supply', 'a', GROUND, { dc: 1 })
         .resistor('R1', 'a', GROUND, 1e3);
@@ -217,7 +217,7 @@ describe('topology checks before solving', () => {
   });
 
   describe('order of precedence: no-ground, then floating-node, then singular', () => {
-    // docs/circuit-api.md, "Errors": where several apply, the first in this order is reported
+    // docs/building-circuits.md, "Errors": where several apply, the first in this order is reported
 
     it('reports no-ground when the circuit also floats and has a voltage loop', () => {
       const c = new Circuit()

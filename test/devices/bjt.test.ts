@@ -62,7 +62,7 @@ describe('the bipolar transistor in forward-active operation', () => {
 
 describe('the pnp transistor', () => {
   it('has ic and ib positive, vbe and vce negative, in forward-active operation', () => {
-    // docs/circuit-api.md, "Sign conventions", and docs/devices.md, "Bipolar transistor": the pnp
+    // docs/building-circuits.md, "Sign conventions", and docs/devices.md, "Bipolar transistor": the pnp
     // obeys the npn law in the mirrored voltages.
     const model = { forwardBeta: 80, earlyVoltage: 40 };
     const c = new Circuit()

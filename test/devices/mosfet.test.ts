@@ -76,7 +76,7 @@ describe('the MOSFET square law', () => {
 
 describe('the pmos transistor', () => {
   it('has id positive and vgs, vds and its threshold negative in saturation', () => {
-    // docs/circuit-api.md, "Sign conventions", and docs/devices.md, "MOSFET": the pmos obeys the nmos
+    // docs/building-circuits.md, "Sign conventions", and docs/devices.md, "MOSFET": the pmos obeys the nmos
     // law in vsg, vsd, vsb.
     const model: MosfetModel = {
       polarity: 'pmos',

@@ -66,7 +66,7 @@ describe('assertNodeVoltage', () => {
 });
 
 describe('assertElementCurrent', () => {
-  it('passes and fails by the sign conventions of docs/circuit-api.md', () => {
+  it('passes and fails by the sign conventions of docs/building-circuits.md', () => {
     assertElementCurrent(divider, 'Rtop', '2 mA', { relative: 1e-9 });
     // The source delivers power, so its current is −2 mA.
     const error = failure(() => assertElementCurrent(divider, 'input', '2 mA', { relative: 0.05 }));
