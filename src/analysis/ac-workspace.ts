@@ -111,10 +111,8 @@ export class AcWorkspace {
     if (perFrequency.length === 0) return;
     const ctx = this.#context;
     ctx.omega = omega;
-    for (const d of perFrequency) {
-      d.prepare?.(this.op.conditions);
-      d.loadAc(ctx);
-    }
+    // Prepared once, at construction: only the frequency changes here.
+    for (const d of perFrequency) d.loadAc(ctx);
     this.#measureNorms();
   }
 

@@ -223,9 +223,6 @@ function sourceResistorGenerator(table: GeneratorTable, op: OperatingPoint, name
 export function noise(op: OperatingPoint, options: NoiseOptions): Noise {
   requireInstance(op, OperatingPoint, 'op', 'an OperatingPoint (the result of operatingPoint(circuit))');
   requireOptions(options, 'options', false);
-  if (options === null || typeof options !== 'object') {
-    throw invalidValue(['options'], options, 'an object with the output and the frequencies');
-  }
   const frequencies = checkFrequencies(options.frequencies);
   for (let k = 0; k < frequencies.length; k++) {
     if (!(frequencies[k]! > 0))

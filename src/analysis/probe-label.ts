@@ -22,13 +22,7 @@ import type { Probe } from './ac-analysis.js';
  * ```
  */
 export function probeLabel(probe: Probe): string {
-  const probeShape = (p: unknown, name: string) => {
-    if (typeof p === 'string') return;
-    if (p === null || typeof p !== 'object' || !('node' in p || 'element' in p)) {
-      throw wrongArgument(name, p, 'a node name, { node, reference? } or { element }');
-    }
-  };
-  probeShape(probe, 'probe');
+  requireProbe(probe, 'probe');
   if (typeof probe === 'string') return probe;
   if ('element' in probe) return `current in ${probe.element}`;
   const reference = probe.reference ?? GROUND;
@@ -47,13 +41,15 @@ export function probeLabel(probe: Probe): string {
  * ```
  */
 export function ratioLabel(output: Probe, input?: Probe): string {
-  const probeShape = (p: unknown, name: string) => {
-    if (typeof p === 'string') return;
-    if (p === null || typeof p !== 'object' || !('node' in p || 'element' in p)) {
-      throw wrongArgument(name, p, 'a node name, { node, reference? } or { element }');
-    }
-  };
-  probeShape(output, 'output');
-  if (input !== undefined) probeShape(input, 'input');
+  requireProbe(output, 'output');
+  if (input !== undefined) requireProbe(input, 'input');
   return input === undefined ? probeLabel(output) : `${probeLabel(output)} ÷ ${probeLabel(input)}`;
+}
+
+/** Require a probe: a node name, `{ node, reference? }` or `{ element }`, named `argument` in the error. */
+function requireProbe(probe: unknown, argument: string): void {
+  if (typeof probe === 'string') return;
+  if (probe === null || typeof probe !== 'object' || !('node' in probe || 'element' in probe)) {
+    throw wrongArgument(argument, probe, 'a node name, { node, reference? } or { element }');
+  }
 }

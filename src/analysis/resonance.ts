@@ -5,6 +5,7 @@
  * accuracy (the peak is refined by a parabola through the three highest-lying samples, the band edges
  * by the straight-line interpolation of `crossings`).
  */
+import { requireOptions } from '../errors/arguments.js';
 import { invalidValue, wrongArgument } from '../errors/messages.js';
 import { crossings } from './frequency-response.js';
 
@@ -108,16 +109,7 @@ export function passBand(
   levelDb: Float64Array,
   options: PassBandOptions = {},
 ): PassBand | null {
-  for (const [name, list] of [
-    ['frequencies', frequencies],
-    ['levelDb', levelDb],
-  ] as const) {
-    if (!(list instanceof Float64Array) && !Array.isArray(list))
-      throw wrongArgument(name, list, 'a list of numbers');
-  }
-  if (frequencies.length !== levelDb.length) {
-    throw wrongArgument('levelDb', levelDb, `a list as long as the frequencies (${frequencies.length})`);
-  }
+  requireOptions(options);
   const dropDb = options.dropDb ?? 10 * Math.log10(2);
   if (!(Number.isFinite(dropDb) && dropDb > 0))
     throw invalidValue(['dropDb'], dropDb, 'a finite number of dB above 0');
