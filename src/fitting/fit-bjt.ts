@@ -7,7 +7,6 @@
  */
 
 import { DEFAULT_TEMPERATURE } from '../analysis/options.js';
-import { operatingPoint } from '../analysis/prepared.js';
 import { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
 import type { BjtModel } from '../devices/bjt/bjt-model.js';
@@ -21,6 +20,7 @@ import {
   straightLine,
 } from './fit-parameters.js';
 import { type Measurements, readMeasurements } from './measurements.js';
+import { PartCopies } from './part-copies.js';
 
 /** Options of {@link fitBjtGummel}. */
 export interface BjtGummelFitOptions {
@@ -70,11 +70,9 @@ export function fitBjtGummel(
     (q) => fixed[q.name as keyof typeof fixed] === undefined,
   );
   const sign = polarity === 'npn' ? 1 : -1;
-  const fit = fitParameters(
-    parameters,
-    2 * used.length,
-    (values, out) => {
-      const model: BjtModel = { ...fixed, ...values, polarity, referenceTemperature: temperature };
+  const copies = new PartCopies<BjtModel>(
+    vbe.map((_, k) => `Q${k}`),
+    (model) => {
       const circuit = new Circuit();
       vbe.forEach((v, k) => {
         // The collector on the base's node: vbc = 0, the forward Gummel condition.
@@ -82,7 +80,15 @@ export function fitBjtGummel(
           .voltageSource(`sweep${k}`, `base${k}`, GROUND, { dc: sign * v })
           .bjt(`Q${k}`, { collector: `base${k}`, base: `base${k}`, emitter: GROUND }, model);
       });
-      const op = operatingPoint(circuit, { temperature, junctionConductance: FIT_JUNCTION_CONDUCTANCE });
+      return circuit;
+    },
+  );
+  const fit = fitParameters(
+    parameters,
+    2 * used.length,
+    (values, out) => {
+      const model: BjtModel = { ...fixed, ...values, polarity, referenceTemperature: temperature };
+      const op = copies.solve(model, { temperature, junctionConductance: FIT_JUNCTION_CONDUCTANCE });
       vbe.forEach((_, k) => {
         const report = op.bjt(`Q${k}`);
         out[2 * k] = Math.log(report.ic / ic[k]!);
@@ -179,11 +185,9 @@ export function fitBjtEarlyVoltage(
   // I_C ≈ I_0·(1 + V_CE/V_A): the line's intercept over its slope, when the curve rises.
   const start =
     Number.isFinite(given) && given > 0 ? given : line.slope > 0 ? line.intercept / line.slope : 100;
-  const fit = fitParameters(
-    [{ name: 'earlyVoltage', logarithmic: true, start: start > 0 ? start : 100 }],
-    used.length,
-    (values, out) => {
-      const trial: BjtModel = { ...model, ...values };
+  const outputCopies = new PartCopies<BjtModel>(
+    vce.map((_, k) => `Q${k}`),
+    (trial) => {
       const circuit = new Circuit();
       vce.forEach((v, k) => {
         circuit.voltageSource(`supply${k}`, `collector${k}`, GROUND, { dc: sign * v });
@@ -191,7 +195,15 @@ export function fitBjtEarlyVoltage(
         else circuit.voltageSource(`drive${k}`, `base${k}`, GROUND, { dc: sign * base[k]! });
         circuit.bjt(`Q${k}`, { collector: `collector${k}`, base: `base${k}`, emitter: GROUND }, trial);
       });
-      const op = operatingPoint(circuit, { temperature, junctionConductance: FIT_JUNCTION_CONDUCTANCE });
+      return circuit;
+    },
+  );
+  const fit = fitParameters(
+    [{ name: 'earlyVoltage', logarithmic: true, start: start > 0 ? start : 100 }],
+    used.length,
+    (values, out) => {
+      const trial: BjtModel = { ...model, ...values };
+      const op = outputCopies.solve(trial, { temperature, junctionConductance: FIT_JUNCTION_CONDUCTANCE });
       vce.forEach((_, k) => {
         out[k] = Math.log(op.bjt(`Q${k}`).ic / ic[k]!);
       });

@@ -6,7 +6,6 @@
  */
 
 import { DEFAULT_TEMPERATURE } from '../analysis/options.js';
-import { operatingPoint } from '../analysis/prepared.js';
 import { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
 import type { DiodeModel } from '../devices/diode/diode-model.js';
@@ -19,6 +18,7 @@ import {
   straightLine,
 } from './fit-parameters.js';
 import { type Measurements, readMeasurements } from './measurements.js';
+import { PartCopies } from './part-copies.js';
 
 /** Options of {@link fitDiode}. */
 export interface DiodeFitOptions {
@@ -65,18 +65,24 @@ export function fitDiode(
   const parameters = startingValues(voltage, current, thermalVoltage(temperature)).filter(
     (q) => fixed[q.name as keyof DiodeModel] === undefined,
   );
-  const fit = fitParameters(
-    parameters,
-    used.length,
-    (values, out) => {
-      const model = { ...fixed, ...values, referenceTemperature: temperature };
+  const copies = new PartCopies<DiodeModel>(
+    voltage.map((_, k) => `D${k}`),
+    (model) => {
       const circuit = new Circuit();
       voltage.forEach((v, k) => {
         circuit
           .voltageSource(`sweep${k}`, `anode${k}`, GROUND, { dc: v })
           .diode(`D${k}`, `anode${k}`, GROUND, model);
       });
-      const op = operatingPoint(circuit, { temperature, junctionConductance: FIT_JUNCTION_CONDUCTANCE });
+      return circuit;
+    },
+  );
+  const fit = fitParameters(
+    parameters,
+    used.length,
+    (values, out) => {
+      const model = { ...fixed, ...values, referenceTemperature: temperature };
+      const op = copies.solve(model, { temperature, junctionConductance: FIT_JUNCTION_CONDUCTANCE });
       current.forEach((measured, k) => {
         out[k] = Math.log(op.diode(`D${k}`).current / measured);
       });

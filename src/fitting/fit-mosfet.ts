@@ -7,7 +7,6 @@
  */
 
 import { DEFAULT_TEMPERATURE } from '../analysis/options.js';
-import { operatingPoint } from '../analysis/prepared.js';
 import { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
 import { thermalVoltage } from '../devices/junction.js';
@@ -20,6 +19,7 @@ import {
   straightLine,
 } from './fit-parameters.js';
 import { type Measurements, readMeasurements } from './measurements.js';
+import { PartCopies } from './part-copies.js';
 
 /** Options of {@link fitMosfet}. */
 export interface MosfetFitOptions {
@@ -77,12 +77,9 @@ export function fitMosfet(
   );
   const sign = polarity === 'nmos' ? 1 : -1;
   const largest = Math.max(...id.map(Math.abs));
-  const fit = fitParameters(
-    parameters,
-    used.length,
-    (values, out) => {
-      const model: MosfetModel = { ...fixed, ...values, polarity, referenceTemperature: temperature };
-      if (polarity === 'pmos') model.thresholdVoltage = -Number(model.thresholdVoltage);
+  const copies = new PartCopies<MosfetModel>(
+    vgs.map((_, k) => `sample${k}`),
+    (model) => {
       const circuit = new Circuit();
       vgs.forEach((v, k) => {
         circuit
@@ -95,7 +92,16 @@ export function fitMosfet(
             model,
           );
       });
-      const op = operatingPoint(circuit, { temperature, junctionConductance: FIT_JUNCTION_CONDUCTANCE });
+      return circuit;
+    },
+  );
+  const fit = fitParameters(
+    parameters,
+    used.length,
+    (values, out) => {
+      const model: MosfetModel = { ...fixed, ...values, polarity, referenceTemperature: temperature };
+      if (polarity === 'pmos') model.thresholdVoltage = -Number(model.thresholdVoltage);
+      const op = copies.solve(model, { temperature, junctionConductance: FIT_JUNCTION_CONDUCTANCE });
       vgs.forEach((_, k) => {
         const predicted = op.mosfet(`sample${k}`).id;
         out[k] = law === 'charge-based' ? Math.log(predicted / id[k]!) : (predicted - id[k]!) / largest;
