@@ -45,6 +45,12 @@ export class PreparedCircuit {
   #workspace: NewtonWorkspace;
   readonly #original: readonly ElementRecord[];
   #compilations = 1;
+  /**
+   * Whether every device of the present system belongs to this prepared circuit alone (no fork, no
+   * earlier system, no returned result shares it), so that {@link PreparedCircuit.revalueInPlace} may
+   * change it.
+   */
+  #ownsDevices = false;
 
   /** @internal Use {@link prepareCircuit}; `compiled` shares an existing compilation of `records`. */
   constructor(records: readonly ElementRecord[], compiled?: CompiledSystem) {
@@ -106,6 +112,39 @@ export class PreparedCircuit {
     return this;
   }
 
+  /**
+   * @internal Give the elements at `positions` the records `records` (the same elements with other
+   * values, checked as {@link PreparedCircuit.setValues} checks them) by changing the devices in place:
+   * no device object, slot array or system per change. For callers that read every result before the
+   * next change (a Monte Carlo sample, a worst-case vertex): a result solved before this call must not
+   * be read after it. The first call copies the devices this prepared circuit shares.
+   */
+  revalueInPlace(positions: readonly number[], records: readonly ElementRecord[]): void {
+    if (!this.#ownsDevices) {
+      const own = withRecords(this.#system, this.#system.records);
+      if (own === null) throw new Error('a system could not be rebound to its own records');
+      this.#system = own;
+      this.#workspace.useSystem(own);
+      this.#ownsDevices = true;
+    }
+    const devices = this.#system.devices;
+    const present = this.#system.records as ElementRecord[];
+    const rebound: ElementRecord[] = [];
+    for (let j = 0; j < positions.length; j++) {
+      const k = positions[j]!;
+      const record = records[j]!;
+      if (devices[k]!.revalue?.(record) === true) present[k] = record;
+      else rebound.push(record);
+    }
+    // The linear part of the matrix was loaded with the old values.
+    this.#workspace.linearFor = null;
+    if (rebound.length > 0) {
+      // New devices for the rest (its own, so ownership holds), compiled afresh if the topology changed.
+      this.#apply(rebound);
+      this.#ownsDevices = true;
+    }
+  }
+
   /** The present value of a parameter (a model parameter's default when it was never given). */
   value(element: string, parameter: string): number {
     return parameterValue(this.#record(element), parameter);
@@ -124,6 +163,8 @@ export class PreparedCircuit {
    */
   operatingPoint(options?: OperatingPointOptions): OperatingPoint {
     requireOptions(options);
+    // The result reads these devices: a later in-place change must copy them first.
+    this.#ownsDevices = false;
     const solver = this.solver(resolveOptions(options));
     startFromGuess(solver);
     return solveFromCurrent(solver, conditionsAt(solver.options.temperature, solver.options));
@@ -162,6 +203,7 @@ export class PreparedCircuit {
   }
 
   #apply(changed: readonly ElementRecord[]): void {
+    this.#ownsDevices = false;
     const next = withRecords(this.#system, changed);
     if (next !== null) {
       this.#system = next;

@@ -156,6 +156,14 @@ export interface Device {
   allocateBranches?(ctx: AllocationContext): void;
   /** Take matrix slots and resolve references. */
   bind(ctx: BindContext): void;
+  /**
+   * Take the values of `record` (this element with other parameter values, as a value change on a
+   * prepared circuit makes it) in place, keeping the unknowns and matrix slots bound at compile time,
+   * and forget every constant derived from the old values. Returns false, changing nothing, when the
+   * new values would need other unknowns or slots (a terminal resistance appearing, say): the caller
+   * then binds a new device. Absent: every value change binds a new device.
+   */
+  revalue?(record: ElementRecord): boolean;
   /** Set the quantities that depend on the analysis conditions (temperature, junction conductance). */
   prepare?(conditions: Conditions): void;
   /** Add the Newton companion at ctx.x. */

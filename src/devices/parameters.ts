@@ -98,13 +98,47 @@ export function withDefaults<K extends string>(
   table: ParameterTable<K>,
   given: Partial<Record<K, number>>,
 ): Record<K, number> {
+  let listed = listedTables.get(table);
+  if (listed === undefined) {
+    const keys = Object.keys(table);
+    listed = { keys, defaults: keys.map((key) => table[key as K].defaultValue) };
+    listedTables.set(table, listed);
+  }
+  const { keys, defaults } = listed;
   const out = {} as Record<K, number>;
-  for (const key of Object.keys(table) as K[]) {
+  for (let k = 0; k < keys.length; k++) {
+    const key = keys[k] as K;
     const v = given[key];
-    out[key] = v === undefined ? table[key].defaultValue : v;
+    out[key] = v === undefined ? defaults[k]! : v;
   }
   return out;
 }
+
+/**
+ * Turn `out`, the result of {@link withDefaults} for the parameters `before`, into the result for
+ * `given`, touching only the keys either of them names: a value change on a compiled device (a Monte
+ * Carlo sample) changes a parameter or two of a table of dozens.
+ */
+export function updateWithDefaults<K extends string>(
+  table: ParameterTable<K>,
+  out: Record<K, number>,
+  before: Partial<Record<K, number>>,
+  given: Partial<Record<K, number>>,
+): void {
+  for (const key in before) {
+    if (given[key] === undefined && Object.hasOwn(table, key)) out[key] = table[key].defaultValue;
+  }
+  for (const key in given) {
+    const v = given[key];
+    if (v !== undefined && Object.hasOwn(table, key)) out[key] = v;
+  }
+}
+
+/** Each table's keys and defaults, listed once: a value change re-reads a model often. */
+const listedTables = new WeakMap<
+  ParameterTable<string>,
+  { readonly keys: readonly string[]; readonly defaults: readonly number[] }
+>();
 
 /** 'a diode', 'an op-amp': the indefinite article for a kind name in messages. */
 function article(kindName: string): string {

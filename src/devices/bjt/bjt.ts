@@ -38,7 +38,7 @@ import {
   saturationCurrentAt,
 } from '../junction.js';
 import { flickerNoise, shotNoise, thermalNoise } from '../noise-densities.js';
-import { withDefaults } from '../parameters.js';
+import { updateWithDefaults, withDefaults } from '../parameters.js';
 import { addConductance, conductanceSlots } from '../stamp.js';
 import { BJT_PARAMETERS } from './bjt-model.js';
 import type { BjtRecord } from './record.js';
@@ -49,13 +49,21 @@ export const FORWARD_BIAS_THRESHOLD = 16;
 /** The operating region of a bipolar transistor, from the bias of its two junctions. */
 export type BjtRegion = 'cutoff' | 'forward-active' | 'reverse-active' | 'saturation';
 
+/** Whether a terminal resistance of `record` is present (above 0, given or by default). */
+function present(
+  record: BjtRecord,
+  name: 'collectorResistance' | 'baseResistance' | 'emitterResistance',
+): boolean {
+  return (record.model[name] ?? BJT_PARAMETERS[name].defaultValue) > 0;
+}
+
 /** A compiled bipolar transistor. */
 export class Bjt implements Device {
   readonly nonlinear = true;
   readonly name: string;
   private readonly p: ReturnType<typeof withDefaults<keyof typeof BJT_PARAMETERS>>;
   /** +1 for npn, −1 for pnp. */
-  private readonly sign: number;
+  private sign: number;
   /** The junctions' nodes: the terminals, or the internal nodes behind the terminal resistances. */
   private c = 0;
   private b = 0;
@@ -70,7 +78,7 @@ export class Bjt implements Device {
   private sRe: Int32Array = new Int32Array(0);
   private kneeCurrent = Number.POSITIVE_INFINITY;
   /** Whether any terminal resistance is present: read in every load without touching the parameters. */
-  private readonly hasSeries: boolean;
+  private hasSeries: boolean;
   /** ∂(I_S·e_f/q_h)/∂vbe at the last evaluation: the slope of the forward charge over τF. */
   private forwardChargeSlope = 0;
   // Slots of rows (c, b, e) × columns (c, b, e), row-major, then the two junction capacitors.
@@ -107,17 +115,39 @@ export class Bjt implements Device {
   private cpi = 0;
   private cmu = 0;
 
-  constructor(readonly record: BjtRecord) {
+  constructor(public record: BjtRecord) {
     this.name = record.name;
     this.p = withDefaults(BJT_PARAMETERS, record.model);
+    this.sign = 1;
+    this.hasSeries = false;
+    this.take(record, this.p);
+  }
+  /** Take other model values; a terminal resistance appearing or vanishing needs a new binding. */
+  revalue(record: BjtRecord): boolean {
+    const p = this.p;
+    if (
+      present(record, 'collectorResistance') !== p.collectorResistance > 0 ||
+      present(record, 'baseResistance') !== p.baseResistance > 0 ||
+      present(record, 'emitterResistance') !== p.emitterResistance > 0
+    ) {
+      return false;
+    }
+    updateWithDefaults(BJT_PARAMETERS, p, this.record.model, record.model);
+    this.record = record;
+    this.take(record, p);
+    return true;
+  }
+  /** The constants of the load that follow from the model values alone; the next prepare redoes the rest. */
+  private take(record: BjtRecord, p: typeof this.p): void {
     this.sign = record.polarity === 'npn' ? 1 : -1;
-    this.forwardBeta = this.p.forwardBeta;
-    this.reverseBeta = this.p.reverseBeta;
-    this.earlyVoltage = this.p.earlyVoltage;
+    this.forwardBeta = p.forwardBeta;
+    this.reverseBeta = p.reverseBeta;
+    this.earlyVoltage = p.earlyVoltage;
     this.dqdv = this.earlyVoltage === Number.POSITIVE_INFINITY ? 0 : 1 / this.earlyVoltage;
-    this.kneeCurrent = this.p.kneeCurrent;
-    this.hasSeries =
-      this.p.collectorResistance > 0 || this.p.baseResistance > 0 || this.p.emitterResistance > 0;
+    this.kneeCurrent = p.kneeCurrent;
+    this.hasSeries = p.collectorResistance > 0 || p.baseResistance > 0 || p.emitterResistance > 0;
+    this.preparedTemperature = Number.NaN;
+    this.preparedThermalVoltage = Number.NaN;
   }
   allocateNodes(ctx: AllocationContext): void {
     const p = this.p;

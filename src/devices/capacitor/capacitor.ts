@@ -11,8 +11,13 @@ export class Capacitor implements Device {
   private a = 0;
   private b = 0;
   private s: Int32Array = new Int32Array(0);
-  constructor(readonly record: CapacitorRecord) {
+  constructor(public record: CapacitorRecord) {
     this.name = record.name;
+  }
+  /** Take other values of the same element: its unknowns and slots stay. */
+  revalue(record: CapacitorRecord): boolean {
+    this.record = record;
+    return true;
   }
   bind(ctx: BindContext): void {
     this.a = ctx.node(this.record.a);

@@ -13,8 +13,13 @@ export class Vcvs implements Device {
   readonly name: string;
   private k = 0;
   private s: Int32Array = new Int32Array(0);
-  constructor(readonly record: VcvsRecord) {
+  constructor(public record: VcvsRecord) {
     this.name = record.name;
+  }
+  /** Take other values of the same element: its unknowns and slots stay. */
+  revalue(record: VcvsRecord): boolean {
+    this.record = record;
+    return true;
   }
   allocateBranches(ctx: AllocationContext): void {
     this.k = ctx.branch(this.name);
@@ -58,8 +63,13 @@ export class Vccs implements Device {
   private cp = 0;
   private cm = 0;
   private s: Int32Array = new Int32Array(0);
-  constructor(readonly record: VccsRecord) {
+  constructor(public record: VccsRecord) {
     this.name = record.name;
+  }
+  /** Take other values of the same element: its unknowns and slots stay. */
+  revalue(record: VccsRecord): boolean {
+    this.record = record;
+    return true;
   }
   bind(ctx: BindContext): void {
     const r = this.record;
@@ -88,8 +98,13 @@ export class Ccvs implements Device {
   readonly name: string;
   private k = 0;
   private s: Int32Array = new Int32Array(0);
-  constructor(readonly record: CcvsRecord) {
+  constructor(public record: CcvsRecord) {
     this.name = record.name;
+  }
+  /** Take other values of the same element: its unknowns and slots stay. */
+  revalue(record: CcvsRecord): boolean {
+    this.record = record;
+    return true;
   }
   allocateBranches(ctx: AllocationContext): void {
     this.k = ctx.branch(this.name);
@@ -124,8 +139,13 @@ export class Cccs implements Device {
   readonly name: string;
   private control = 0;
   private s: Int32Array = new Int32Array(0);
-  constructor(readonly record: CccsRecord) {
+  constructor(public record: CccsRecord) {
     this.name = record.name;
+  }
+  /** Take other values of the same element: its unknowns and slots stay. */
+  revalue(record: CccsRecord): boolean {
+    this.record = record;
+    return true;
   }
   bind(ctx: BindContext): void {
     const r = this.record;

@@ -12,9 +12,15 @@ export class CurrentSource implements Device {
   dc: number;
   private from = 0;
   private to = 0;
-  constructor(readonly record: CurrentSourceRecord) {
+  constructor(public record: CurrentSourceRecord) {
     this.name = record.name;
     this.dc = record.dc;
+  }
+  /** Take other values of the same element: its unknowns and slots stay. */
+  revalue(record: CurrentSourceRecord): boolean {
+    this.record = record;
+    this.dc = record.dc;
+    return true;
   }
   bind(ctx: BindContext): void {
     this.from = ctx.node(this.record.from);

@@ -30,7 +30,7 @@ import {
   saturationCurrentAt,
 } from '../junction.js';
 import { flickerNoise, shotNoise, thermalNoise } from '../noise-densities.js';
-import { withDefaults } from '../parameters.js';
+import { updateWithDefaults, withDefaults } from '../parameters.js';
 import { addConductance, addCurrent, conductanceSlots } from '../stamp.js';
 import { DIODE_PARAMETERS } from './diode-model.js';
 import type { DiodeRecord } from './record.js';
@@ -62,11 +62,26 @@ export class Diode implements Device {
   private g = 0;
   private gDiffusion = 0;
 
-  constructor(readonly record: DiodeRecord) {
+  constructor(public record: DiodeRecord) {
     this.name = record.name;
     this.p = withDefaults(DIODE_PARAMETERS, record.model);
-    this.breakdownVoltage = this.p.breakdownVoltage;
-    if (this.p.seriesResistance > 0) this.seriesConductance = 1 / this.p.seriesResistance;
+    this.take(this.p);
+  }
+  /** Take other model values; a series resistance appearing or vanishing needs a new binding. */
+  revalue(record: DiodeRecord): boolean {
+    const series = record.model.seriesResistance ?? DIODE_PARAMETERS.seriesResistance.defaultValue;
+    if (series > 0 !== this.p.seriesResistance > 0) return false;
+    updateWithDefaults(DIODE_PARAMETERS, this.p, this.record.model, record.model);
+    this.record = record;
+    this.take(this.p);
+    return true;
+  }
+  /** The constants that follow from the model values alone; the next prepare redoes the rest. */
+  private take(p: typeof this.p): void {
+    this.breakdownVoltage = p.breakdownVoltage;
+    this.seriesConductance = p.seriesResistance > 0 ? 1 / p.seriesResistance : 0;
+    this.preparedTemperature = Number.NaN;
+    this.preparedThermalVoltage = Number.NaN;
   }
   allocateNodes(ctx: AllocationContext): void {
     if (this.p.seriesResistance > 0) this.j = ctx.internalNode(this.name, 'junction');

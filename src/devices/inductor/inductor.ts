@@ -10,8 +10,13 @@ export class Inductor implements Device {
   readonly name: string;
   private k = 0;
   private s: Int32Array = new Int32Array(0);
-  constructor(readonly record: InductorRecord) {
+  constructor(public record: InductorRecord) {
     this.name = record.name;
+  }
+  /** Take other values of the same element: its unknowns and slots stay. */
+  revalue(record: InductorRecord): boolean {
+    this.record = record;
+    return true;
   }
   allocateBranches(ctx: AllocationContext): void {
     this.k = ctx.branch(this.name);

@@ -25,7 +25,7 @@ import type {
   NonlinearCurrent,
 } from '../device.js';
 import { channelThermalNoise, chargeBasedChannelThermalNoise, flickerNoise } from '../noise-densities.js';
-import { withDefaults } from '../parameters.js';
+import { updateWithDefaults, withDefaults } from '../parameters.js';
 import { addConductance, conductanceSlots } from '../stamp.js';
 import {
   type ChargeModelConstants,
@@ -48,16 +48,22 @@ export class Mosfet implements Device {
   readonly name: string;
   private readonly p: ReturnType<typeof withDefaults<keyof typeof MOSFET_PARAMETERS>>;
   /** +1 for nmos, −1 for pmos. */
-  private readonly sign: number;
+  private sign = 1;
   /** |Vth0| in the mirrored frame, at the analysis temperature. */
-  private vth0: number;
+  private vth0 = 0;
   /** Vth0 with its sign, as given, at the reference temperature. */
-  private readonly signedThreshold: number;
+  private signedThreshold = 0;
   /** β at the analysis temperature. */
-  private beta: number;
+  private beta = 0;
   /** Whether the charge-based model (a slope factor given) replaces the square law. */
-  private readonly chargeBased: boolean;
-  private readonly charge: { -readonly [K in keyof ChargeModelConstants]: number };
+  private chargeBased = false;
+  private readonly charge: { -readonly [K in keyof ChargeModelConstants]: number } = {
+    thresholdVoltage: 0,
+    gainFactor: 0,
+    slopeFactor: Number.NaN,
+    channelLengthModulation: 0,
+    thermalVoltage: Number.NaN,
+  };
   /** [id, gm, gds, gmb, if, ir] of the last charge-based evaluation. */
   private readonly chargeState = new Float64Array(6);
   private d = 0;
@@ -70,10 +76,10 @@ export class Mosfet implements Device {
   /** The temperature the constants were last prepared for (NaN: never). */
   private preparedTemperature = Number.NaN;
   // The square law's constants, read once from the parameters: λ, γ, φ and √φ.
-  private readonly lambda: number;
-  private readonly gamma: number;
-  private readonly phi: number;
-  private readonly rootPhi: number;
+  private lambda = 0;
+  private gamma = 0;
+  private phi = 0;
+  private rootPhi = 0;
   private sGs: Int32Array = new Int32Array(0);
   private sGd: Int32Array = new Int32Array(0);
   private junctionConductance = 0;
@@ -88,26 +94,38 @@ export class Mosfet implements Device {
   private reversed = false;
   private regionNow: MosfetRegion = 'cutoff';
 
-  constructor(readonly record: MosfetRecord) {
+  constructor(public record: MosfetRecord) {
     this.name = record.name;
     this.p = withDefaults(MOSFET_PARAMETERS, record.model);
+    this.take(record);
+  }
+  /** Take other model values: a MOSFET's unknowns and slots never depend on them. */
+  revalue(record: MosfetRecord): boolean {
+    updateWithDefaults(MOSFET_PARAMETERS, this.p, this.record.model, record.model);
+    this.record = record;
+    this.take(record);
+    return true;
+  }
+  /** The constants that follow from the model values alone; the next prepare redoes the rest. */
+  private take(record: MosfetRecord): void {
+    const p = this.p;
     this.sign = record.polarity === 'nmos' ? 1 : -1;
     const given = record.model.thresholdVoltage;
     this.signedThreshold = given === undefined ? defaultThreshold(record.polarity) : given;
     this.vth0 = this.sign * this.signedThreshold;
-    this.beta = this.p.gainFactor;
-    this.lambda = this.p.channelLengthModulation;
-    this.gamma = this.p.bodyEffect;
-    this.phi = this.p.surfacePotential;
+    this.beta = p.gainFactor;
+    this.lambda = p.channelLengthModulation;
+    this.gamma = p.bodyEffect;
+    this.phi = p.surfacePotential;
     this.rootPhi = Math.sqrt(this.phi);
-    this.chargeBased = !Number.isNaN(this.p.slopeFactor);
-    this.charge = {
-      thresholdVoltage: this.vth0,
-      gainFactor: this.beta,
-      slopeFactor: this.p.slopeFactor,
-      channelLengthModulation: this.p.channelLengthModulation,
-      thermalVoltage: Number.NaN,
-    };
+    this.chargeBased = !Number.isNaN(p.slopeFactor);
+    const charge = this.charge;
+    charge.thresholdVoltage = this.vth0;
+    charge.gainFactor = this.beta;
+    charge.slopeFactor = p.slopeFactor;
+    charge.channelLengthModulation = p.channelLengthModulation;
+    charge.thermalVoltage = Number.NaN;
+    this.preparedTemperature = Number.NaN;
   }
   bind(ctx: BindContext): void {
     this.d = ctx.node(this.record.drain);

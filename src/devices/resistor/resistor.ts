@@ -19,8 +19,13 @@ export class Resistor implements Device {
   private a = 0;
   private b = 0;
   private s: Int32Array = new Int32Array(0);
-  constructor(readonly record: ResistorRecord) {
+  constructor(public record: ResistorRecord) {
     this.name = record.name;
+  }
+  /** Take other values of the same element: its unknowns and slots stay. */
+  revalue(record: ResistorRecord): boolean {
+    this.record = record;
+    return true;
   }
   bind(ctx: BindContext): void {
     this.a = ctx.node(this.record.a);

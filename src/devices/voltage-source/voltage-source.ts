@@ -19,9 +19,15 @@ export class VoltageSource implements Device {
   dc: number;
   private k = 0;
   private s: Int32Array = new Int32Array(0);
-  constructor(readonly record: VoltageSourceRecord) {
+  constructor(public record: VoltageSourceRecord) {
     this.name = record.name;
     this.dc = record.dc;
+  }
+  /** Take other values of the same element: its unknowns and slots stay. */
+  revalue(record: VoltageSourceRecord): boolean {
+    this.record = record;
+    this.dc = record.dc;
+    return true;
   }
   allocateBranches(ctx: AllocationContext): void {
     this.k = ctx.branch(this.name);
