@@ -314,6 +314,12 @@ class AdjointContext {
     }
   }
 
+  /** y ← J⁻¹·y (y of length n + 1; y[n] is set to 0). */
+  solveDirect(y: Float64Array): void {
+    this.#jacobian.solver.solve(y);
+    y[this.system.n] = 0;
+  }
+
   /** Conditions at temperature T (the junction conductance kept). */
   conditionsAt(temperature: number): Conditions {
     return { ...this.conditions, temperature, thermalVoltage: thermalVoltage(temperature) };
@@ -489,6 +495,61 @@ function dcSensitivity(op: OperatingPoint, options: DcSensitivityOptions, only?:
   }
   if (only === undefined) entries.push(temperatureEntry(context, reader, lambda));
   return new Sensitivity(value, entries);
+}
+
+/** A parameter whose derivative of the solution {@link solutionDerivatives} takes. */
+export interface SolutionParameter {
+  /** The element's position in the circuit, or null for the temperature. */
+  readonly element: number | null;
+  readonly parameter: string;
+}
+
+/**
+ * dx/dp = −J⁻¹·∂F/∂p at the operating point, for each parameter: how every unknown moves per unit
+ * change of the parameter, to first order (one forward solve each with the converged Jacobian). A
+ * parameter whose change alters the unknowns, or whose derivative is not finite, gets zeros. Used as
+ * a predictor (a start closer to a nearby solution than the operating point itself), never as an
+ * answer: whatever starts from it is solved and checked.
+ */
+export function solutionDerivatives(
+  op: OperatingPoint,
+  parameters: readonly SolutionParameter[],
+): Float64Array[] {
+  const context = new AdjointContext(op);
+  const { system, x } = context;
+  const n = system.n;
+  const work = new Float64Array(n + 1);
+  const share = new Float64Array(n + 1);
+  return parameters.map(({ element, parameter }) => {
+    const dF = new Float64Array(n + 1);
+    if (element === null) {
+      const T = context.conditions.temperature;
+      // Central difference of the whole residual over the temperature.
+      for (const [at, sign] of [
+        [T + TEMPERATURE_STEP, 1],
+        [T - TEMPERATURE_STEP, -1],
+      ] as const) {
+        prepareDevices(system, context.conditionsAt(at));
+        for (let k = 0; k < system.devices.length; k++) {
+          const e = context.unknownsOf(k);
+          dcShare(system.devices[k]!, e, x, context.scratch, system, share);
+          for (const u of e.unknowns) dF[u]! += (sign * share[u]!) / (2 * TEMPERATURE_STEP);
+        }
+      }
+      prepareDevices(system, context.conditions);
+    } else {
+      const step = context.parameterStep(element, parameter);
+      if (step === null) return dF;
+      context.dcDerivative(element, step, dF, work);
+    }
+    dF[n] = 0;
+    context.solveDirect(dF);
+    for (let u = 0; u < n; u++) {
+      if (!Number.isFinite(dF[u]!)) return dF.fill(0);
+      dF[u] = -dF[u]!;
+    }
+    return dF;
+  });
 }
 
 /**

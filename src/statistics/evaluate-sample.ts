@@ -6,6 +6,7 @@
  * that is what makes a run bit-identical for any number of workers and any split.
  */
 
+import { parameterVariant } from '../analysis/element-parameters.js';
 import {
   conditionsAt,
   type OperatingPoint,
@@ -14,8 +15,9 @@ import {
 } from '../analysis/operating-point.js';
 import { type OperatingPointOptions, type ResolvedOptions, resolveOptions } from '../analysis/options.js';
 import { PreparedCircuit } from '../analysis/prepared.js';
+import { solutionDerivatives } from '../analysis/sensitivity.js';
 import type { ElementRecord } from '../circuit/elements.js';
-import { invalidValue } from '../errors/messages.js';
+import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
 import type { MeasureSet } from './measures.js';
 import type { VariedParameter } from './tolerances.js';
@@ -37,7 +39,18 @@ export class SampleEvaluator {
   readonly #start: Float64Array | null;
   /** The nominal operating point, or the error that stopped it. */
   readonly nominal: OperatingPoint | QuiescentError;
-  readonly #changes: { element: string; parameter: string; value: number }[];
+  /** The varied elements, one entry per element however many of its parameters vary. */
+  readonly #elements: readonly VariedElement[];
+  /** Each varied element's position in the circuit, and its record of the present sample. */
+  readonly #positions: readonly number[];
+  readonly #records: ElementRecord[];
+  /**
+   * How the nominal solution moves per unit change of each varied parameter (dx/dp, null where none
+   * is kept), or null without a nominal solution: a sample starts from the first-order prediction
+   * x₀ + Σ dx/dpⱼ·Δpⱼ, which saves Newton iterations where a parameter (the temperature above all)
+   * moves every junction.
+   */
+  readonly #directions: readonly (Float64Array | null)[] | null;
 
   constructor(
     records: readonly ElementRecord[],
@@ -49,9 +62,9 @@ export class SampleEvaluator {
     this.#options = resolveOptions(options);
     this.#varied = varied;
     this.#measures = measures;
-    this.#changes = varied
-      .filter((p) => p.element !== null)
-      .map((p) => ({ element: p.element!, parameter: p.parameter, value: p.nominal }));
+    this.#elements = variedElements(this.#base, varied);
+    this.#positions = this.#elements.map((e) => e.position);
+    this.#records = this.#elements.map((e) => e.nominal);
     // The nominal solve comes first on every worker, so the LU ordering of the pattern is always the
     // nominal circuit's, whichever sample a worker starts with.
     let nominal: OperatingPoint | QuiescentError;
@@ -63,6 +76,7 @@ export class SampleEvaluator {
     }
     this.nominal = nominal;
     this.#start = nominal instanceof QuiescentError ? null : nominal.x;
+    this.#directions = nominal instanceof QuiescentError ? null : predictorDirections(nominal, varied);
     this.#prepared = this.#base.fork();
   }
 
@@ -99,27 +113,45 @@ export class SampleEvaluator {
   /** The operating point with `values`; throws what the solve throws. */
   solve(values: Float64Array): OperatingPoint {
     let temperature = this.#options.temperature;
-    let c = 0;
     for (let j = 0; j < this.#varied.length; j++) {
       if (this.#varied[j]!.element === null) {
         temperature = values[j]!;
         if (!(temperature > 0)) throw invalidValue(['temperature'], temperature, 'a temperature above 0 K');
-      } else this.#changes[c++]!.value = values[j]!;
+      }
+    }
+    // Every varied element gets its record for this sample, checked before any device changes.
+    for (let g = 0; g < this.#elements.length; g++) {
+      const element = this.#elements[g]!;
+      let record = element.first(values[element.indices[0]!]!);
+      for (let t = 1; t < element.indices.length; t++) {
+        record = parameterVariant(record, element.parameters[t]!)(values[element.indices[t]!]!);
+      }
+      this.#records[g] = record;
     }
     const prepared = this.#prepared;
     const before = prepared.compilations;
     const solver = prepared.solver(this.#options);
     const reanalyses = solver.workspace.solver.statistics().reanalyses;
     try {
-      prepared.setValues(this.#changes);
+      prepared.revalueInPlace(this.#positions, this.#records);
       const active = prepared.solver(this.#options);
-      if (this.#start !== null && active.workspace.x.length === this.#start.length) {
-        active.workspace.x.set(this.#start);
-      } else {
-        startFromGuess(active);
+      const conditions = conditionsAt(temperature, this.#options);
+      const nominalStart = this.#start !== null && active.workspace.x.length === this.#start.length;
+      if (nominalStart && this.#directions !== null) {
+        this.#predict(values, active.workspace.x);
+        active.workspace.solver.invalidate();
+        try {
+          return solveFromCurrent(active, conditions);
+        } catch (e) {
+          // A prediction can overshoot where the circuit is strongly nonlinear: the nominal start
+          // decides then, as it would without one.
+          if (!(e instanceof QuiescentError && e.code === 'no-convergence')) throw e;
+        }
       }
+      if (nominalStart) active.workspace.x.set(this.#start!);
+      else startFromGuess(active);
       active.workspace.solver.invalidate();
-      return solveFromCurrent(active, conditionsAt(temperature, this.#options));
+      return solveFromCurrent(active, conditions);
     } finally {
       // A change of topology or a new symbolic analysis would carry into later samples: start over
       // from the nominal circuit's structure instead.
@@ -132,4 +164,79 @@ export class SampleEvaluator {
       }
     }
   }
+
+  /** x ← the nominal solution moved to first order by the sample's changes. */
+  #predict(values: Float64Array, x: Float64Array): void {
+    const start = this.#start!;
+    const directions = this.#directions!;
+    const n = start.length - 1;
+    x.set(start);
+    for (let j = 0; j < directions.length; j++) {
+      const d = directions[j] ?? null;
+      const delta = values[j]! - this.#varied[j]!.nominal;
+      if (d === null || delta === 0) continue;
+      for (let u = 0; u < n; u++) x[u]! += d[u]! * delta;
+    }
+  }
+}
+
+/** The most numbers the predictor keeps (8 MB): past it, only the temperature's direction is kept. */
+const PREDICTOR_NUMBERS = 1 << 20;
+
+/**
+ * dx/dp at the nominal point for the varied parameters: every one when they fit in
+ * {@link PREDICTOR_NUMBERS}, else the temperature's alone (one direction that moves every junction);
+ * null when the Jacobian at the nominal point cannot be solved.
+ */
+function predictorDirections(
+  nominal: OperatingPoint,
+  varied: readonly VariedParameter[],
+): (Float64Array | null)[] | null {
+  const all = varied.length * (nominal.system.n + 1) <= PREDICTOR_NUMBERS;
+  const kept = varied.map((p) => all || p.element === null);
+  if (!kept.includes(true)) return null;
+  const parameters = varied
+    .filter((_, j) => kept[j])
+    .map((p) => ({
+      element: p.element === null ? null : nominal.system.deviceIndex.get(p.element)!,
+      parameter: p.parameter,
+    }));
+  let derivatives: Float64Array[];
+  try {
+    derivatives = solutionDerivatives(nominal, parameters);
+  } catch (e) {
+    if (e instanceof QuiescentError) return null;
+    throw e;
+  }
+  let next = 0;
+  return kept.map((keep) => (keep ? derivatives[next++]! : null));
+}
+
+/** The parameters varied on one element: where the element sits and which values it takes. */
+interface VariedElement {
+  readonly position: number;
+  readonly nominal: ElementRecord;
+  /** The nominal record with its first varied parameter set (checked as the builder checks it). */
+  readonly first: (value: number) => ElementRecord;
+  readonly parameters: readonly string[];
+  /** Where each of those parameters' values sits in a sample's row. */
+  readonly indices: readonly number[];
+}
+
+/** Group the varied parameters by element, in the order the elements first appear. */
+function variedElements(prepared: PreparedCircuit, varied: readonly VariedParameter[]): VariedElement[] {
+  const byName = new Map<string, { parameters: string[]; indices: number[] }>();
+  varied.forEach((p, j) => {
+    if (p.element === null) return;
+    const entry = byName.get(p.element) ?? { parameters: [], indices: [] };
+    entry.parameters.push(p.parameter);
+    entry.indices.push(j);
+    byName.set(p.element, entry);
+  });
+  return [...byName].map(([name, { parameters, indices }]) => {
+    const position = prepared.system.deviceIndex.get(name);
+    if (position === undefined) throw unknownElement(name);
+    const nominal = prepared.system.records[position]!;
+    return { position, nominal, first: parameterVariant(nominal, parameters[0]!), parameters, indices };
+  });
 }

@@ -4,6 +4,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { solutionDerivatives } from '../../src/analysis/sensitivity.js';
 import {
   acAnalysis,
   Circuit,
@@ -275,5 +276,52 @@ describe('AC sensitivities', () => {
     // less the share r_o takes (Sedra & Smith, Microelectronic Circuits, common-emitter amplifier).
     expect(s.of('collectorLoad', 'resistance').magnitudeDb).toBeGreaterThan(7.5);
     expect(s.of('collectorLoad', 'resistance').magnitudeDb).toBeLessThan(8.7);
+  });
+});
+
+describe('derivatives of the whole solution (the Monte Carlo predictor)', () => {
+  it('of a divider equal the closed form at every node', () => {
+    // v = V·R2/(R1 + R2): ∂v/∂R1 = −V·R2/(R1 + R2)², ∂v/∂V = R2/(R1 + R2); the supply node moves only
+    // with V (voltage divider, common practice, no source).
+    const circuit = new Circuit()
+      .voltageSource('supply', 'top', GROUND, { dc: 9 })
+      .resistor('upper', 'top', 'mid', '6k')
+      .resistor('lower', 'mid', GROUND, '3k');
+    const op = operatingPoint(circuit);
+    const [upper, supply] = solutionDerivatives(op, [
+      { element: 1, parameter: 'resistance' },
+      { element: 0, parameter: 'dc' },
+    ]);
+    const mid = op.system.nodeIndex.get('mid')!;
+    const top = op.system.nodeIndex.get('top')!;
+    expect(upper![mid]).toBeCloseTo((-9 * 3e3) / 9e3 ** 2, 9);
+    expect(upper![top]).toBeCloseTo(0, 12);
+    expect(supply![mid]).toBeCloseTo(1 / 3, 9);
+    expect(supply![top]).toBeCloseTo(1, 9);
+  });
+
+  it('match differences of independent solves, the temperature included', () => {
+    // A diode bias network (common practice, no source): central differences of two solves.
+    const network = new Circuit()
+      .voltageSource('supply', 'top', GROUND, { dc: 5 })
+      .resistor('feed', 'top', 'anode', '4.7k')
+      .diode('reference', 'anode', 'mid', { saturationCurrent: '2n', emissionCoefficient: 1.8 })
+      .resistor('sink', 'mid', GROUND, '1k');
+    const op = operatingPoint(network, TIGHT);
+    const anode = op.system.nodeIndex.get('anode')!;
+    const [feed, saturation, temperature] = solutionDerivatives(op, [
+      { element: 1, parameter: 'resistance' },
+      { element: 2, parameter: 'saturationCurrent' },
+      { element: null, parameter: 'temperature' },
+    ]);
+    const read = (o: OperatingPoint) => o.voltage('anode');
+    expect(feed![anode]).toBeCloseTo(differenced(network, 'feed', 'resistance', read), 9);
+    const bySaturation = differenced(network, 'reference', 'saturationCurrent', read);
+    expect(Math.abs(saturation![anode]! - bySaturation)).toBeLessThan(1e-5 * Math.abs(bySaturation));
+    const h = 0.01;
+    const T = op.temperature;
+    const up = read(operatingPoint(network, { ...TIGHT, temperature: T + h }));
+    const down = read(operatingPoint(network, { ...TIGHT, temperature: T - h }));
+    expect(temperature![anode]).toBeCloseTo((up - down) / (2 * h), 8);
   });
 });

@@ -8,6 +8,7 @@ import {
   mergeMonteCarlo,
   monteCarlo,
   monteCarloJob,
+  operatingPoint,
   QuiescentError,
   runMonteCarloJob,
 } from '../../src/index.js';
@@ -121,6 +122,51 @@ describe('monteCarlo on a divider', () => {
       expect(mc.values.size![k]).toBeCloseTo(1 / Math.sqrt(1 + wrc * wrc), 12);
       expect(mc.values.level![k]).toBeCloseTo(-10 * Math.log10(1 + wrc * wrc), 10);
       expect(mc.values.phase![k]).toBeCloseTo((-Math.atan(wrc) * 180) / Math.PI, 10);
+    }
+  });
+
+  it('solves every sample of a transistor stage as an independent solve of its drawn values', async () => {
+    // Each sample starts from a prediction made at the nominal point; whatever it starts from, its
+    // answer must be the operating point of the circuit built with its values (common practice, no
+    // source). The temperature spread moves every junction, the case the prediction is for.
+    const stage = (beta: number, feed: number, saturation: number) =>
+      new Circuit()
+        .voltageSource('supply', 'vcc', GROUND, { dc: 9 })
+        .resistor('feed', 'vcc', 'base', feed)
+        .resistor('baseLoad', 'base', GROUND, '10k')
+        .bjt(
+          'amplifier',
+          { collector: 'out', base: 'base', emitter: 'tail' },
+          {
+            polarity: 'npn',
+            forwardBeta: beta,
+            saturationCurrent: saturation,
+          },
+        )
+        .resistor('collectorLoad', 'vcc', 'out', '3.3k')
+        .resistor('tailLoad', 'tail', GROUND, '1k');
+    const mc = await monteCarlo(stage(150, 47e3, 1e-15), {
+      samples: 40,
+      seed: 11,
+      tolerances: [
+        { element: 'amplifier', parameter: 'forwardBeta', min: 80, max: 400 },
+        { element: 'amplifier', parameter: 'saturationCurrent', relative: 0.5 },
+        { element: 'feed', parameter: 'resistance', relative: 0.05, distribution: 'normal' },
+        { parameter: 'temperature', min: 233.15, max: 398.15 },
+      ],
+      measures: { out: 'out', collector: { device: 'amplifier', field: 'ic' } },
+    });
+    expect(mc.sampleIndex).toHaveLength(40);
+    for (let k = 0; k < 40; k++) {
+      const p = (key: string) => mc.parameters[key]![k]!;
+      const fresh = operatingPoint(
+        stage(p('amplifier.forwardBeta'), p('feed.resistance'), p('amplifier.saturationCurrent')),
+        { temperature: p('temperature') },
+      );
+      const out = fresh.voltage('out');
+      expect(Math.abs(mc.values.out![k]! - out)).toBeLessThanOrEqual(1e-6 * Math.abs(out) + 1e-9);
+      const ic = fresh.device('amplifier').ic as number;
+      expect(Math.abs(mc.values.collector![k]! - ic)).toBeLessThanOrEqual(1e-6 * Math.abs(ic) + 1e-12);
     }
   });
 
