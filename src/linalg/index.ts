@@ -6,6 +6,7 @@ export { reportSmallPivots, type SmallPivotReport } from './rank-report.js';
 export {
   createSparseRealSolver as createRealSolver,
   type LuStatistics,
+  type PivotOrder,
   type SparseRealSolver,
   type SparseSolverOptions,
 } from './solver.js';

@@ -15,7 +15,7 @@ import { analyzePattern, type Ordering } from './ordering.js';
 import { luRefactor } from './refactor.js';
 import { luSolve, luSolveMany, luSolveTranspose } from './triangular.js';
 import type { CscPattern, FactorStatus, RealLinearSolver } from './types.js';
-import { computeRowScale, createLuWorkspace, type LuWorkspace } from './workspace.js';
+import { computeRowScale, createLuWorkspace, type LuWorkspace, recordEntrySteps } from './workspace.js';
 
 /** Options of the sparse solvers. */
 export interface SparseSolverOptions {
@@ -55,6 +55,20 @@ export interface LuStatistics {
   readonly nnzU: number;
 }
 
+/**
+ * The pivot rows and the patterns of L and U of one fresh factorization, copied out of a solver so
+ * that another solver of the same pattern and analysis can refactor on them.
+ */
+export interface PivotOrder {
+  readonly symbolic: SymbolicLu;
+  readonly pinv: Int32Array;
+  readonly prow: Int32Array;
+  readonly Lp: Int32Array;
+  readonly Li: Int32Array;
+  readonly Up: Int32Array;
+  readonly Ui: Int32Array;
+}
+
 /** A sparse real solver: the interface plus several right-hand sides and statistics. */
 export interface SparseRealSolver extends RealLinearSolver {
   /** The symbolic analysis, once the first factor() has computed it. */
@@ -66,6 +80,15 @@ export interface SparseRealSolver extends RealLinearSolver {
   solveMany(B: Float64Array, count: number, stride: number, transpose?: boolean): void;
   /** Force the next factor() to search pivots afresh. */
   invalidate(): void;
+  /** A copy of the present pivot order, or null without a complete factorization. */
+  pivotOrder(): PivotOrder | null;
+  /**
+   * Make the next factor() refactor on `order` (taken from a solver of the same pattern), falling
+   * back to a fresh factorization as usual: every solve that starts from the same order computes
+   * the same numbers, whatever this solver factored before. An order from another analysis only
+   * forces a fresh factorization.
+   */
+  usePivotOrder(order: PivotOrder): void;
   statistics(): LuStatistics;
 }
 
@@ -93,6 +116,9 @@ export function createSparseRealSolver(
   let refactorizations = 0;
   let fallbacks = 0;
   let reanalyses = 0;
+  /** The order last adopted, and the fresh factorizations counted then. */
+  let adopted: PivotOrder | null = null;
+  let factorizationsAtAdoption = 0;
   return {
     n,
     get symbolic() {
@@ -138,6 +164,45 @@ export function createSparseRealSolver(
     },
     invalidate(): void {
       valid = false;
+    },
+    pivotOrder(): PivotOrder | null {
+      if (!valid || S === null) return null;
+      return {
+        symbolic: S,
+        pinv: N.pinv.slice(),
+        prow: N.prow.slice(),
+        Lp: N.Lp.slice(),
+        Li: N.Li.slice(0, N.Lp[n]!),
+        Up: N.Up.slice(),
+        Ui: N.Ui.slice(0, N.Up[n]!),
+      };
+    },
+    usePivotOrder(order: PivotOrder): void {
+      S ??= order.symbolic;
+      if (order.symbolic !== S) {
+        valid = false;
+        return;
+      }
+      // Refactorizations keep the patterns: only a fresh factorization since the last call moved them.
+      if (valid && adopted === order && factorizations === factorizationsAtAdoption) return;
+      N.pinv.set(order.pinv);
+      N.prow.set(order.prow);
+      N.Lp.set(order.Lp);
+      N.Up.set(order.Up);
+      if (N.Li.length < order.Li.length) {
+        N.Li = new Int32Array(order.Li.length);
+        N.Lx = new Float64Array(order.Li.length);
+      }
+      if (N.Ui.length < order.Ui.length) {
+        N.Ui = new Int32Array(order.Ui.length);
+        N.Ux = new Float64Array(order.Ui.length);
+      }
+      N.Li.set(order.Li);
+      N.Ui.set(order.Ui);
+      recordEntrySteps(pattern.Ai, N.pinv, ws);
+      adopted = order;
+      factorizationsAtAdoption = factorizations;
+      valid = true;
     },
     statistics(): LuStatistics {
       return { factorizations, refactorizations, fallbacks, reanalyses, nnzL: N.Lp[n]!, nnzU: N.Up[n]! + n };

@@ -10,6 +10,7 @@ import { parameterVariant } from '../analysis/element-parameters.js';
 import {
   conditionsAt,
   type OperatingPoint,
+  type Solver,
   solveFromCurrent,
   startFromGuess,
 } from '../analysis/operating-point.js';
@@ -19,6 +20,7 @@ import { solutionDerivatives } from '../analysis/sensitivity.js';
 import type { ElementRecord } from '../circuit/elements.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
+import type { PivotOrder } from '../linalg/index.js';
 import type { MeasureSet } from './measures.js';
 import type { VariedParameter } from './tolerances.js';
 
@@ -51,6 +53,8 @@ export class SampleEvaluator {
    * moves every junction.
    */
   readonly #directions: readonly (Float64Array | null)[] | null;
+  /** The pivot order of the nominal solve's last factorization (null: a fresh search per sample). */
+  readonly #pivots: PivotOrder | null;
 
   constructor(
     records: readonly ElementRecord[],
@@ -77,6 +81,7 @@ export class SampleEvaluator {
     this.nominal = nominal;
     this.#start = nominal instanceof QuiescentError ? null : nominal.x;
     this.#directions = nominal instanceof QuiescentError ? null : predictorDirections(nominal, varied);
+    this.#pivots = this.#base.solver(this.#options).workspace.solver.pivotOrder();
     this.#prepared = this.#base.fork();
   }
 
@@ -139,7 +144,7 @@ export class SampleEvaluator {
       const nominalStart = this.#start !== null && active.workspace.x.length === this.#start.length;
       if (nominalStart && this.#directions !== null) {
         this.#predict(values, active.workspace.x);
-        active.workspace.solver.invalidate();
+        this.#startPivots(active);
         try {
           return solveFromCurrent(active, conditions);
         } catch (e) {
@@ -150,7 +155,7 @@ export class SampleEvaluator {
       }
       if (nominalStart) active.workspace.x.set(this.#start!);
       else startFromGuess(active);
-      active.workspace.solver.invalidate();
+      this.#startPivots(active);
       return solveFromCurrent(active, conditions);
     } finally {
       // A change of topology or a new symbolic analysis would carry into later samples: start over
@@ -163,6 +168,15 @@ export class SampleEvaluator {
         this.#prepared = this.#base.fork();
       }
     }
+  }
+
+  /**
+   * Every sample factors on the nominal point's pivot order (a fresh search where that fails the
+   * pivot test): the same start for every sample, so no sample depends on those solved before it.
+   */
+  #startPivots(solver: Solver): void {
+    if (this.#pivots !== null) solver.workspace.solver.usePivotOrder(this.#pivots);
+    else solver.workspace.solver.invalidate();
   }
 
   /** x ← the nominal solution moved to first order by the sample's changes. */

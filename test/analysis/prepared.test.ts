@@ -269,10 +269,8 @@ describe('values changed in place (as a Monte Carlo sample changes them)', () =>
             1e-6 * Math.abs(expected) + 1e-8,
           );
         }
-        const ic = fresh.device('shift').ic as number;
-        expect(Math.abs((changed.device('shift').ic as number) - ic)).toBeLessThanOrEqual(
-          1e-6 * Math.abs(ic) + 1e-12,
-        );
+        const ic = fresh.bjt('shift').ic;
+        expect(Math.abs(changed.bjt('shift').ic - ic)).toBeLessThanOrEqual(1e-6 * Math.abs(ic) + 1e-12);
       }),
       { seed: 20261204, numRuns: 100 },
     );

@@ -165,7 +165,7 @@ describe('monteCarlo on a divider', () => {
       );
       const out = fresh.voltage('out');
       expect(Math.abs(mc.values.out![k]! - out)).toBeLessThanOrEqual(1e-6 * Math.abs(out) + 1e-9);
-      const ic = fresh.device('amplifier').ic as number;
+      const ic = fresh.bjt('amplifier').ic;
       expect(Math.abs(mc.values.collector![k]! - ic)).toBeLessThanOrEqual(1e-6 * Math.abs(ic) + 1e-12);
     }
   });
