@@ -8,7 +8,7 @@
 import type { ElementRecord } from '../circuit/elements.js';
 import type { ValueSpec } from '../devices/descriptor.js';
 import { checkOpAmpOptions, FINITE_MODEL_OPTIONS, isIdealOpAmp } from '../devices/op-amp/op-amp-model.js';
-import { inRange, type ParameterTable, parseParameters } from '../devices/parameters.js';
+import { checkParameter, inRange, type ParameterTable } from '../devices/parameters.js';
 import { descriptorOf } from '../devices/registry.js';
 import { invalidValue } from '../errors/messages.js';
 import type { QuiescentError } from '../errors/quiescent-error.js';
@@ -65,10 +65,12 @@ export function parameterVariant(record: ElementRecord, parameter: string): (val
     throw noSuchParameter(record, parameter, knownParameters(record));
   }
   const given = (record as unknown as Record<string, object | undefined>)[model.field];
-  const noun = descriptorOf(record).noun.replace(/^an? /, '');
+  const spec = model.table[parameter]!;
+  const modelPath = [record.name, model.field, parameter];
   return (value) => {
-    const parsed = parseParameters(model.table, { [parameter]: value }, [record.name, model.field], noun);
-    let parameters = { ...given, ...parsed } as Record<string, number>;
+    // The check the builder makes of a given parameter, for this one parameter.
+    const checked = checkParameter(spec, value, modelPath);
+    let parameters = { ...given, [parameter]: checked } as Record<string, number>;
     // The op-amp's limits must leave room between them, a check across two parameters.
     if (record.kind === 'op-amp') parameters = checkOpAmpOptions(parameters, [record.name, model.field]);
     return { ...record, [model.field]: parameters } as ElementRecord;

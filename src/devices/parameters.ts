@@ -69,28 +69,37 @@ export function parseParameters<K extends string>(
         known: Object.keys(table),
       });
     }
-    const k = key as K;
-    const spec = table[k];
     const raw = (given as Record<string, unknown>)[key];
     if (raw === undefined) continue;
-    let value: number;
-    if (
-      typeof raw === 'number' &&
-      ((spec.range === 'positive-or-infinite' && raw === Number.POSITIVE_INFINITY) ||
-        (spec.range === 'any-or-infinite' && Math.abs(raw) === Number.POSITIVE_INFINITY))
-    ) {
-      value = raw;
-    } else if (typeof raw === 'number' || typeof raw === 'string') {
-      value = readValue(raw, spec.unit, [...path, key]);
-    } else {
-      throw invalidValue([...path, key], raw, { range: spec.range, unit: spec.unit });
-    }
-    if (!inRange(value, spec.range))
-      throw invalidValue([...path, key], raw, { range: spec.range, unit: spec.unit });
-    checkMagnitude(value, [...path, key], raw);
-    out[k] = value;
+    out[key as K] = checkParameter(table[key as K], raw, [...path, key]);
   }
   return out;
+}
+
+/**
+ * One parameter value as given (a number or an SI string), checked against its specification: the
+ * number, or `invalid-value` at `path` (the parameter's own path).
+ */
+export function checkParameter(
+  spec: ParameterSpec,
+  raw: unknown,
+  path: readonly (string | number)[],
+): number {
+  let value: number;
+  if (
+    typeof raw === 'number' &&
+    ((spec.range === 'positive-or-infinite' && raw === Number.POSITIVE_INFINITY) ||
+      (spec.range === 'any-or-infinite' && Math.abs(raw) === Number.POSITIVE_INFINITY))
+  ) {
+    value = raw;
+  } else if (typeof raw === 'number' || typeof raw === 'string') {
+    value = readValue(raw, spec.unit, path);
+  } else {
+    throw invalidValue(path, raw, { range: spec.range, unit: spec.unit });
+  }
+  if (!inRange(value, spec.range)) throw invalidValue(path, raw, { range: spec.range, unit: spec.unit });
+  checkMagnitude(value, path, raw);
+  return value;
 }
 
 /** Fill in defaults: every parameter of the table, the given value where there is one. */
