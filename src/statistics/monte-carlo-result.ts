@@ -47,6 +47,17 @@ export interface MonteCarloJson {
   readonly failures: readonly MonteCarloFailure[];
 }
 
+/** @internal What a result is made of, as typed arrays. */
+export interface MonteCarloParts {
+  readonly seed: number;
+  readonly samples: number;
+  readonly range: readonly [number, number];
+  readonly values: Readonly<Record<string, Float64Array>>;
+  readonly sampleIndex: Int32Array;
+  readonly parameters: Readonly<Record<string, Float64Array>>;
+  readonly failures: readonly MonteCarloFailure[];
+}
+
 /** The samples of a run (or of one range of it) and their statistics. Immutable. */
 export class MonteCarlo {
   /** The seed of the run. */
@@ -66,29 +77,52 @@ export class MonteCarlo {
   readonly parameters: Readonly<Record<string, Float64Array>>;
   /** The samples whose analysis failed, in sample order, never dropped. */
   readonly failures: readonly MonteCarloFailure[];
-  /** Per measure: mean, standard deviation (n − 1), extremes and percentiles over the solved samples. */
-  readonly summary: Readonly<Record<string, MeasureSummary>>;
 
-  /** @internal Built by the runs and by {@link mergeMonteCarlo}. */
-  constructor(parts: {
-    seed: number;
-    samples: number;
-    range: readonly [number, number];
-    values: Record<string, Float64Array>;
-    sampleIndex: Int32Array;
-    parameters: Record<string, Float64Array>;
-    failures: readonly MonteCarloFailure[];
-  }) {
+  #summary: Readonly<Record<string, MeasureSummary>> | null = null;
+
+  /** @internal Built by the runs, by {@link mergeMonteCarlo} and from a worker's {@link MonteCarloParts}. */
+  constructor(parts: MonteCarloParts) {
     this.seed = parts.seed;
     this.samples = parts.samples;
     this.range = Object.freeze([parts.range[0], parts.range[1]] as const);
-    this.values = Object.freeze(parts.values);
+    this.values = Object.freeze({ ...parts.values });
     this.sampleIndex = parts.sampleIndex;
-    this.parameters = Object.freeze(parts.parameters);
+    this.parameters = Object.freeze({ ...parts.parameters });
     this.failures = Object.freeze(parts.failures.map((f) => Object.freeze({ ...f })));
-    const summary: Record<string, MeasureSummary> = {};
-    for (const [name, v] of Object.entries(parts.values)) summary[name] = Object.freeze(summarize(v));
-    this.summary = Object.freeze(summary);
+  }
+
+  /**
+   * Per measure: mean, standard deviation (n − 1), extremes and percentiles over the solved samples
+   * (computed on first reading: a part that is only merged never sorts its values).
+   */
+  get summary(): Readonly<Record<string, MeasureSummary>> {
+    if (this.#summary === null) {
+      const summary: Record<string, MeasureSummary> = {};
+      for (const [name, v] of Object.entries(this.values)) summary[name] = Object.freeze(summarize(v));
+      this.#summary = Object.freeze(summary);
+    }
+    return this.#summary;
+  }
+
+  /**
+   * @internal The result as typed arrays, for a worker thread to send back with its buffers
+   * transferred instead of copied through plain arrays; with the list of those buffers.
+   */
+  toParts(): { parts: MonteCarloParts; buffers: ArrayBuffer[] } {
+    const parts: MonteCarloParts = {
+      seed: this.seed,
+      samples: this.samples,
+      range: [this.range[0], this.range[1]],
+      values: { ...this.values },
+      sampleIndex: this.sampleIndex,
+      parameters: { ...this.parameters },
+      failures: this.failures,
+    };
+    const buffers = new Set<ArrayBuffer>();
+    for (const v of [...Object.values(parts.values), ...Object.values(parts.parameters), parts.sampleIndex]) {
+      buffers.add(v.buffer as ArrayBuffer);
+    }
+    return { parts, buffers: [...buffers] };
   }
 
   /** The measure names, in order. */

@@ -11,7 +11,7 @@ import type { Circuit } from '../circuit/circuit.js';
 import { cancelled, invalidValue } from '../errors/messages.js';
 import { type ErrorDetails, QuiescentError } from '../errors/quiescent-error.js';
 import { JobRun, type MonteCarloJobOptions, monteCarloJob, rangeOf } from './job.js';
-import { type MonteCarlo, type MonteCarloJson, mergeMonteCarlo } from './monte-carlo-result.js';
+import { MonteCarlo, type MonteCarloParts, mergeMonteCarlo } from './monte-carlo-result.js';
 import type { CancelSignal, ScriptLocation } from './signals.js';
 import { defaultWorkerScript, scriptArgument } from './worker-script.js';
 
@@ -135,8 +135,8 @@ async function runOnWorkers(
     signal.addEventListener('abort', onAbort, { once: true });
   });
   try {
-    const parts = (await Promise.race([Promise.all(tasks), aborted])) as MonteCarloJson[];
-    return mergeMonteCarlo(parts);
+    const parts = (await Promise.race([Promise.all(tasks), aborted])) as MonteCarloParts[];
+    return mergeMonteCarlo(parts.map((p) => new MonteCarlo(p)));
   } catch (e) {
     throw rebuiltError(e);
   } finally {
