@@ -11,6 +11,7 @@ const M0 = 0xd2511f53;
 const M1 = 0xcd9e8d57;
 const W0 = 0x9e3779b9;
 const W1 = 0xbb67ae85;
+const TWO_POW_MINUS_16 = 1 / 0x10000;
 
 /** The high 32 bits of the 64-bit product of two unsigned 32-bit words, exact in doubles. */
 function mulHigh(a: number, b: number): number {
@@ -21,7 +22,9 @@ function mulHigh(a: number, b: number): number {
   const low = aLow * bLow;
   const middle1 = aHigh * bLow + (low >>> 16);
   const middle2 = aLow * bHigh + (middle1 & 0xffff);
-  return (aHigh * bHigh + Math.floor(middle1 / 0x10000) + Math.floor(middle2 / 0x10000)) >>> 0;
+  // Both middle terms are below 2³³, so their quotients by 2¹⁶ fit in 17 bits: `| 0` truncates them
+  // exactly as the floor would (a multiplication by a power of two is exact), without a division.
+  return (aHigh * bHigh + ((middle1 * TWO_POW_MINUS_16) | 0) + ((middle2 * TWO_POW_MINUS_16) | 0)) >>> 0;
 }
 
 /**
