@@ -9,23 +9,30 @@
  * - 100,000 samples end to end on 2 workers.
  *
  * The machine's load average is printed with the figures: on a shared machine the worker figures
- * mean little. Run: npx tsx bench/monte-carlo.ts [--samples 4000] [--total 100000] [--skip-total]
+ * mean little. Run: npx tsx bench/monte-carlo.ts [--samples 4000] [--total 100000] [--skip-total] [--built]
  */
 import { loadavg } from 'node:os';
 import { performance } from 'node:perf_hooks';
 import { parseArgs } from 'node:util';
-import { Circuit, dcSweep, GROUND, linearSweep, type MonteCarloOptions, monteCarlo } from '../src/index.js';
+import type { Circuit as CircuitType, MonteCarloOptions } from '../src/index.js';
 
 const { values: args } = parseArgs({
   options: {
     samples: { type: 'string', default: '4000' },
     total: { type: 'string', default: '100000' },
     'skip-total': { type: 'boolean', default: false },
+    // The built package (run `npm run build` first): what users run, and what the workers load.
+    built: { type: 'boolean', default: false },
   },
 });
 
+const library: typeof import('../src/index.js') = args.built
+  ? await import('../dist/index.js' as string)
+  : await import('../src/index.js');
+const { Circuit, dcSweep, GROUND, linearSweep, monteCarlo } = library;
+
 /** Five direct-coupled common-emitter stages on a 12 V supply: 30 elements. */
-function transistorStage(): Circuit {
+function transistorStage(): CircuitType {
   const model = { polarity: 'npn', forwardBeta: 150, earlyVoltage: 90 } as const;
   const c = new Circuit()
     .voltageSource('supply', 'vcc', GROUND, { dc: 12 })
