@@ -5,7 +5,8 @@
  *
  * - per sample, in the calling thread, as a ratio to one point of a `dcSweep` of the same circuit
  *   (the floor: a warm-started solve of the same equations, measured in the same run);
- * - throughput of 2 worker threads against the calling thread alone (worker start-up included);
+ * - throughput of 2 worker threads against the calling thread alone (worker start-up included), and of
+ *   2 workers kept between runs (`startMonteCarloWorkers`, warmed by a first run);
  * - 100,000 samples end to end on 2 workers.
  *
  * The machine's load average is printed with the figures: on a shared machine the worker figures
@@ -29,7 +30,7 @@ const { values: args } = parseArgs({
 const library: typeof import('../src/index.js') = args.built
   ? await import('../dist/index.js' as string)
   : await import('../src/index.js');
-const { Circuit, dcSweep, GROUND, linearSweep, monteCarlo } = library;
+const { Circuit, dcSweep, GROUND, linearSweep, monteCarlo, startMonteCarloWorkers } = library;
 
 /** Five direct-coupled common-emitter stages on a 12 V supply: 30 elements. */
 function transistorStage(): CircuitType {
@@ -92,6 +93,15 @@ console.log(
     `×${(here / Math.max(1e-9, two - startUp)).toFixed(2)} past start-up; load ${load()}`,
 );
 
+// Workers kept between runs: warmed by one run, then timed on a second of the same size.
+const kept = startMonteCarloWorkers({ workers: 2 });
+await monteCarlo(circuit, { ...options, samples, pool: kept });
+const warm = await seconds(() => monteCarlo(circuit, { ...options, samples, pool: kept }));
+await kept.close();
+console.log(
+  `${samples} samples on 2 kept workers (warmed by a first run): ${warm.toFixed(2)} s: throughput ×${(here / warm).toFixed(2)}; load ${load()}`,
+);
+
 let total = 0;
 const totalSamples = Number(args.total);
 if (!args['skip-total']) {
@@ -111,6 +121,8 @@ console.log(
     twoWorkersSeconds: two,
     workerStartUpSeconds: startUp,
     throughputRatio: here / two,
+    keptWorkersSeconds: warm,
+    keptThroughputRatio: here / warm,
     totalSamples: args['skip-total'] ? 0 : totalSamples,
     totalSeconds: total,
     load: loadavg(),

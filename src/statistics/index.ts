@@ -14,6 +14,11 @@ export {
   mergeMonteCarlo,
   type SpecLimits,
 } from './monte-carlo-result.js';
+export {
+  MonteCarloWorkers,
+  type MonteCarloWorkersOptions,
+  startMonteCarloWorkers,
+} from './monte-carlo-workers.js';
 export type { CancelSignal, ScriptLocation } from './signals.js';
 export { type MeasureSummary, WILSON_Z, type YieldEstimate } from './summary.js';
 export type { Distribution, Tolerance } from './tolerances.js';

@@ -6,14 +6,13 @@
  * parts are merged in sample order, so the result is the same, bit for bit, for any worker count.
  */
 
-import workerpool from 'workerpool';
 import type { Circuit } from '../circuit/circuit.js';
 import { cancelled, invalidValue } from '../errors/messages.js';
 import { type ErrorDetails, QuiescentError } from '../errors/quiescent-error.js';
 import { JobRun, type MonteCarloJobOptions, monteCarloJob, rangeOf } from './job.js';
 import { MonteCarlo, type MonteCarloParts, mergeMonteCarlo } from './monte-carlo-result.js';
+import { MonteCarloWorkers, openPool } from './monte-carlo-workers.js';
 import type { CancelSignal, ScriptLocation } from './signals.js';
-import { defaultWorkerScript, scriptArgument } from './worker-script.js';
 
 /** Options of {@link monteCarlo}: the run's options, the operating-point options, and how to run. */
 export interface MonteCarloOptions extends MonteCarloJobOptions {
@@ -28,6 +27,11 @@ export interface MonteCarloOptions extends MonteCarloJobOptions {
    * module shipped beside the library, `quiescent/dist/monte-carlo-worker.js`).
    */
   readonly workerScript?: string | ScriptLocation;
+  /**
+   * Workers already running (from {@link startMonteCarloWorkers}), used instead of starting new ones
+   * and left running after the run; `workers` and `workerScript` are then the set's own.
+   */
+  readonly pool?: MonteCarloWorkers;
 }
 
 /** How long the calling thread computes before it lets other work (progress, an abort) run, in ms. */
@@ -57,7 +61,16 @@ const CHUNKS_PER_WORKER = 4;
  */
 export async function monteCarlo(circuit: Circuit, options: MonteCarloOptions): Promise<MonteCarlo> {
   const job = monteCarloJob(circuit, options);
-  const workers = options.workers ?? 1;
+  const kept = options.pool;
+  if (kept !== undefined) {
+    if (!(kept instanceof MonteCarloWorkers)) {
+      throw invalidValue(['options', 'pool'], kept, 'workers from startMonteCarloWorkers');
+    }
+    if (options.workers !== undefined || options.workerScript !== undefined) {
+      throw invalidValue(['options', 'pool'], 'workers with a worker count or script', 'a pool alone');
+    }
+  }
+  const workers = kept?.size ?? options.workers ?? 1;
   if (!Number.isInteger(workers) || workers < 1) {
     throw invalidValue(['options', 'workers'], workers, 'a whole number of workers, 1 or more');
   }
@@ -67,7 +80,7 @@ export async function monteCarlo(circuit: Circuit, options: MonteCarloOptions): 
   }
   const [start, end] = rangeOf(job.options);
   if (options.signal?.aborted === true) throw cancelled('Monte Carlo', 0, end - start);
-  if (workers === 1) return runHere(new JobRun(job), options);
+  if (workers === 1 && kept === undefined) return runHere(new JobRun(job), options);
   // The measures are checked here once (a nominal solve), so a wrong name fails before any worker starts.
   new JobRun({ ...job, options: { ...job.options, range: [start, start + 1] } });
   return runOnWorkers(job.document, job.options, [start, end], workers, options);
@@ -106,12 +119,7 @@ async function runOnWorkers(
 ): Promise<MonteCarlo> {
   const total = end - start;
   const chunks = Math.min(total, workers * CHUNKS_PER_WORKER);
-  const script = scriptArgument(options.workerScript ?? defaultWorkerScript());
-  const pool = workerpool.pool(script, {
-    maxWorkers: workers,
-    workerType: 'auto',
-    workerOpts: { type: 'module' },
-  });
+  const pool = options.pool?.pool ?? openPool(workers, options.workerScript);
   let done = 0;
   const tasks: ReturnType<typeof pool.exec>[] = [];
   for (let c = 0; c < chunks; c++) {
@@ -142,7 +150,7 @@ async function runOnWorkers(
   } finally {
     if (onAbort !== undefined) signal!.removeEventListener('abort', onAbort);
     for (const task of tasks) task.cancel();
-    await pool.terminate(true);
+    if (options.pool === undefined) await pool.terminate(true);
   }
 }
 
