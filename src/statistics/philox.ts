@@ -13,18 +13,13 @@ const W0 = 0x9e3779b9;
 const W1 = 0xbb67ae85;
 const TWO_POW_MINUS_16 = 1 / 0x10000;
 
-/** The high 32 bits of the 64-bit product of two unsigned 32-bit words, exact in doubles. */
+/**
+ * The high 32 bits of the 64-bit product of two unsigned 32-bit words, exact in doubles: with
+ * b = b₁·2¹⁶ + b₀, a·b₁ and a·b₀ are below 2⁴⁸, and ⌊a·b/2³²⌋ = ⌊(a·b₁ + ⌊a·b₀/2¹⁶⌋)/2¹⁶⌋.
+ */
 function mulHigh(a: number, b: number): number {
-  const aLow = a & 0xffff;
-  const aHigh = a >>> 16;
-  const bLow = b & 0xffff;
-  const bHigh = b >>> 16;
-  const low = aLow * bLow;
-  const middle1 = aHigh * bLow + (low >>> 16);
-  const middle2 = aLow * bHigh + (middle1 & 0xffff);
-  // Both middle terms are below 2³³, so their quotients by 2¹⁶ fit in 17 bits: `| 0` truncates them
-  // exactly as the floor would (a multiplication by a power of two is exact), without a division.
-  return (aHigh * bHigh + ((middle1 * TWO_POW_MINUS_16) | 0) + ((middle2 * TWO_POW_MINUS_16) | 0)) >>> 0;
+  const low = Math.floor(a * (b & 0xffff) * TWO_POW_MINUS_16);
+  return Math.floor((a * (b >>> 16) + low) * TWO_POW_MINUS_16);
 }
 
 /**
