@@ -42,6 +42,8 @@ export interface CompiledSystem {
   readonly nonlinear: boolean;
   /** Names of the elements touching each unknown (for messages about singular rows). */
   readonly elementsAt: readonly (readonly string[])[];
+  /** Computes {@link CompiledSystem.elementsAt} on its first call, then returns the same lists. */
+  readonly touching: () => readonly (readonly string[])[];
   readonly records: readonly ElementRecord[];
   /** The unknowns each device numbered for itself (internal nodes, then branches), by device position. */
   readonly allocations: readonly (readonly number[])[];
@@ -147,29 +149,52 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
   const nnz = pattern.Ai.length;
   store.fill(slots);
 
-  const elementsAt = once(() => elementsTouching(records, labels, nodeIndex, branchIndex, n));
   const deviceIndex = new Map<string, number>();
   for (let k = 0; k < devices.length; k++) deviceIndex.set(devices[k]!.name, k);
-  return {
+  return assemble({
     n,
     nodeCount,
     labels,
     nodeIndex,
     devices,
     deviceIndex,
-    deviceByName: deviceLookup(deviceIndex, devices),
     branchIndex,
     pattern,
     nnz,
     nodeDiagonal: diagonalRequest,
-    nonlinear: devices.some((d) => d.nonlinear),
-    get elementsAt() {
-      return elementsAt();
-    },
     records,
     allocations,
     ordering: { symbolic: null },
+    touching: lazyElementsTouching(records, labels, nodeIndex, branchIndex, n),
+  });
+}
+
+/**
+ * A compiled system from its parts. Built here, not where the parts were made: a function created
+ * inside compileCircuit (this getter, say) would keep that call's whole scope alive, its triplet and
+ * slot buffers included, as long as the system lives.
+ */
+function assemble(parts: Omit<CompiledSystem, 'deviceByName' | 'elementsAt' | 'nonlinear'>): CompiledSystem {
+  const touching = parts.touching;
+  return {
+    ...parts,
+    deviceByName: deviceLookup(parts.deviceIndex, parts.devices),
+    nonlinear: parts.devices.some((d) => d.nonlinear),
+    get elementsAt() {
+      return touching();
+    },
   };
+}
+
+/** {@link elementsTouching}, computed on first use (only messages need it). */
+function lazyElementsTouching(
+  records: readonly ElementRecord[],
+  labels: readonly UnknownLabel[],
+  nodeIndex: ReadonlyMap<string, number>,
+  branchIndex: ReadonlyMap<string, number>,
+  n: number,
+): () => readonly (readonly string[])[] {
+  return once(() => elementsTouching(records, labels, nodeIndex, branchIndex, n));
 }
 
 /** The name lookups of a bind context: node and branch-current unknowns by name. */
@@ -296,27 +321,24 @@ export function withRecords(
     devices[k] = device;
     records[k] = record;
   }
-  return {
+  // Values do not change which elements touch an unknown: the lists are shared. Nothing here keeps
+  // the previous system alive, however many value changes follow one another.
+  return assemble({
     n: system.n,
     nodeCount: system.nodeCount,
     labels: system.labels,
     nodeIndex: system.nodeIndex,
     devices,
     deviceIndex: system.deviceIndex,
-    deviceByName: deviceLookup(system.deviceIndex, devices),
     branchIndex: system.branchIndex,
     pattern: system.pattern,
     nnz: system.nnz,
     nodeDiagonal: system.nodeDiagonal,
-    nonlinear: devices.some((d) => d.nonlinear),
-    // Values do not change which elements touch an unknown.
-    get elementsAt() {
-      return system.elementsAt;
-    },
     records,
     allocations: system.allocations,
     ordering: system.ordering,
-  };
+    touching: system.touching,
+  });
 }
 
 /**
