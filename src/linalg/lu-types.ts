@@ -54,6 +54,16 @@ export interface PivotTolerances {
   readonly singularTolerance: number;
 }
 
+/**
+ * Room to reserve in each of L and U before a first factorization of a matrix on `pattern`: the
+ * entries of A plus a diagonal. Circuit matrices ordered by AMD fill in little (the stage chains of
+ * bench/ keep nnz(L) + nnz(U) = nnz(A)); where they fill more (a mesh, about six times), the
+ * factorization grows its storage by doubling, once per fresh factorization at most a few times.
+ */
+export function initialFactorCapacity(pattern: { readonly n: number; readonly Ap: Int32Array }): number {
+  return pattern.Ap[pattern.n]! + pattern.n;
+}
+
 /** Allocate a real factorization of order n with room for about `capacity` entries in L and in U. */
 export function createNumericLu(n: number, capacity: number): NumericLu {
   const cap = Math.max(capacity, n, 1);

@@ -8,7 +8,7 @@
  * lu.ts, −1 for a row (equation) that never became a pivot.
  */
 import { luFactor } from './lu.js';
-import { createNumericLu } from './lu-types.js';
+import { createNumericLu, initialFactorCapacity } from './lu-types.js';
 import { analyzePattern } from './ordering.js';
 import { type SparseSolverOptions, tolerancesOf } from './solver.js';
 import type { CscPattern } from './types.js';
@@ -39,7 +39,7 @@ export function reportSmallPivots(
   const n = pattern.n;
   const tol = tolerancesOf(options);
   const S = options.symbolic ?? analyzePattern(pattern, Ax, options.ordering ?? 'amd', tol.pivotTolerance);
-  const N = createNumericLu(n, 4 * pattern.Ap[n]! + n);
+  const N = createNumericLu(n, initialFactorCapacity(pattern));
   const ws = createLuWorkspace(n, pattern.Ap[n]!, false);
   const skipped = new Int32Array(n);
   computeRowScale(pattern.Ap, pattern.Ai, Ax, ws);

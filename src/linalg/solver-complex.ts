@@ -9,7 +9,12 @@
  */
 
 import { luFactorComplex, luRefactorComplex } from './lu-complex.js';
-import { type ComplexNumericLu, createComplexNumericLu, type SymbolicLu } from './lu-types.js';
+import {
+  type ComplexNumericLu,
+  createComplexNumericLu,
+  initialFactorCapacity,
+  type SymbolicLu,
+} from './lu-types.js';
 import { analyzePattern } from './ordering.js';
 import { type LuStatistics, type SparseSolverOptions, tolerancesOf } from './solver.js';
 import { luSolveComplex, luSolveTransposeComplex } from './triangular-complex.js';
@@ -37,7 +42,7 @@ export function createSparseComplexSolver(
   const tol = tolerancesOf(options);
   const ordering = options.ordering ?? 'amd';
   const ws = createLuWorkspace(n, nnz, true);
-  const N: ComplexNumericLu = createComplexNumericLu(n, 4 * nnz + n);
+  const N: ComplexNumericLu = createComplexNumericLu(n, initialFactorCapacity(pattern));
   let S: SymbolicLu | null = options.symbolic ?? null;
   let valid = false;
   let factorizations = 0;

@@ -10,7 +10,13 @@
  * whether N holds a complete factorization of the last values.
  */
 import { luFactor } from './lu.js';
-import { createNumericLu, type NumericLu, type PivotTolerances, type SymbolicLu } from './lu-types.js';
+import {
+  createNumericLu,
+  initialFactorCapacity,
+  type NumericLu,
+  type PivotTolerances,
+  type SymbolicLu,
+} from './lu-types.js';
 import { analyzePattern, type Ordering } from './ordering.js';
 import { luRefactor } from './refactor.js';
 import { luSolve, luSolveMany, luSolveTranspose } from './triangular.js';
@@ -109,7 +115,7 @@ export function createSparseRealSolver(
   const tol = tolerancesOf(options);
   const ordering = options.ordering ?? 'amd';
   const ws: LuWorkspace = createLuWorkspace(n, pattern.Ap[n]!, false);
-  const N: NumericLu = createNumericLu(n, 4 * pattern.Ap[n]! + n);
+  const N: NumericLu = createNumericLu(n, initialFactorCapacity(pattern));
   let S: SymbolicLu | null = options.symbolic ?? null;
   let valid = false;
   let factorizations = 0;
