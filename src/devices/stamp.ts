@@ -6,6 +6,9 @@
  */
 import type { BindContext } from './device.js';
 
+/** The slots of a device not bound yet: one shared empty array instead of one per field per device. */
+export const NO_SLOTS: Int32Array = new Int32Array(0);
+
 /** Slots of a conductance between unknowns a and b: [aa, ab, ba, bb]. */
 export function conductanceSlots(ctx: BindContext, a: number, b: number): Int32Array {
   return ctx.slots([a, a, a, b, b, a, b, b]);

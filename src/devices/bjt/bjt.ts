@@ -39,7 +39,7 @@ import {
 } from '../junction.js';
 import { flickerNoise, shotNoise, thermalNoise } from '../noise-densities.js';
 import { updateWithDefaults, withDefaults } from '../parameters.js';
-import { addConductance, conductanceSlots } from '../stamp.js';
+import { addConductance, conductanceSlots, NO_SLOTS } from '../stamp.js';
 import { BJT_PARAMETERS } from './bjt-model.js';
 import type { BjtRecord } from './record.js';
 
@@ -73,18 +73,18 @@ export class Bjt implements Device {
   private tb = 0;
   private te = 0;
   // Slots of the terminal resistances (unused where a resistance is 0).
-  private sRc: Int32Array = new Int32Array(0);
-  private sRb: Int32Array = new Int32Array(0);
-  private sRe: Int32Array = new Int32Array(0);
+  private sRc: Int32Array = NO_SLOTS;
+  private sRb: Int32Array = NO_SLOTS;
+  private sRe: Int32Array = NO_SLOTS;
   private kneeCurrent = Number.POSITIVE_INFINITY;
   /** Whether any terminal resistance is present: read in every load without touching the parameters. */
   private hasSeries: boolean;
   /** ∂(I_S·e_f/q_h)/∂vbe at the last evaluation: the slope of the forward charge over τF. */
   private forwardChargeSlope = 0;
   // Slots of rows (c, b, e) × columns (c, b, e), row-major, then the two junction capacitors.
-  private s: Int32Array = new Int32Array(0);
-  private sBe: Int32Array = new Int32Array(0);
-  private sBc: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
+  private sBe: Int32Array = NO_SLOTS;
+  private sBc: Int32Array = NO_SLOTS;
   private is = 0;
   private nfVt = 0;
   private nrVt = 0;

@@ -1,7 +1,7 @@
 /** The capacitor: open at DC, admittance jωC at angular frequency ω. */
 
 import type { AcLoadContext, BindContext, DcLoadContext, Device } from '../device.js';
-import { addConductance, conductanceSlots } from '../stamp.js';
+import { addConductance, conductanceSlots, NO_SLOTS } from '../stamp.js';
 import type { CapacitorRecord } from './record.js';
 
 /** A compiled capacitor. */
@@ -10,7 +10,7 @@ export class Capacitor implements Device {
   readonly name: string;
   private a = 0;
   private b = 0;
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   constructor(public record: CapacitorRecord) {
     this.name = record.name;
   }

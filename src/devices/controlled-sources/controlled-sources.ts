@@ -4,7 +4,13 @@
  */
 
 import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from '../device.js';
-import { addBranchIncidence, addTransconductance, branchPairs, transconductanceSlots } from '../stamp.js';
+import {
+  addBranchIncidence,
+  addTransconductance,
+  branchPairs,
+  NO_SLOTS,
+  transconductanceSlots,
+} from '../stamp.js';
 import type { CccsRecord, CcvsRecord, VccsRecord, VcvsRecord } from './records.js';
 
 /** v(outPlus) − v(outMinus) = gain·(v(controlPlus) − v(controlMinus)); the output current is an unknown. */
@@ -12,7 +18,7 @@ export class Vcvs implements Device {
   readonly nonlinear = false;
   readonly name: string;
   private k = 0;
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   constructor(public record: VcvsRecord) {
     this.name = record.name;
   }
@@ -62,7 +68,7 @@ export class Vccs implements Device {
   readonly name: string;
   private cp = 0;
   private cm = 0;
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   constructor(public record: VccsRecord) {
     this.name = record.name;
   }
@@ -97,7 +103,7 @@ export class Ccvs implements Device {
   readonly nonlinear = false;
   readonly name: string;
   private k = 0;
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   constructor(public record: CcvsRecord) {
     this.name = record.name;
   }
@@ -138,7 +144,7 @@ export class Cccs implements Device {
   readonly nonlinear = false;
   readonly name: string;
   private control = 0;
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   constructor(public record: CccsRecord) {
     this.name = record.name;
   }

@@ -31,7 +31,7 @@ import {
 } from '../junction.js';
 import { flickerNoise, shotNoise, thermalNoise } from '../noise-densities.js';
 import { updateWithDefaults, withDefaults } from '../parameters.js';
-import { addConductance, addCurrent, conductanceSlots } from '../stamp.js';
+import { addConductance, addCurrent, conductanceSlots, NO_SLOTS } from '../stamp.js';
 import { DIODE_PARAMETERS } from './diode-model.js';
 import type { DiodeRecord } from './record.js';
 
@@ -44,8 +44,8 @@ export class Diode implements Device {
   private c = 0;
   /** The junction's anode side: the anode itself, or the internal node behind the series resistance. */
   private j = 0;
-  private sJunction: Int32Array = new Int32Array(0);
-  private sSeries: Int32Array = new Int32Array(0);
+  private sJunction: Int32Array = NO_SLOTS;
+  private sSeries: Int32Array = NO_SLOTS;
   private is = 0;
   private nVt = 0;
   private vCritical = 0;

@@ -1,7 +1,7 @@
 /** The inductor: a short at DC, v(a) − v(b) = jωL·i at angular frequency ω. Its current is an unknown. */
 
 import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from '../device.js';
-import { addBranchIncidence, branchPairs } from '../stamp.js';
+import { addBranchIncidence, branchPairs, NO_SLOTS } from '../stamp.js';
 import type { InductorRecord } from './record.js';
 
 /** A compiled inductor. */
@@ -9,7 +9,7 @@ export class Inductor implements Device {
   readonly nonlinear = false;
   readonly name: string;
   private k = 0;
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   constructor(public record: InductorRecord) {
     this.name = record.name;
   }

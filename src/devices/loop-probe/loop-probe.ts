@@ -6,7 +6,7 @@
  */
 
 import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from '../device.js';
-import { addBranchIncidence, branchSlots } from '../stamp.js';
+import { addBranchIncidence, branchSlots, NO_SLOTS } from '../stamp.js';
 import type { LoopProbeRecord } from './record.js';
 
 /** A compiled loop probe. */
@@ -19,7 +19,7 @@ export class LoopProbe implements Device {
   fromNode = 0;
   /** The unknown of the `to` node (the ground index n when grounded). */
   toNode = 0;
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   constructor(readonly record: LoopProbeRecord) {
     this.name = record.name;
   }

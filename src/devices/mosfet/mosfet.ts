@@ -26,7 +26,7 @@ import type {
 } from '../device.js';
 import { channelThermalNoise, chargeBasedChannelThermalNoise, flickerNoise } from '../noise-densities.js';
 import { updateWithDefaults, withDefaults } from '../parameters.js';
-import { addConductance, conductanceSlots } from '../stamp.js';
+import { addConductance, conductanceSlots, NO_SLOTS } from '../stamp.js';
 import {
   type ChargeModelConstants,
   chargeBasedChannel,
@@ -41,6 +41,9 @@ export type MosfetRegion = 'cutoff' | 'triode' | 'saturation';
 
 /** Where √(φ − vbs) is clamped when the body is forward-biased past φ (keeps the law finite). */
 const MIN_BODY_ROOT = 1e-3;
+
+/** The charge state of a square-law device, which has none. */
+const NO_CHARGE_STATE = new Float64Array(0);
 
 /** A compiled MOSFET. */
 export class Mosfet implements Device {
@@ -65,14 +68,14 @@ export class Mosfet implements Device {
     thermalVoltage: Number.NaN,
   };
   /** [id, gm, gds, gmb, if, ir] of the last charge-based evaluation. */
-  private readonly chargeState = new Float64Array(6);
+  private chargeState: Float64Array = NO_CHARGE_STATE;
   private d = 0;
   private g = 0;
   private s = 0;
   private bd = 0;
   // Slots of rows (d, s) × columns (d, g, s, b), then the body tie and the two gate capacitors.
-  private sChannel: Int32Array = new Int32Array(0);
-  private sBody: Int32Array = new Int32Array(0);
+  private sChannel: Int32Array = NO_SLOTS;
+  private sBody: Int32Array = NO_SLOTS;
   /** The temperature the constants were last prepared for (NaN: never). */
   private preparedTemperature = Number.NaN;
   // The square law's constants, read once from the parameters: λ, γ, φ and √φ.
@@ -80,8 +83,8 @@ export class Mosfet implements Device {
   private gamma = 0;
   private phi = 0;
   private rootPhi = 0;
-  private sGs: Int32Array = new Int32Array(0);
-  private sGd: Int32Array = new Int32Array(0);
+  private sGs: Int32Array = NO_SLOTS;
+  private sGd: Int32Array = NO_SLOTS;
   private junctionConductance = 0;
   private vgsOld = 0;
   private vdsOld = 0;
@@ -119,6 +122,8 @@ export class Mosfet implements Device {
     this.phi = p.surfacePotential;
     this.rootPhi = Math.sqrt(this.phi);
     this.chargeBased = !Number.isNaN(p.slopeFactor);
+    // Only the charge-based law keeps state; a square-law device shares the empty array.
+    if (this.chargeBased && this.chargeState.length === 0) this.chargeState = new Float64Array(6);
     const charge = this.charge;
     charge.thresholdVoltage = this.vth0;
     charge.gainFactor = this.beta;

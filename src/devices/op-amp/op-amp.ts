@@ -18,7 +18,7 @@ import type {
   NoiseGenerator,
 } from '../device.js';
 import { withDefaults } from '../parameters.js';
-import { addCurrent } from '../stamp.js';
+import { addCurrent, NO_SLOTS } from '../stamp.js';
 import { limiterKnee, limitOutput } from './op-amp-limiter.js';
 import { isIdealOpAmp, OP_AMP_PARAMETERS } from './op-amp-model.js';
 import type { OpAmpRecord } from './record.js';
@@ -51,7 +51,7 @@ export class OpAmp implements Device {
   private groundIndex = 0;
   private readonly noise: { voltage: number; current: number; voltageCorner: number; currentCorner: number };
   // Slots: [out·k, k·plus, k·minus, k·out, k·k]
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   /** The limiter's value and derivatives at the last evaluation. */
   private readonly limited = new Float64Array(4);
   /** The linear output value u of the previous Newton load (NaN before the first). */

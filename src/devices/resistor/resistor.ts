@@ -9,7 +9,7 @@ import type {
   NoiseGenerator,
 } from '../device.js';
 import { thermalNoise } from '../noise-densities.js';
-import { addConductance, conductanceSlots } from '../stamp.js';
+import { addConductance, conductanceSlots, NO_SLOTS } from '../stamp.js';
 import type { ResistorRecord } from './record.js';
 
 /** A compiled resistor. */
@@ -18,7 +18,7 @@ export class Resistor implements Device {
   readonly name: string;
   private a = 0;
   private b = 0;
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   constructor(public record: ResistorRecord) {
     this.name = record.name;
   }

@@ -8,7 +8,7 @@ import type {
   DcLoadContext,
   Device,
 } from '../device.js';
-import { addBranchIncidence, branchSlots } from '../stamp.js';
+import { addBranchIncidence, branchSlots, NO_SLOTS } from '../stamp.js';
 import type { VoltageSourceRecord } from './record.js';
 
 /** A compiled voltage source. Its DC value can be replaced through the analysis conditions (a sweep). */
@@ -18,7 +18,7 @@ export class VoltageSource implements Device {
   /** The DC value in V: the record's, or the one the analysis conditions give (a sweep point's). */
   dc: number;
   private k = 0;
-  private s: Int32Array = new Int32Array(0);
+  private s: Int32Array = NO_SLOTS;
   constructor(public record: VoltageSourceRecord) {
     this.name = record.name;
     this.dc = record.dc;
