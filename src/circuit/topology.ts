@@ -4,9 +4,9 @@
  * of voltage-defined branches alone. Each failure names the nodes and elements involved.
  */
 
-import { descriptorOf, ELEMENT_KINDS, KINDS } from '../devices/registry.js';
+import { descriptorOf, ELEMENT_KINDS, KINDS, terminalFields } from '../devices/registry.js';
 import { floatingNodes, noGround, unknownElement, voltageLoop } from '../errors/messages.js';
-import { type ElementRecord, GROUND, hasCurrentUnknown, terminalsOf } from './elements.js';
+import { type ElementRecord, GROUND, hasCurrentUnknown } from './elements.js';
 
 /** Node names that people use for ground in other conventions. */
 const GROUND_LIKE = /^(0|gnd|ground|earth|common|com|vss|agnd|dgnd)$/i;
@@ -56,10 +56,12 @@ function voltageBranch(e: ElementRecord): readonly [string, string] | undefined 
 
 /** Run every whole-circuit check; throws the first failure in the order of docs/building-circuits.md, "Errors". */
 export function checkTopology(elements: readonly ElementRecord[]): void {
-  const byName = new Map(elements.map((e) => [e.name, e] as const));
+  // Elements by name, built only if some element names a controlling one.
+  let byName: Map<string, ElementRecord> | null = null;
   for (const e of elements) {
     const field = descriptorOf(e).controlField;
     if (field !== null) {
+      byName ??= new Map(elements.map((x) => [x.name, x] as const));
       const controlName = (e as unknown as Readonly<Record<string, string>>)[field]!;
       const control = byName.get(controlName);
       if (control === undefined) {
@@ -81,7 +83,9 @@ export function checkTopology(elements: readonly ElementRecord[]): void {
   const index = new Map<string, number>([[GROUND, 0]]);
   let touchesGround = false;
   for (const e of elements) {
-    for (const [, node] of terminalsOf(e)) {
+    const fields = terminalFields(e);
+    for (let t = 0; t < fields.length; t++) {
+      const node = (e as unknown as Readonly<Record<string, string>>)[fields[t]!]!;
       if (node === GROUND) touchesGround = true;
       if (!index.has(node)) index.set(node, index.size);
     }

@@ -58,6 +58,19 @@ export function createDevice(record: ElementRecord): Device {
   return descriptorOf(record).create(record);
 }
 
+/** Each kind's terminal fields, listed once. */
+const TERMINAL_FIELDS = Object.fromEntries(
+  ELEMENT_KINDS.map((kind) => [kind, KINDS[kind].terminals.map((t) => t.field as string)]),
+) as unknown as Readonly<Record<ElementKind, readonly string[]>>;
+
+/**
+ * The record fields holding an element's nodes, in terminal order: the same list for every element
+ * of a kind, so that passes over many elements read nodes without building a list per element.
+ */
+export function terminalFields(record: ElementRecord): readonly string[] {
+  return TERMINAL_FIELDS[record.kind];
+}
+
 /** The nodes an element touches, in terminal order, with each terminal's record field. */
 export function terminalsOf(record: ElementRecord): readonly (readonly [role: string, node: string])[] {
   const fields = record as unknown as Readonly<Record<string, string>>;

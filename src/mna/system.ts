@@ -6,7 +6,7 @@
 import { type ElementRecord, GROUND, terminalsOf } from '../circuit/elements.js';
 import { checkTopology } from '../circuit/topology.js';
 import type { AllocationContext, BindContext, Device } from '../devices/device.js';
-import { createDevice } from '../devices/registry.js';
+import { createDevice, terminalFields } from '../devices/registry.js';
 import { unknownElement } from '../errors/messages.js';
 import { type CscPattern, compressPattern, type SymbolicLu } from '../linalg/index.js';
 
@@ -91,7 +91,9 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
   const labels: UnknownLabel[] = [];
   const nodeIndex = new Map<string, number>();
   for (const record of records) {
-    for (const [, node] of terminalsOf(record)) {
+    const fields = terminalFields(record);
+    for (let t = 0; t < fields.length; t++) {
+      const node = (record as unknown as Readonly<Record<string, string>>)[fields[t]!]!;
       if (node !== GROUND && !nodeIndex.has(node)) {
         nodeIndex.set(node, labels.length);
         labels.push({ kind: 'node', name: node });
