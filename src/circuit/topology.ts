@@ -54,8 +54,12 @@ function voltageBranch(e: ElementRecord): readonly [string, string] | undefined 
   return descriptorOf(e).voltageBranch(e);
 }
 
-/** Run every whole-circuit check; throws the first failure in the order of docs/building-circuits.md, "Errors". */
-export function checkTopology(elements: readonly ElementRecord[]): void {
+/**
+ * Run every whole-circuit check; throws the first failure in the order of docs/building-circuits.md,
+ * "Errors". `nodes` numbers every node but ground from 0, as the compile numbers them (its numbering
+ * serves both, so the node names are hashed once).
+ */
+export function checkTopology(elements: readonly ElementRecord[], nodes: ReadonlyMap<string, number>): void {
   // Elements by name, built only if some element names a controlling one.
   let byName: Map<string, ElementRecord> | null = null;
   for (const e of elements) {
@@ -80,33 +84,33 @@ export function checkTopology(elements: readonly ElementRecord[]): void {
     }
   }
 
-  const index = new Map<string, number>([[GROUND, 0]]);
   let touchesGround = false;
-  for (const e of elements) {
+  for (let k = 0; k < elements.length && !touchesGround; k++) {
+    const e = elements[k]!;
     const fields = terminalFields(e);
     for (let t = 0; t < fields.length; t++) {
-      const node = (e as unknown as Readonly<Record<string, string>>)[fields[t]!]!;
-      if (node === GROUND) touchesGround = true;
-      if (!index.has(node)) index.set(node, index.size);
+      if ((e as unknown as Readonly<Record<string, string>>)[fields[t]!] === GROUND) touchesGround = true;
     }
   }
   // A node named like a ground ('0', 'GND', 'ground') was most likely meant to be one.
-  if (!touchesGround)
-    throw noGround([...index.keys()].filter((node) => node !== GROUND && GROUND_LIKE.test(node)));
+  if (!touchesGround) throw noGround([...nodes.keys()].filter((node) => GROUND_LIKE.test(node)));
 
-  const dc = new DisjointSets(index.size);
-  for (const e of elements) for (const [a, b] of dcConnections(e)) dc.union(index.get(a)!, index.get(b)!);
+  // Ground is set 0 of the forests, node k is set k + 1.
+  const at = (node: string): number => (node === GROUND ? 0 : nodes.get(node)! + 1);
+  const dc = new DisjointSets(nodes.size + 1);
+  for (const e of elements) for (const [a, b] of dcConnections(e)) dc.union(at(a), at(b));
   const groundRoot = dc.find(0);
-  const floating = [...index].filter(([, i]) => dc.find(i) !== groundRoot).map(([name]) => name);
+  const floating: string[] = [];
+  for (const [name, k] of nodes) if (dc.find(k + 1) !== groundRoot) floating.push(name);
   if (floating.length > 0) throw floatingNodes(floating);
 
-  const loops = new DisjointSets(index.size);
+  const loops = new DisjointSets(nodes.size + 1);
   const through: ElementRecord[] = [];
   for (const e of elements) {
     const branch = voltageBranch(e);
     if (branch === undefined) continue;
     const [a, b] = branch;
-    if (!loops.union(index.get(a)!, index.get(b)!)) {
+    if (!loops.union(at(a), at(b))) {
       throw voltageLoop(...loopThrough(e, branch, through));
     }
     through.push(e);

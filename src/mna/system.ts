@@ -85,9 +85,6 @@ export function compileCount(): number {
 
 /** Check and compile element records. Throws the topology errors of docs/building-circuits.md, "Errors". */
 export function compileCircuit(records: readonly ElementRecord[]): CompiledSystem {
-  checkTopology(records);
-  compilations++;
-  const devices = records.map(createDevice);
   const labels: UnknownLabel[] = [];
   const nodeIndex = new Map<string, number>();
   for (const record of records) {
@@ -100,6 +97,9 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
       }
     }
   }
+  checkTopology(records, nodeIndex);
+  compilations++;
+  const devices = records.map(createDevice);
   const branchIndex = new Map<string, number>();
   let branchesOpen = false;
   const NONE: readonly number[] = [];
