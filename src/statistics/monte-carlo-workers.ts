@@ -17,28 +17,26 @@ export interface MonteCarloWorkersOptions {
   readonly workerScript?: string | ScriptLocation;
 }
 
+/**
+ * Each set's pool, kept out of the class so that the package's public types never name the pool
+ * library's (its types are not a dependency of users' builds).
+ */
+const pools = new WeakMap<MonteCarloWorkers, workerpool.Pool>();
+
 /** A set of running Monte Carlo workers; stop them with {@link MonteCarloWorkers.close}. */
 export class MonteCarloWorkers {
   /** How many workers the set runs. */
   readonly size: number;
-  readonly #pool: workerpool.Pool;
   #closed = false;
 
   /** @internal Use {@link startMonteCarloWorkers}. */
-  constructor(pool: workerpool.Pool, size: number) {
-    this.#pool = pool;
+  constructor(size: number) {
     this.size = size;
   }
 
   /** Whether {@link MonteCarloWorkers.close} was called. */
   get closed(): boolean {
     return this.#closed;
-  }
-
-  /** @internal The pool, for a run. */
-  get pool(): workerpool.Pool {
-    if (this.#closed) throw invalidValue(['options', 'pool'], 'closed workers', 'workers not yet closed');
-    return this.#pool;
   }
 
   /**
@@ -48,8 +46,17 @@ export class MonteCarloWorkers {
   async close(): Promise<void> {
     if (this.#closed) return;
     this.#closed = true;
-    await this.#pool.terminate(true);
+    await pools.get(this)?.terminate(true);
   }
+}
+
+/** @internal The pool of an open set, for a run; `invalid-value` for a closed one. */
+export function poolOf(workers: MonteCarloWorkers): workerpool.Pool {
+  const pool = pools.get(workers);
+  if (workers.closed || pool === undefined) {
+    throw invalidValue(['options', 'pool'], 'closed workers', 'workers not yet closed');
+  }
+  return pool;
 }
 
 /**
@@ -76,7 +83,9 @@ export function startMonteCarloWorkers(options: MonteCarloWorkersOptions): Monte
   if (!Number.isInteger(workers) || workers < 1) {
     throw invalidValue(['options', 'workers'], workers, 'a whole number of workers, 1 or more');
   }
-  return new MonteCarloWorkers(openPool(workers, options.workerScript), workers);
+  const set = new MonteCarloWorkers(workers);
+  pools.set(set, openPool(workers, options.workerScript));
+  return set;
 }
 
 /** @internal A pool of `workers` Monte Carlo workers, all started at once. */

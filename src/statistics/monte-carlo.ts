@@ -11,7 +11,7 @@ import { cancelled, invalidValue } from '../errors/messages.js';
 import { type ErrorDetails, QuiescentError } from '../errors/quiescent-error.js';
 import { JobRun, type MonteCarloJobOptions, monteCarloJob, rangeOf } from './job.js';
 import { MonteCarlo, type MonteCarloParts, mergeMonteCarlo } from './monte-carlo-result.js';
-import { MonteCarloWorkers, openPool } from './monte-carlo-workers.js';
+import { MonteCarloWorkers, openPool, poolOf } from './monte-carlo-workers.js';
 import type { CancelSignal, ScriptLocation } from './signals.js';
 
 /** Options of {@link monteCarlo}: the run's options, the operating-point options, and how to run. */
@@ -119,7 +119,7 @@ async function runOnWorkers(
 ): Promise<MonteCarlo> {
   const total = end - start;
   const chunks = Math.min(total, workers * CHUNKS_PER_WORKER);
-  const pool = options.pool?.pool ?? openPool(workers, options.workerScript);
+  const pool = options.pool === undefined ? openPool(workers, options.workerScript) : poolOf(options.pool);
   let done = 0;
   const tasks: ReturnType<typeof pool.exec>[] = [];
   for (let c = 0; c < chunks; c++) {
