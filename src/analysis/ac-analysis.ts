@@ -97,13 +97,13 @@ export class AcAnalysis {
    */
   current(element: string): Complex[] {
     const op = this.operatingPoint;
-    return this.#phasors(currentReader(op.system, op.x, element, false));
+    return this.#phasors(currentReader(op.system, op, element, false));
   }
 
   /** The phasor a {@link Probe} reads at every frequency (V for voltages, A for currents). */
   response(probe: Probe): Complex[] {
     const op = this.operatingPoint;
-    return this.#phasors(probeReader(op.system, op.x, probe, false, 'probe'));
+    return this.#phasors(probeReader(op.system, op, probe, false, 'probe'));
   }
 
   /** What `read` finds in the stored solution at every frequency. */

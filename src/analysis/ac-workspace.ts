@@ -63,11 +63,18 @@ export class AcWorkspace {
     // The DC ordering serves the AC matrix: jωC entries sit on the same pattern.
     const symbolic = this.system.ordering.symbolic;
     this.#solver = createComplexSolver(this.system.pattern, symbolic === null ? {} : { symbolic });
-    this.#context = { x: op.x, omega: 0, Ar: this.Ar, Ai: this.Ai, br: this.sourceRe, bi: this.sourceIm };
+    this.#context = {
+      x: op.x,
+      omega: 0,
+      Ar: this.Ar,
+      Ai: this.Ai,
+      br: this.sourceRe,
+      bi: this.sourceIm,
+      conditions: op.conditions,
+    };
 
     const affine = devices.filter((d) => KINDS[d.record.kind].frequencyAffine);
     this.#perFrequency = devices.filter((d) => !KINDS[d.record.kind].frequencyAffine);
-    for (const d of devices) d.prepare?.(op.conditions);
     // G + jωC is linear in ω: its stamps at ω = 0 and ω = 1 give G and C.
     this.#stampAt(affine, 0);
     this.#conductanceRe = this.Ar.slice();

@@ -10,7 +10,7 @@ import { isIdealOpAmp, OP_AMP_PARAMETERS } from '../devices/op-amp/op-amp-model.
 import { withDefaults } from '../devices/parameters.js';
 import type { CompiledSystem } from '../mna/system.js';
 import { forwardBias } from './junction-bias.js';
-import { loadJacobianAt, NewtonWorkspace, prepareDevices, prepareWorkspace } from './newton.js';
+import { loadJacobianAt, NewtonWorkspace, prepareWorkspace } from './newton.js';
 
 /** What a caution is about. */
 export type CautionCode =
@@ -65,9 +65,8 @@ export function cautionsOf(system: CompiledSystem, x: Float64Array, conditions: 
 }
 
 function junctionCautions(system: CompiledSystem, x: Float64Array, conditions: Conditions, out: Caution[]) {
-  prepareDevices(system, conditions);
   for (const device of system.devices) {
-    for (const probe of device.junctions?.(x) ?? []) {
+    for (const probe of device.junctions?.(x, conditions) ?? []) {
       if (probe.junction === 'channel') continue;
       // Channels were skipped above, so of the mirrored devices only a pnp reaches here.
       const bias = forwardBias(device.record, probe, x);
@@ -162,7 +161,7 @@ function amplifierCautions(system: CompiledSystem, x: Float64Array, conditions: 
     if (record.kind !== 'op-amp') continue;
     const ideal = isIdealOpAmp(record.options);
     // The limiter's slope below one half: the output no longer follows the inputs.
-    const report = system.deviceByName.get(record.name)?.report?.(x);
+    const report = system.deviceByName.get(record.name)?.report?.(x, conditions);
     if (report !== undefined && (report.region === 'limited-high' || report.region === 'limited-low')) {
       const limit = report.region === 'limited-high' ? 'upper' : 'lower';
       out.push({

@@ -4,6 +4,7 @@
  * solutions whose only excitation is the injected nonlinear currents.
  */
 import { GROUND } from '../circuit/elements.js';
+import type { Conditions } from '../devices/device.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import type { CompiledSystem } from '../mna/system.js';
 import type { Probe } from './ac-analysis.js';
@@ -13,12 +14,18 @@ import { probeLabel } from './probe-label.js';
 /** Writes the probe's phasor for solution (xr, xi) at angular frequency ω into out[0], out[1]. */
 export type ProbeReader = (xr: Float64Array, xi: Float64Array, omega: number, out: Float64Array) => void;
 
+/** The solution small-signal readers are linearized at, with its conditions (an operating point is one). */
+export interface LinearizationPoint {
+  readonly x: Float64Array;
+  readonly conditions: Conditions;
+}
+
 /**
  * A reader for `probe`, checked at once. `AcAnalysis.response` reads the stored solutions through
  * it too, so the two never disagree on what a probe means.
  *
  * @param system - the compiled circuit
- * @param x - the operating point the devices are linearized at
+ * @param at - the operating point the devices are linearized at, and its conditions
  * @param probe - a node name, `{ node, reference? }` or `{ element }`
  * @param harmonic - whether the solutions read carry no source excitation (the 2nd and 3rd harmonic):
  *   an independent current source then carries no current, whatever its AC value
@@ -27,7 +34,7 @@ export type ProbeReader = (xr: Float64Array, xi: Float64Array, omega: number, ou
  */
 export function probeReader(
   system: CompiledSystem,
-  x: Float64Array,
+  at: LinearizationPoint,
   probe: Probe,
   harmonic: boolean,
   option = 'output',
@@ -35,7 +42,7 @@ export function probeReader(
   if (typeof probe === 'string') return voltageReader(nodeAt(system, probe), system.n);
   if (probe !== null && typeof probe === 'object') {
     if ('element' in probe && typeof probe.element === 'string') {
-      return currentReader(system, x, probe.element, harmonic);
+      return currentReader(system, at, probe.element, harmonic);
     }
     if ('node' in probe && typeof probe.node === 'string') {
       return voltageReader(nodeAt(system, probe.node), nodeAt(system, probe.reference ?? GROUND));
@@ -60,7 +67,7 @@ export function voltageReader(a: number, b: number): ProbeReader {
  */
 export function currentReader(
   system: CompiledSystem,
-  x: Float64Array,
+  { x, conditions }: LinearizationPoint,
   element: string,
   harmonic: boolean,
 ): ProbeReader {
@@ -87,7 +94,7 @@ export function currentReader(
       out[1] = 0;
     };
   }
-  return (xr, xi, omega, out) => acCurrent(xr, xi, omega, x, out);
+  return (xr, xi, omega, out) => acCurrent(xr, xi, omega, x, conditions, out);
 }
 
 /** A short text naming a probe, for reports and messages. */

@@ -191,8 +191,8 @@ export class HarmonicEstimator {
   constructor(op: OperatingPoint, output: Probe, byJunction: boolean) {
     this.#op = op;
     const n = op.system.n;
-    this.#read = probeReader(op.system, op.x, output, false);
-    this.#readHarmonic = probeReader(op.system, op.x, output, true);
+    this.#read = probeReader(op.system, op, output, false);
+    this.#readHarmonic = probeReader(op.system, op, output, true);
     this.set = gatherNonlinearCurrents(op, byJunction);
     const count = this.set.currents.length;
     const m = this.set.maxControls;

@@ -6,7 +6,7 @@
  * element and one parameter at a time.
  */
 import { terminalsOf } from '../circuit/elements.js';
-import type { Device } from '../devices/device.js';
+import type { Conditions, Device } from '../devices/device.js';
 import type { CompiledSystem } from '../mna/system.js';
 
 /** An element's unknowns and the pattern slots among them. */
@@ -116,13 +116,14 @@ export function acShare(
   omega: number,
   Xr: Float64Array,
   Xi: Float64Array,
+  conditions: Conditions,
   scratch: DeviceScratch,
   system: CompiledSystem,
   outRe: Float64Array,
   outIm: Float64Array,
 ): void {
   scratch.clear(e, system.nnz, system.n);
-  device.loadAc({ x, omega, Ar: scratch.A, Ai: scratch.Az, br: scratch.b, bi: scratch.bz });
+  device.loadAc({ x, omega, Ar: scratch.A, Ai: scratch.Az, br: scratch.b, bi: scratch.bz, conditions });
   for (const u of e.unknowns) {
     outRe[u] = -scratch.b[u]!;
     outIm[u] = -scratch.bz[u]!;

@@ -139,8 +139,8 @@ export function intermodulation(op: OperatingPoint, options: IntermodulationOpti
   const output = options.output;
   const system = op.system;
   const n = system.n;
-  const read = probeReader(system, op.x, output, false);
-  const readHarmonic = probeReader(system, op.x, output, true);
+  const read = probeReader(system, op, output, false);
+  const readHarmonic = probeReader(system, op, output, true);
   const set = gatherNonlinearCurrents(op);
   const { currents } = set;
   const workspace = new AcWorkspace(op);

@@ -43,7 +43,6 @@ import { requireInstance } from './arguments.js';
 import { HarmonicEstimator, ratio, relativeReal } from './distortion.js';
 import { describeProbe } from './distortion-probe.js';
 import { forwardBias } from './junction-bias.js';
-import { prepareDevices } from './newton.js';
 import { type LinearityReportJson, linearityToJson } from './result-json.js';
 
 /** Default budget of the first-order error bound: 10 % of the linear term. */
@@ -252,10 +251,9 @@ function junctionEntries(ac: AcAnalysis, budget: number): JunctionLinearity[] {
   const frequencies = ac.frequencies;
   const junctionLimit = junctionAmplitudeForBound(budget);
   const channelLimit = channelAmplitudeForBound(budget);
-  prepareDevices(system, op.conditions);
   const junctions: JunctionLinearity[] = [];
   for (const device of system.devices) {
-    for (const probe of device.junctions?.(op.x) ?? []) {
+    for (const probe of device.junctions?.(op.x, op.conditions) ?? []) {
       const amplitudes = new Float64Array(frequencies.length);
       let worst = -1;
       for (let k = 0; k < frequencies.length; k++) {

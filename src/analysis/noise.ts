@@ -150,7 +150,6 @@ function collectGenerators(op: OperatingPoint): GeneratorTable {
   const generators: NoiseGenerator[] = [];
   const owners: string[] = [];
   for (const device of op.system.devices) {
-    device.prepare?.(op.conditions);
     for (const g of device.noiseGenerators?.(op.x, op.conditions) ?? []) {
       generators.push(g);
       owners.push(device.name);
@@ -237,7 +236,7 @@ export function noise(op: OperatingPoint, options: NoiseOptions): Noise {
     lowest = Math.min(lowest, f);
     highest = Math.max(highest, f);
   }
-  const output = new OutputFunctional(system, op.x, options.output, [
+  const output = new OutputFunctional(system, op, options.output, [
     2 * Math.PI * lowest,
     2 * Math.PI * highest,
     2 * Math.PI * 1234.5,

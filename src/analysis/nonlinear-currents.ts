@@ -13,7 +13,6 @@
 import type { ElementKind } from '../circuit/elements.js';
 import type { JunctionProbe, NonlinearCurrent } from '../devices/device.js';
 import { addCurrent } from '../devices/stamp.js';
-import { prepareDevices } from './newton.js';
 import type { OperatingPoint } from './operating-point.js';
 
 /** A device (or one junction of it) that has nonlinear currents: the unit whose share is reported. */
@@ -43,13 +42,12 @@ export interface NonlinearCurrents {
  * grouped by device, or by device and junction when `byJunction`.
  */
 export function gatherNonlinearCurrents(op: OperatingPoint, byJunction = false): NonlinearCurrents {
-  prepareDevices(op.system, op.conditions);
   const devices: NonlinearDevice[] = [];
   const currents: NonlinearCurrent[] = [];
   const owners: number[] = [];
   for (const device of op.system.devices) {
     const first = devices.length;
-    for (const current of device.nonlinearCurrents?.(op.x) ?? []) {
+    for (const current of device.nonlinearCurrents?.(op.x, op.conditions) ?? []) {
       let group = first;
       while (group < devices.length && byJunction && devices[group]!.junction !== current.junction) group++;
       if (group === devices.length) {

@@ -87,8 +87,7 @@ export class OperatingPoint {
     if (d.current === undefined) {
       throw unknownElement(element, 'a transistor has no single current; read it through device()');
     }
-    d.prepare?.(this.conditions);
-    return d.current(this.x);
+    return d.current(this.x, this.conditions);
   }
 
   /** The operating values and small-signal parameters of a diode, bipolar transistor or MOSFET, or an op-amp's input, output and region. */
@@ -97,8 +96,7 @@ export class OperatingPoint {
     if (d === undefined) throw unknownElement(name);
     if (d.report === undefined)
       throw unknownElement(name, 'only diodes, transistors and op-amps have a device report');
-    d.prepare?.(this.conditions);
-    return Object.freeze({ kind: d.record.kind, ...d.report(this.x) }) as DeviceReport;
+    return Object.freeze({ kind: d.record.kind, ...d.report(this.x, this.conditions) }) as DeviceReport;
   }
 
   /** The report of a diode (throws `unknown-element` if `name` is not one). */

@@ -5,7 +5,7 @@
  */
 import type { CompiledSystem } from '../mna/system.js';
 import type { Probe } from './ac-analysis.js';
-import { type ProbeReader, probeReader } from './distortion-probe.js';
+import { type LinearizationPoint, type ProbeReader, probeReader } from './distortion-probe.js';
 import { nodeAt } from './operating-point.js';
 
 /** Writes the coefficients c of an output at angular frequency ω. */
@@ -27,7 +27,7 @@ export class OutputFunctional {
    * @param omegas - angular frequencies at which the support of an element current is found
    * @throws QuiescentError `unknown-node`, `unknown-element`, `invalid-value` for a probe that cannot be read
    */
-  constructor(system: CompiledSystem, x: Float64Array, probe: Probe, omegas: readonly number[]) {
+  constructor(system: CompiledSystem, at: LinearizationPoint, probe: Probe, omegas: readonly number[]) {
     const n = system.n;
     this.#xr = new Float64Array(n + 1);
     this.#xi = new Float64Array(n + 1);
@@ -45,7 +45,7 @@ export class OutputFunctional {
       return;
     }
     // An element current: a linear function of a few unknowns, found once by probing each unknown.
-    const reader = probeReader(system, x, probe, false);
+    const reader = probeReader(system, at, probe, false);
     this.#reader = reader;
     const support: number[] = [];
     for (let j = 0; j < n; j++) {

@@ -39,14 +39,21 @@ const AFFINE_TOLERANCE = 1e-9;
 export function circuitPencil(op: OperatingPoint): Pencil {
   const system = op.system;
   const { n, nnz, pattern, devices } = system;
-  for (const d of devices) d.prepare?.(op.conditions);
   const G = new Float64Array(nnz + 1);
   const C = new Float64Array(nnz + 1);
   const Ar = new Float64Array(nnz + 1);
   const Ai = new Float64Array(nnz + 1);
   const br = new Float64Array(n + 1);
   const bi = new Float64Array(n + 1);
-  const ctx: AcLoadContext & { omega: number } = { x: op.x, omega: 0, Ar, Ai, br, bi };
+  const ctx: AcLoadContext & { omega: number } = {
+    x: op.x,
+    omega: 0,
+    Ar,
+    Ai,
+    br,
+    bi,
+    conditions: op.conditions,
+  };
   const affine = devices.filter((d) => d.loadPencil === undefined);
   const stampAt = (omega: number, group: readonly (typeof devices)[number][]) => {
     Ar.fill(0);
@@ -77,7 +84,7 @@ export function circuitPencil(op: OperatingPoint): Pencil {
       `the small-signal model of '${culprit}' is not of the form G + jωC, so its natural frequencies are not found`,
     );
   }
-  for (const d of devices) d.loadPencil?.(G, C, op.x);
+  for (const d of devices) d.loadPencil?.(G, C, op.x, op.conditions);
   const labels = system.labels;
   return {
     n,
@@ -133,7 +140,7 @@ export function borderedPencil(op: OperatingPoint, output: Probe, input: string)
   }
   // The output row: read the probe from each unit solution; real part at ω = 0 and the imaginary
   // part at ω = 1 give c₀ and c₁ (a current probe of a capacitor reads s·C·v).
-  const read = probeReader(system, op.x, output, false, 'output');
+  const read = probeReader(system, op, output, false, 'output');
   const xr = new Float64Array(n + 1);
   const xi = new Float64Array(n + 1);
   const value = new Float64Array(2);

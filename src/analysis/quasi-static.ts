@@ -17,6 +17,7 @@
 import { Complex } from 'complex.js';
 import type { Circuit } from '../circuit/circuit.js';
 import { GROUND } from '../circuit/elements.js';
+import type { Conditions } from '../devices/device.js';
 import { invalidValue, noSignal, unknownElement } from '../errors/messages.js';
 import type { AcAnalysis, Probe } from './ac-analysis.js';
 import { acAnalysis } from './ac-analysis.js';
@@ -195,7 +196,7 @@ export function prepareDriver(circuit: Circuit, options: QuasiStaticOptions): Qu
     kept = heldCircuit.kept;
   }
   const solver = solverFor(records, resolved);
-  const read = outputReader(solver, output);
+  const read = outputReader(solver, output, base);
   const drives = solver.system.records.flatMap((r) =>
     (r.kind === 'voltage-source' || r.kind === 'current-source') && r.ac.magnitude !== 0
       ? [{ name: r.name, dc: r.dc, amplitude: r.ac.magnitude, phase: (r.ac.phase * Math.PI) / 180 }]
@@ -212,8 +213,7 @@ export function prepareDriver(circuit: Circuit, options: QuasiStaticOptions): Qu
     const record = solver.system.deviceByName.get(name)!.record;
     if (record.kind === 'voltage-source') {
       const device = solver.system.deviceByName.get(name)!;
-      const current = device.current!.bind(device);
-      return { name, dc: record.dc, capacitor: true, read: current };
+      return { name, dc: record.dc, capacitor: true, read: (x) => device.current!(x, base) };
     }
     const from = record.kind === 'current-source' ? nodeAt(solver.system, record.from) : 0;
     const to = record.kind === 'current-source' ? nodeAt(solver.system, record.to) : 0;
@@ -352,7 +352,7 @@ export function quasiStaticHarmonics(circuit: Circuit, options: QuasiStaticOptio
 }
 
 /** Reads a probe from a solution vector, checked once against the compiled circuit. */
-function outputReader(solver: Solver, probe: Probe): (x: Float64Array) => number {
+function outputReader(solver: Solver, probe: Probe, conditions: Conditions): (x: Float64Array) => number {
   const system = solver.system;
   if (typeof probe === 'string') {
     const a = nodeAt(system, probe);
@@ -362,11 +362,11 @@ function outputReader(solver: Solver, probe: Probe): (x: Float64Array) => number
     if ('element' in probe && typeof probe.element === 'string') {
       const device = system.deviceByName.get(probe.element);
       if (device === undefined) throw unknownElement(probe.element);
-      const current = device.current?.bind(device);
+      const current = device.current;
       if (current === undefined) {
         throw unknownElement(probe.element, 'a transistor has no single current; read it through voltages');
       }
-      return current;
+      return (x) => current.call(device, x, conditions);
     }
     if ('node' in probe && typeof probe.node === 'string') {
       const a = nodeAt(system, probe.node);

@@ -373,11 +373,11 @@ interface ParameterStep {
 interface DcReader {
   /** The element the output belongs to (its own parameters move it directly), or −1 for a node probe. */
   readonly element: number;
-  /** Read at x, with `device` standing in for element `element` when given. */
-  read(x: Float64Array, device?: Device): number;
+  /** Read at x under `conditions`, with `device` standing in for element `element` when given. */
+  read(x: Float64Array, conditions: Conditions, device?: Device): number;
 }
 
-function dcReader(system: CompiledSystem, output: SensitivityOutput): DcReader {
+function dcReader(system: CompiledSystem, output: SensitivityOutput, conditions: Conditions): DcReader {
   if (typeof output === 'string' || (output !== null && typeof output === 'object' && 'node' in output)) {
     const node = typeof output === 'string' ? output : output.node;
     const reference = typeof output === 'string' ? GROUND : (output.reference ?? GROUND);
@@ -400,7 +400,7 @@ function dcReader(system: CompiledSystem, output: SensitivityOutput): DcReader {
         'element',
       ]);
     }
-    return { element: k, read: (x, device = own) => device.current!(x) };
+    return { element: k, read: (x, at, device = own) => device.current!(x, at) };
   }
   if (
     output !== null &&
@@ -415,11 +415,11 @@ function dcReader(system: CompiledSystem, output: SensitivityOutput): DcReader {
     if (own.report === undefined) {
       throw unknownElement(name, 'only diodes and transistors have a device report', ['output', 'device']);
     }
-    const sample = own.report(new Float64Array(system.n + 1))[field];
+    const sample = own.report(new Float64Array(system.n + 1), conditions)[field];
     if (typeof sample !== 'number') {
       throw invalidValue(['output', 'field'], field, `a numeric field of the report of '${name}'`);
     }
-    return { element: k, read: (x, device = own) => device.report!(x)[field] as number };
+    return { element: k, read: (x, at, device = own) => device.report!(x, at)[field] as number };
   }
   throw invalidValue(
     ['output'],
@@ -435,9 +435,9 @@ function readerGradient(context: AdjointContext, reader: DcReader, out: Float64A
     const h = 1e-7 * Math.max(1, Math.abs(x[u]!));
     const keep = x[u]!;
     x[u] = keep + h;
-    const up = reader.read(x);
+    const up = reader.read(x, context.conditions);
     x[u] = keep - h;
-    const down = reader.read(x);
+    const down = reader.read(x, context.conditions);
     x[u] = keep;
     out[u] = (up - down) / (2 * h);
   }
@@ -453,8 +453,8 @@ function dcSensitivity(op: OperatingPoint, options: DcSensitivityOptions, only?:
   const context = new AdjointContext(op);
   const { system, x } = context;
   const n = system.n;
-  const reader = dcReader(system, options.output);
-  const value = reader.read(x);
+  const reader = dcReader(system, options.output, context.conditions);
+  const value = reader.read(x, context.conditions);
   // λ = J⁻ᵀ·∂y/∂x.
   const lambda = new Float64Array(n + 1);
   const output = options.output;
@@ -487,7 +487,9 @@ function dcSensitivity(op: OperatingPoint, options: DcSensitivityOptions, only?:
         derivative = 0;
         for (const u of context.unknownsOf(k).unknowns) derivative -= lambda[u]! * dF[u]!;
         if (reader.element === k)
-          derivative += (reader.read(x, step.plus) - reader.read(x, step.minus)) / step.span;
+          derivative +=
+            (reader.read(x, context.conditions, step.plus) - reader.read(x, context.conditions, step.minus)) /
+            step.span;
       }
       const value = parameterValue(record, parameter);
       entries.push({ element: record.name, parameter, value, derivative, relative: value * derivative });
@@ -597,7 +599,7 @@ function temperatureEntry(context: AdjointContext, reader: DcReader, lambda: Flo
       dcShare(system.devices[k]!, e, x, context.scratch, system, share);
       for (const u of e.unknowns) target[u]! += share[u]!;
     }
-    return reader.read(x);
+    return reader.read(x, at);
   };
   const up = sum(plus, context.conditionsAt(T + TEMPERATURE_STEP));
   const down = sum(minus, context.conditionsAt(T - TEMPERATURE_STEP));
@@ -615,7 +617,7 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
   const frequency = ac.frequencies[index]!;
   const op = ac.operatingPoint;
   const context = new AdjointContext(op);
-  const { system, x } = context;
+  const { system, x, conditions } = context;
   const n = system.n;
   const stride = n + 1;
   const Xr = ac.re.subarray(index * stride, (index + 1) * stride);
@@ -627,18 +629,20 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
   let outputElement = -1;
   const cr = new Float64Array(n + 1);
   const ci = new Float64Array(n + 1);
-  let readCurrent: ((device: Device, at: Float64Array, out: Float64Array) => void) | undefined;
+  let readCurrent:
+    | ((device: Device, at: Float64Array, conditions: Conditions, out: Float64Array) => void)
+    | undefined;
   if (output !== null && typeof output === 'object' && 'element' in output) {
-    currentReader(system, x, output.element, false); // checks the element
+    currentReader(system, context.op, output.element, false); // checks the element
     outputElement = system.deviceIndex.get(output.element)!;
-    readCurrent = (device, at, out) => device.acCurrent!(Xr, Xi, omega, at, out);
+    readCurrent = (device, at, conditions, out) => device.acCurrent!(Xr, Xi, omega, at, conditions, out);
     const unit = new Float64Array(n + 1);
     const zero = new Float64Array(n + 1);
     const out = new Float64Array(2);
     const own = system.devices[outputElement]!;
     for (const u of context.unknownsOf(outputElement).unknowns) {
       unit[u] = 1;
-      own.acCurrent!(unit, zero, omega, x, out);
+      own.acCurrent!(unit, zero, omega, x, context.conditions, out);
       unit[u] = 0;
       cr[u] = out[0]!;
       ci[u] = out[1]!;
@@ -689,11 +693,11 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
     for (const u of e.unknowns) {
       const h = 1e-7 * Math.max(1, Math.abs(x[u]!));
       xv[u] = x[u]! + h;
-      acShare(device, e, xv, omega, Xr, Xi, context.scratch, system, Rr, Ri);
-      if (k === outputElement) readCurrent!(device, xv, two);
+      acShare(device, e, xv, omega, Xr, Xi, conditions, context.scratch, system, Rr, Ri);
+      if (k === outputElement) readCurrent!(device, xv, conditions, two);
       xv[u] = x[u]! - h;
-      acShare(device, e, xv, omega, Xr, Xi, context.scratch, system, Sr, Si);
-      if (k === outputElement) readCurrent!(device, xv, twoDown);
+      acShare(device, e, xv, omega, Xr, Xi, conditions, context.scratch, system, Sr, Si);
+      if (k === outputElement) readCurrent!(device, xv, conditions, twoDown);
       xv[u] = x[u]!;
       let dr = 0;
       let di = 0;
@@ -711,7 +715,7 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
       }
     }
     // Leave the device evaluated at the operating point again.
-    acShare(device, e, x, omega, Xr, Xi, context.scratch, system, Rr, Ri);
+    acShare(device, e, x, omega, Xr, Xi, conditions, context.scratch, system, Rr, Ri);
   }
   const etaR = wr;
   const etaI = wi;
@@ -751,8 +755,8 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
         continue;
       }
       // −λᵀ·∂R/∂p.
-      acShare(step.plus, e, x, omega, Xr, Xi, context.scratch, system, Rr, Ri);
-      acShare(step.minus, e, x, omega, Xr, Xi, context.scratch, system, Sr, Si);
+      acShare(step.plus, e, x, omega, Xr, Xi, conditions, context.scratch, system, Rr, Ri);
+      acShare(step.minus, e, x, omega, Xr, Xi, conditions, context.scratch, system, Sr, Si);
       let dYr = 0;
       let dYi = 0;
       for (const u of e.unknowns) {
@@ -768,8 +772,8 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
         dYi -= etaI[u]! * dF[u]!;
       }
       if (k === outputElement) {
-        readCurrent!(step.plus, x, two);
-        readCurrent!(step.minus, x, twoDown);
+        readCurrent!(step.plus, x, conditions, two);
+        readCurrent!(step.minus, x, conditions, twoDown);
         dYr += (two[0]! - twoDown[0]!) / step.span;
         dYi += (two[1]! - twoDown[1]!) / step.span;
       }
@@ -787,7 +791,7 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
     for (let k = 0; k < system.devices.length; k++) {
       const device = system.devices[k]!;
       const e = context.unknownsOf(k);
-      acShare(device, e, x, omega, Xr, Xi, context.scratch, system, Rr, Ri);
+      acShare(device, e, x, omega, Xr, Xi, at, context.scratch, system, Rr, Ri);
       dcShare(device, e, x, context.scratch, system, dF);
       for (const u of e.unknowns) {
         const gr = (sign * Rr[u]!) / (2 * TEMPERATURE_STEP);
@@ -797,7 +801,7 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
         dYi -= lr[u]! * gi + li[u]! * gr + etaI[u]! * f;
       }
       if (k === outputElement) {
-        readCurrent!(device, x, two);
+        readCurrent!(device, x, at, two);
         dYr += (sign * two[0]!) / (2 * TEMPERATURE_STEP);
         dYi += (sign * two[1]!) / (2 * TEMPERATURE_STEP);
       }

@@ -57,6 +57,8 @@ export interface AcLoadContext {
   /** Real and imaginary parts of the right-hand side, length n+1 each. */
   readonly br: Float64Array;
   readonly bi: Float64Array;
+  /** The conditions of the operating point x. */
+  readonly conditions: Conditions;
 }
 
 /** The conditions an analysis runs at, handed to every device before it loads. */
@@ -164,7 +166,13 @@ export interface Device {
    * then binds a new device. Absent: every value change binds a new device.
    */
   revalue?(record: ElementRecord): boolean;
-  /** Set the quantities that depend on the analysis conditions (temperature, junction conductance). */
+  /**
+   * Set the quantities that depend on the analysis conditions (temperature, junction conductance),
+   * returning at once when they are those already set. The Newton loop calls it before loading;
+   * every reading below takes the conditions of the solution it reads and brings the device to them
+   * first, so no reader has to remember to prepare the device (another analysis, at another
+   * temperature, may have prepared it since).
+   */
   prepare?(conditions: Conditions): void;
   /** Add the Newton companion at ctx.x. */
   load(ctx: DcLoadContext): void;
@@ -175,17 +183,24 @@ export interface Device {
    * small-signal equations as G + s·C instead, its rows multiplied by a polynomial in s where that
    * clears a denominator (an op-amp's pole). The natural frequencies are found from these matrices.
    */
-  loadPencil?(G: Float64Array, C: Float64Array, x: Float64Array): void;
+  loadPencil?(G: Float64Array, C: Float64Array, x: Float64Array, conditions: Conditions): void;
   /** The DC current of a two-terminal element or controlled-source output, by the sign conventions. */
-  current?(x: Float64Array): number;
+  current?(x: Float64Array, conditions: Conditions): number;
   /** The AC current phasor at ω from solution (xr, xi), written to out[0] (real) and out[1] (imaginary). */
-  acCurrent?(xr: Float64Array, xi: Float64Array, omega: number, x: Float64Array, out: Float64Array): void;
+  acCurrent?(
+    xr: Float64Array,
+    xi: Float64Array,
+    omega: number,
+    x: Float64Array,
+    conditions: Conditions,
+    out: Float64Array,
+  ): void;
   /** Operating values and small-signal parameters at x. */
-  report?(x: Float64Array): DeviceReport;
+  report?(x: Float64Array, conditions: Conditions): DeviceReport;
   /** Junctions and channels to check for linearity at x. */
-  junctions?(x: Float64Array): readonly JunctionProbe[];
+  junctions?(x: Float64Array, conditions: Conditions): readonly JunctionProbe[];
   /** The second- and third-order terms of the device's nonlinear currents at x (after `prepare`). */
-  nonlinearCurrents?(x: Float64Array): readonly NonlinearCurrent[];
+  nonlinearCurrents?(x: Float64Array, conditions: Conditions): readonly NonlinearCurrent[];
   /** The device's noise generators at the operating point x (after `prepare`); none when absent. */
   noiseGenerators?(x: Float64Array, conditions: Conditions): readonly NoiseGenerator[];
   /**

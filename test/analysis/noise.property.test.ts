@@ -81,7 +81,7 @@ function directPowers(op: OperatingPoint, output: Probe, f: number): Map<string,
   const workspace = new AcWorkspace(op);
   workspace.factorAt(f);
   const omega = 2 * Math.PI * f;
-  const read = probeReader(system, op.x, output, false);
+  const read = probeReader(system, op, output, false);
   const xr = new Float64Array(n + 1);
   const xi = new Float64Array(n + 1);
   const offset = new Float64Array(2);

@@ -63,6 +63,29 @@ describe('the cached compile behind operatingPoint', () => {
   });
 });
 
+describe('results of one circuit at several temperatures', () => {
+  it('each read at its own temperature, whatever was solved since', () => {
+    // Two results share the compiled devices of their circuit; a device brings its temperature
+    // constants to the conditions of the result read (docs/analyses.md, "Prepared circuits").
+    // Expected numbers: the same readings from circuits solved alone (common practice, no source).
+    const arm = referenceArm;
+    const cold = operatingPoint(arm(), { temperature: 250 });
+    const coldAc = acAnalysis(cold, { frequencies: [1e3] });
+    const hot = operatingPoint(arm(), { temperature: 400 });
+    const hotAc = acAnalysis(hot, { frequencies: [1e3] });
+    const shared = arm();
+    const sharedCold = operatingPoint(shared, { temperature: 250 });
+    const sharedColdAc = acAnalysis(sharedCold, { frequencies: [1e3] });
+    const sharedHot = operatingPoint(shared, { temperature: 400 });
+    const sharedHotAc = acAnalysis(sharedHot, { frequencies: [1e3] });
+    // Read the cold results after the hot ones were solved on the same devices, and the other way.
+    expect(sharedColdAc.current('clamp')[0]!.re).toBe(coldAc.current('clamp')[0]!.re);
+    expect(sharedCold.diode('clamp').resistance).toBe(cold.diode('clamp').resistance);
+    expect(sharedHotAc.current('clamp')[0]!.re).toBe(hotAc.current('clamp')[0]!.re);
+    expect(sharedCold.diode('clamp').resistance).not.toBe(sharedHot.diode('clamp').resistance);
+  });
+});
+
 describe('prepareCircuit', () => {
   it('solves a divider after a value change as the closed form says, without compiling again', () => {
     // v(mid) = V·R2/(R1 + R2) (voltage divider, common practice, no source).

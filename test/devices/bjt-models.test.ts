@@ -246,7 +246,7 @@ describe('the knee current in the nonlinear currents', () => {
         );
     const v = 0.75;
     const op = operatingPoint(stage(v), BARE);
-    const currents = op.system.deviceByName.get('Q1')!.nonlinearCurrents!(op.x);
+    const currents = op.system.deviceByName.get('Q1')!.nonlinearCurrents!(op.x, op.conditions);
     // Collector-to-emitter currents are the forward (0) and reverse (2) transport; their uu entries.
     const second = currents[0]!.second[0]! + currents[2]!.second[0]!;
     const third = currents[0]!.third[0]! + currents[2]!.third[0]!;

@@ -51,7 +51,7 @@ describe('the charge-based MOSFET channel', () => {
     // Source: test/reference/mosfet-charge.py, mpmath.diff of the published current at 50 digits.
     for (const c of reference.cases) {
       const op = operatingPoint(biased(c.vgs, c.vds, c.vbs), BARE);
-      const [channel] = op.system.deviceByName.get('underTest')!.nonlinearCurrents!(op.x);
+      const [channel] = op.system.deviceByName.get('underTest')!.nonlinearCurrents!(op.x, op.conditions);
       const what = `vgs ${c.vgs}, vds ${c.vds}, vbs ${c.vbs}`;
       // Controls (vgs, vds, vbs); second is 3×3, third 3×3×3, row-major.
       expectRelativelyClose(channel!.second[0]!, c.d2Dvgs2, 1e-8, `∂²id/∂vgs² at ${what}`);

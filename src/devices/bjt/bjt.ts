@@ -310,6 +310,7 @@ export class Bjt implements Device {
     );
   }
   loadAc(ctx: AcLoadContext): void {
+    this.prepare(ctx.conditions);
     // Inline rather than through mirrored(): no array allocated per frequency point.
     const x = ctx.x;
     const vb = x[this.b]!;
@@ -330,7 +331,8 @@ export class Bjt implements Device {
     if (beOn) return bcOn ? 'saturation' : 'forward-active';
     return bcOn ? 'reverse-active' : 'cutoff';
   }
-  report(x: Float64Array): DeviceReport {
+  report(x: Float64Array, conditions: Conditions): DeviceReport {
+    this.prepare(conditions);
     const [vbe, vbc] = this.mirrored(x);
     this.evaluate(vbe, vbc, false);
     const gm = this.dIcDvbe + this.dIcDvbc;
@@ -360,7 +362,8 @@ export class Bjt implements Device {
       internalVbc: sign * vbc,
     };
   }
-  junctions(_x: Float64Array): readonly JunctionProbe[] {
+  junctions(_x: Float64Array, conditions: Conditions): readonly JunctionProbe[] {
+    this.prepare(conditions);
     return [
       { junction: 'base-emitter', plus: this.b, minus: this.e, scale: this.nfVt },
       { junction: 'base-collector', plus: this.b, minus: this.c, scale: this.nrVt },
@@ -378,7 +381,8 @@ export class Bjt implements Device {
    * Without a knee current k = 1 and its derivatives vanish. A pnp carries the same currents in the
    * mirrored voltages, flowing the other way.
    */
-  nonlinearCurrents(x: Float64Array): readonly NonlinearCurrent[] {
+  nonlinearCurrents(x: Float64Array, conditions: Conditions): readonly NonlinearCurrent[] {
+    this.prepare(conditions);
     const [vbe, vbc] = this.mirrored(x);
     const r = this.dqdv;
     const q = 1 + (vbe - vbc) * r;
@@ -482,7 +486,9 @@ export class Bjt implements Device {
    * K_f·|ib|^a_f/f of the base current, and the thermal noise 4kT/R of each nonzero terminal
    * resistance, between the terminal and the internal node behind it.
    */
-  noiseGenerators(x: Float64Array, { temperature }: Conditions): readonly NoiseGenerator[] {
+  noiseGenerators(x: Float64Array, conditions: Conditions): readonly NoiseGenerator[] {
+    this.prepare(conditions);
+    const { temperature } = conditions;
     const p = this.p;
     const [vbe, vbc] = this.mirrored(x);
     this.evaluate(vbe, vbc, true);

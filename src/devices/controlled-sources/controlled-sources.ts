@@ -3,7 +3,14 @@
  * read the branch-current unknown of their controlling element. Voltage outputs own a branch current.
  */
 
-import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from '../device.js';
+import type {
+  AcLoadContext,
+  AllocationContext,
+  BindContext,
+  Conditions,
+  DcLoadContext,
+  Device,
+} from '../device.js';
 import {
   addBranchIncidence,
   addTransconductance,
@@ -56,7 +63,14 @@ export class Vcvs implements Device {
   current(x: Float64Array): number {
     return x[this.k]!;
   }
-  acCurrent(xr: Float64Array, xi: Float64Array, _w: number, _x: Float64Array, out: Float64Array): void {
+  acCurrent(
+    xr: Float64Array,
+    xi: Float64Array,
+    _w: number,
+    _x: Float64Array,
+    _conditions: Conditions,
+    out: Float64Array,
+  ): void {
     out[0] = xr[this.k]!;
     out[1] = xi[this.k]!;
   }
@@ -92,7 +106,14 @@ export class Vccs implements Device {
   current(x: Float64Array): number {
     return this.record.transconductance * (x[this.cp]! - x[this.cm]!);
   }
-  acCurrent(xr: Float64Array, xi: Float64Array, _w: number, _x: Float64Array, out: Float64Array): void {
+  acCurrent(
+    xr: Float64Array,
+    xi: Float64Array,
+    _w: number,
+    _x: Float64Array,
+    _conditions: Conditions,
+    out: Float64Array,
+  ): void {
     out[0] = this.record.transconductance * (xr[this.cp]! - xr[this.cm]!);
     out[1] = this.record.transconductance * (xi[this.cp]! - xi[this.cm]!);
   }
@@ -133,7 +154,14 @@ export class Ccvs implements Device {
   current(x: Float64Array): number {
     return x[this.k]!;
   }
-  acCurrent(xr: Float64Array, xi: Float64Array, _w: number, _x: Float64Array, out: Float64Array): void {
+  acCurrent(
+    xr: Float64Array,
+    xi: Float64Array,
+    _w: number,
+    _x: Float64Array,
+    _conditions: Conditions,
+    out: Float64Array,
+  ): void {
     out[0] = xr[this.k]!;
     out[1] = xi[this.k]!;
   }
@@ -171,7 +199,14 @@ export class Cccs implements Device {
   current(x: Float64Array): number {
     return this.record.gain * x[this.control]!;
   }
-  acCurrent(xr: Float64Array, xi: Float64Array, _w: number, _x: Float64Array, out: Float64Array): void {
+  acCurrent(
+    xr: Float64Array,
+    xi: Float64Array,
+    _w: number,
+    _x: Float64Array,
+    _conditions: Conditions,
+    out: Float64Array,
+  ): void {
     out[0] = this.record.gain * xr[this.control]!;
     out[1] = this.record.gain * xi[this.control]!;
   }

@@ -38,10 +38,18 @@ export class CurrentSource implements Device {
     addCurrent(ctx.br, this.from, this.to, magnitude * Math.cos(theta));
     addCurrent(ctx.bi, this.from, this.to, magnitude * Math.sin(theta));
   }
-  current(_x: Float64Array): number {
+  current(_x: Float64Array, conditions: Conditions): number {
+    this.prepare(conditions);
     return this.dc;
   }
-  acCurrent(_xr: Float64Array, _xi: Float64Array, _omega: number, _x: Float64Array, out: Float64Array): void {
+  acCurrent(
+    _xr: Float64Array,
+    _xi: Float64Array,
+    _omega: number,
+    _x: Float64Array,
+    _conditions: Conditions,
+    out: Float64Array,
+  ): void {
     const { magnitude, phase } = this.record.ac;
     const theta = (phase * Math.PI) / 180;
     out[0] = magnitude * Math.cos(theta);

@@ -154,6 +154,7 @@ export class Diode implements Device {
     if (this.seriesConductance > 0) addConductance(ctx.A, this.sSeries, 0, this.seriesConductance);
   }
   loadAc(ctx: AcLoadContext): void {
+    this.prepare(ctx.conditions);
     const v = ctx.x[this.j]! - ctx.x[this.c]!;
     this.evaluate(v);
     addConductance(ctx.Ar, this.sJunction, 0, this.g);
@@ -161,7 +162,15 @@ export class Diode implements Device {
     if (this.seriesConductance > 0) addConductance(ctx.Ar, this.sSeries, 0, this.seriesConductance);
   }
   /** The small-signal current anode to cathode: (g + jωC) times the junction voltage phasor. */
-  acCurrent(xr: Float64Array, xi: Float64Array, omega: number, x: Float64Array, out: Float64Array): void {
+  acCurrent(
+    xr: Float64Array,
+    xi: Float64Array,
+    omega: number,
+    x: Float64Array,
+    conditions: Conditions,
+    out: Float64Array,
+  ): void {
+    this.prepare(conditions);
     const v = x[this.j]! - x[this.c]!;
     this.evaluate(v);
     const b = omega * this.capacitanceAt(v);
@@ -177,11 +186,13 @@ export class Diode implements Device {
       p.transitTime * this.gDiffusion
     );
   }
-  current(x: Float64Array): number {
+  current(x: Float64Array, conditions: Conditions): number {
+    this.prepare(conditions);
     this.evaluate(x[this.j]! - x[this.c]!);
     return this.i;
   }
-  report(x: Float64Array): DeviceReport {
+  report(x: Float64Array, conditions: Conditions): DeviceReport {
+    this.prepare(conditions);
     const v = x[this.j]! - x[this.c]!;
     this.evaluate(v);
     return {
@@ -193,14 +204,16 @@ export class Diode implements Device {
       capacitance: this.capacitanceAt(v),
     };
   }
-  junctions(_x: Float64Array): readonly JunctionProbe[] {
+  junctions(_x: Float64Array, conditions: Conditions): readonly JunctionProbe[] {
+    this.prepare(conditions);
     return [{ junction: 'pn', plus: this.j, minus: this.c, scale: this.nVt }];
   }
   /**
    * The junction current's curvature: the k-th derivative of I_S·e^(v/nVt) is I_S·e^(v/nVt)/nVt^k, and
    * that of the breakdown term −I_S·e^(−(v+V_BR)/nVt) is −I_S·e^(−(v+V_BR)/nVt)·(−1/nVt)^k.
    */
-  nonlinearCurrents(x: Float64Array): readonly NonlinearCurrent[] {
+  nonlinearCurrents(x: Float64Array, conditions: Conditions): readonly NonlinearCurrent[] {
+    this.prepare(conditions);
     const nVt = this.nVt;
     const v = x[this.j]! - x[this.c]!;
     const forward = this.is * boundedExpCurvature(v / nVt);
@@ -222,7 +235,9 @@ export class Diode implements Device {
    * the junction's thermal noise) plus 2q·|i_bd| of the breakdown current; flicker noise
    * K_f·|i|^a_f/f; thermal noise of the series resistance.
    */
-  noiseGenerators(x: Float64Array, { temperature }: Conditions): readonly NoiseGenerator[] {
+  noiseGenerators(x: Float64Array, conditions: Conditions): readonly NoiseGenerator[] {
+    this.prepare(conditions);
+    const { temperature } = conditions;
     const p = this.p;
     const v = x[this.j]! - x[this.c]!;
     this.evaluate(v);

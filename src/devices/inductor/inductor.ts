@@ -1,6 +1,13 @@
 /** The inductor: a short at DC, v(a) − v(b) = jωL·i at angular frequency ω. Its current is an unknown. */
 
-import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from '../device.js';
+import type {
+  AcLoadContext,
+  AllocationContext,
+  BindContext,
+  Conditions,
+  DcLoadContext,
+  Device,
+} from '../device.js';
 import { addBranchIncidence, branchPairs, NO_SLOTS } from '../stamp.js';
 import type { InductorRecord } from './record.js';
 
@@ -36,7 +43,14 @@ export class Inductor implements Device {
   current(x: Float64Array): number {
     return x[this.k]!;
   }
-  acCurrent(xr: Float64Array, xi: Float64Array, _omega: number, _x: Float64Array, out: Float64Array): void {
+  acCurrent(
+    xr: Float64Array,
+    xi: Float64Array,
+    _omega: number,
+    _x: Float64Array,
+    _conditions: Conditions,
+    out: Float64Array,
+  ): void {
     out[0] = xr[this.k]!;
     out[1] = xi[this.k]!;
   }

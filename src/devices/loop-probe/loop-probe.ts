@@ -5,7 +5,14 @@
  * test current at it.
  */
 
-import type { AcLoadContext, AllocationContext, BindContext, DcLoadContext, Device } from '../device.js';
+import type {
+  AcLoadContext,
+  AllocationContext,
+  BindContext,
+  Conditions,
+  DcLoadContext,
+  Device,
+} from '../device.js';
 import { addBranchIncidence, branchSlots, NO_SLOTS } from '../stamp.js';
 import type { LoopProbeRecord } from './record.js';
 
@@ -40,7 +47,14 @@ export class LoopProbe implements Device {
   current(x: Float64Array): number {
     return x[this.branch]!;
   }
-  acCurrent(xr: Float64Array, xi: Float64Array, _omega: number, _x: Float64Array, out: Float64Array): void {
+  acCurrent(
+    xr: Float64Array,
+    xi: Float64Array,
+    _omega: number,
+    _x: Float64Array,
+    _conditions: Conditions,
+    out: Float64Array,
+  ): void {
     out[0] = xr[this.branch]!;
     out[1] = xi[this.branch]!;
   }

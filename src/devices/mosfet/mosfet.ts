@@ -279,6 +279,7 @@ export class Mosfet implements Device {
     ctx.b[this.s]! += ieq;
   }
   loadAc(ctx: AcLoadContext): void {
+    this.prepare(ctx.conditions);
     // Inline rather than through mirrored(): no array allocated per frequency point.
     const x = ctx.x;
     const sign = this.sign;
@@ -289,7 +290,8 @@ export class Mosfet implements Device {
     addConductance(ctx.Ai, this.sGs, 0, ctx.omega * this.p.gateSourceCapacitance);
     addConductance(ctx.Ai, this.sGd, 0, ctx.omega * this.p.gateDrainCapacitance);
   }
-  report(x: Float64Array): DeviceReport {
+  report(x: Float64Array, conditions: Conditions): DeviceReport {
+    this.prepare(conditions);
     const [vgs, vds, vbs] = this.mirrored(x);
     this.evaluate(vgs, vds, vbs);
     const sign = this.sign;
@@ -336,7 +338,8 @@ export class Mosfet implements Device {
       slopeFactor: n,
     };
   }
-  junctions(x: Float64Array): readonly JunctionProbe[] {
+  junctions(x: Float64Array, conditions: Conditions): readonly JunctionProbe[] {
+    this.prepare(conditions);
     const [vgs, vds, vbs] = this.mirrored(x);
     this.evaluate(vgs, vds, vbs);
     if (this.regionNow !== 'saturation') return [];
@@ -354,7 +357,8 @@ export class Mosfet implements Device {
    * With V_b = γ/(2ρ), V_bb = γ/(4ρ³), V_bbb = 3γ/(8ρ⁵), ρ = √(φ − vbs), the chain rule gives the
    * derivatives in (vgs, vds, vbs) written out below.
    */
-  nonlinearCurrents(x: Float64Array): readonly NonlinearCurrent[] {
+  nonlinearCurrents(x: Float64Array, conditions: Conditions): readonly NonlinearCurrent[] {
+    this.prepare(conditions);
     const [vgs, vds, vbs] = this.mirrored(x);
     this.evaluate(vgs, vds, vbs);
     if (this.chargeBased) return [this.chargeBasedCurrent(vgs, vds, vbs)];
@@ -489,7 +493,9 @@ export class Mosfet implements Device {
    * The channel's thermal noise 4kT·(2/3)·β·V_ov·(1 + η + η²)/(1 + η) (η = 1 − v_ds/V_ov in triode, 0 in
    * saturation; 0 in cutoff) and flicker noise K_f·|id|^a_f/f, both between drain and source.
    */
-  noiseGenerators(x: Float64Array, { temperature }: Conditions): readonly NoiseGenerator[] {
+  noiseGenerators(x: Float64Array, conditions: Conditions): readonly NoiseGenerator[] {
+    this.prepare(conditions);
+    const { temperature } = conditions;
     const p = this.p;
     const [vgs, vds, vbs] = this.mirrored(x);
     this.evaluate(vgs, vds, vbs);

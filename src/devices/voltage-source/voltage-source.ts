@@ -52,7 +52,14 @@ export class VoltageSource implements Device {
   current(x: Float64Array): number {
     return x[this.k]!;
   }
-  acCurrent(xr: Float64Array, xi: Float64Array, _omega: number, _x: Float64Array, out: Float64Array): void {
+  acCurrent(
+    xr: Float64Array,
+    xi: Float64Array,
+    _omega: number,
+    _x: Float64Array,
+    _conditions: Conditions,
+    out: Float64Array,
+  ): void {
     out[0] = xr[this.k]!;
     out[1] = xi[this.k]!;
   }
