@@ -249,6 +249,7 @@ class AdjointContext {
   readonly scratch: DeviceScratch;
   readonly #unknowns: (ElementUnknowns | undefined)[];
   readonly #jacobian: NewtonWorkspace;
+  readonly #share: Float64Array;
 
   constructor(readonly op: OperatingPoint) {
     this.system = op.system;
@@ -256,6 +257,7 @@ class AdjointContext {
     this.conditions = op.conditions;
     this.scratch = new DeviceScratch(this.system);
     this.#unknowns = new Array(this.system.devices.length);
+    this.#share = new Float64Array(this.system.n + 1);
     prepareDevices(this.system, this.conditions);
     // The converged Jacobian: every device loaded at the solution itself.
     const ws = new NewtonWorkspace(this.system);
@@ -318,6 +320,23 @@ class AdjointContext {
   solveDirect(y: Float64Array): void {
     this.#jacobian.solver.solve(y);
     y[this.system.n] = 0;
+  }
+
+  /**
+   * Add every device's DC residual share at the solution, with the devices at `at`, into `target`
+   * (scaled by `scale`), then leave them at the operating point's conditions again: one side of the
+   * central difference over the temperature.
+   */
+  addResidualAt(at: Conditions, scale: number, target: Float64Array): void {
+    const { system, x, scratch } = this;
+    const share = this.#share;
+    prepareDevices(system, at);
+    for (let k = 0; k < system.devices.length; k++) {
+      const e = this.unknownsOf(k);
+      dcShare(system.devices[k]!, e, x, scratch, system, share);
+      for (const u of e.unknowns) target[u]! += scale * share[u]!;
+    }
+    prepareDevices(system, this.conditions);
   }
 
   /** Conditions at temperature T (the junction conductance kept). */
@@ -518,27 +537,15 @@ export function solutionDerivatives(
   parameters: readonly SolutionParameter[],
 ): Float64Array[] {
   const context = new AdjointContext(op);
-  const { system, x } = context;
-  const n = system.n;
+  const n = context.system.n;
   const work = new Float64Array(n + 1);
-  const share = new Float64Array(n + 1);
   return parameters.map(({ element, parameter }) => {
     const dF = new Float64Array(n + 1);
     if (element === null) {
-      const T = context.conditions.temperature;
       // Central difference of the whole residual over the temperature.
-      for (const [at, sign] of [
-        [T + TEMPERATURE_STEP, 1],
-        [T - TEMPERATURE_STEP, -1],
-      ] as const) {
-        prepareDevices(system, context.conditionsAt(at));
-        for (let k = 0; k < system.devices.length; k++) {
-          const e = context.unknownsOf(k);
-          dcShare(system.devices[k]!, e, x, context.scratch, system, share);
-          for (const u of e.unknowns) dF[u]! += (sign * share[u]!) / (2 * TEMPERATURE_STEP);
-        }
-      }
-      prepareDevices(system, context.conditions);
+      const T = context.conditions.temperature;
+      context.addResidualAt(context.conditionsAt(T + TEMPERATURE_STEP), 1 / (2 * TEMPERATURE_STEP), dF);
+      context.addResidualAt(context.conditionsAt(T - TEMPERATURE_STEP), -1 / (2 * TEMPERATURE_STEP), dF);
     } else {
       const step = context.parameterStep(element, parameter);
       if (step === null) return dF;
@@ -591,18 +598,13 @@ function temperatureEntry(context: AdjointContext, reader: DcReader, lambda: Flo
   const n = system.n;
   const plus = new Float64Array(n + 1);
   const minus = new Float64Array(n + 1);
-  const share = new Float64Array(n + 1);
-  const sum = (target: Float64Array, at: Conditions): number => {
-    prepareDevices(system, at);
-    for (let k = 0; k < system.devices.length; k++) {
-      const e = context.unknownsOf(k);
-      dcShare(system.devices[k]!, e, x, context.scratch, system, share);
-      for (const u of e.unknowns) target[u]! += share[u]!;
-    }
-    return reader.read(x, at);
-  };
-  const up = sum(plus, context.conditionsAt(T + TEMPERATURE_STEP));
-  const down = sum(minus, context.conditionsAt(T - TEMPERATURE_STEP));
+  const hot = context.conditionsAt(T + TEMPERATURE_STEP);
+  const cold = context.conditionsAt(T - TEMPERATURE_STEP);
+  context.addResidualAt(hot, 1, plus);
+  context.addResidualAt(cold, 1, minus);
+  // The reader brings its device to the conditions it is given; then every device goes back.
+  const up = reader.read(x, hot);
+  const down = reader.read(x, cold);
   prepareDevices(system, conditions);
   let derivative = (up - down) / (2 * TEMPERATURE_STEP);
   for (let u = 0; u < n; u++) derivative -= (lambda[u]! * (plus[u]! - minus[u]!)) / (2 * TEMPERATURE_STEP);
