@@ -117,6 +117,36 @@ export interface JobHooks {
 }
 
 /** A job prepared to run sample by sample: the evaluator, the draws and the result's arrays. */
+/**
+ * What the ranges of one run share: the varied parameters, the measures, the draws and the evaluator
+ * (the circuit compiled, its nominal point solved, the prediction made). A worker that receives
+ * several ranges of one run builds it once (see {@link setUpKey}).
+ */
+export class JobSetUp {
+  readonly draws: Draws;
+  readonly evaluator: SampleEvaluator;
+  readonly varied: ReturnType<typeof resolveTolerances>;
+  readonly measures: MeasureSet;
+
+  /** @throws QuiescentError the checks of {@link monteCarloJob}, and a measure the circuit lacks */
+  constructor(job: MonteCarloJob) {
+    const circuit = Circuit.fromJSON(job.document);
+    const opOptions = operatingPointOptionsOf(job.options);
+    const temperature = resolveOptions(opOptions).temperature;
+    this.varied = resolveTolerances(job.options.tolerances, circuit.elements, temperature);
+    this.measures = new MeasureSet(job.options.measures);
+    this.draws = new Draws(job.options.seed);
+    this.evaluator = new SampleEvaluator(circuit.elements, opOptions, this.varied, this.measures);
+    this.evaluator.checkMeasures();
+  }
+}
+
+/** The key under which ranges of one run share a {@link JobSetUp}: the job without its range. */
+export function setUpKey(job: MonteCarloJob): string {
+  const { range: _range, ...options } = job.options;
+  return JSON.stringify([job.document, options]);
+}
+
 export class JobRun {
   readonly start: number;
   readonly end: number;
@@ -134,21 +164,19 @@ export class JobRun {
   #solved = 0;
   #next: number;
 
-  constructor(job: MonteCarloJob) {
+  /** `setUp`, when given, must come from a job that differs from this one in its range alone. */
+  constructor(job: MonteCarloJob, setUp?: JobSetUp) {
     if (job === null || typeof job !== 'object') throw invalidValue(['job'], job, 'a Monte Carlo job');
-    const circuit = Circuit.fromJSON(job.document);
+    const shared = setUp ?? new JobSetUp(job);
     const [start, end] = rangeOf(job.options);
     this.start = start;
     this.end = end;
     this.#next = start;
     this.#job = job;
-    const opOptions = operatingPointOptionsOf(job.options);
-    const temperature = resolveOptions(opOptions).temperature;
-    this.#varied = resolveTolerances(job.options.tolerances, circuit.elements, temperature);
-    this.#measures = new MeasureSet(job.options.measures);
-    this.#draws = new Draws(job.options.seed);
-    this.#evaluator = new SampleEvaluator(circuit.elements, opOptions, this.#varied, this.#measures);
-    this.#evaluator.checkMeasures();
+    this.#varied = shared.varied;
+    this.#measures = shared.measures;
+    this.#draws = shared.draws;
+    this.#evaluator = shared.evaluator;
     const count = end - start;
     this.#drawn = this.#varied.map(() => new Float64Array(count));
     this.#values = this.#measures.names.map(() => new Float64Array(count));
@@ -215,7 +243,11 @@ export class JobRun {
  * @throws QuiescentError `cancelled` when `hooks.stopped` answers true; the checks of {@link monteCarloJob}
  */
 export function runMonteCarloJob(job: MonteCarloJob, hooks: JobHooks = {}): MonteCarlo {
-  const run = new JobRun(job);
+  return runJob(new JobRun(job), hooks);
+}
+
+/** @internal Run a job's range to its end (a worker passes a run on its kept set-up). */
+export function runJob(run: JobRun, hooks: JobHooks = {}): MonteCarlo {
   while (!run.finished) {
     if (hooks.stopped?.() === true) throw cancelledAt(run);
     run.step();

@@ -4,14 +4,25 @@
  * 20 ms, and at the end).
  */
 import workerpool from 'workerpool';
-import { type MonteCarloJob, runMonteCarloJob } from './job.js';
+import { JobRun, JobSetUp, type MonteCarloJob, runJob, setUpKey } from './job.js';
 
 const PROGRESS_INTERVAL_MS = 20;
 
+/**
+ * The set-up of the last run this worker served: the ranges of one run (several per worker, and the
+ * runs repeated on kept workers) compile the circuit and solve its nominal point once.
+ */
+let kept: { readonly key: string; readonly setUp: JobSetUp } | null = null;
+
 function runRange(job: MonteCarloJob): InstanceType<typeof workerpool.Transfer> {
+  const key = setUpKey(job);
+  if (kept?.key !== key) {
+    kept = null; // the previous run's set-up can go before the next is built
+    kept = { key, setUp: new JobSetUp(job) };
+  }
   let last = Date.now();
   let reported = 0;
-  const result = runMonteCarloJob(job, {
+  const result = runJob(new JobRun(job, kept.setUp), {
     onSample(done) {
       const now = Date.now();
       if (now - last >= PROGRESS_INTERVAL_MS) {
