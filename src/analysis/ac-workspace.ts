@@ -61,8 +61,11 @@ export class AcWorkspace {
     this.#residualIm = new Float64Array(n + 1);
     this.#rowMax = new Float64Array(n);
     // The DC ordering serves the AC matrix: jωC entries sit on the same pattern.
-    const symbolic = this.system.ordering.symbolic;
-    this.#solver = createComplexSolver(this.system.pattern, symbolic === null ? {} : { symbolic });
+    const { symbolic, fill } = this.system.ordering;
+    this.#solver = createComplexSolver(
+      this.system.pattern,
+      symbolic === null ? {} : fill === null ? { symbolic } : { symbolic, capacity: fill },
+    );
     this.#context = {
       x: op.x,
       omega: 0,

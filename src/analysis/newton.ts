@@ -58,8 +58,11 @@ export class NewtonWorkspace {
     this.anchor = new Float64Array(n + 1);
     this.correction = new Float64Array(n + 1);
     // One ordering per topology: a later workspace on the same pattern starts from the first's.
-    const symbolic = system.ordering.symbolic;
-    this.solver = createRealSolver(system.pattern, symbolic === null ? {} : { symbolic });
+    const { symbolic, fill } = system.ordering;
+    this.solver = createRealSolver(
+      system.pattern,
+      symbolic === null ? {} : fill === null ? { symbolic } : { symbolic, capacity: fill },
+    );
     this.context = { x: this.x, A: this.A, b: this.b, sourceScale: 1, limited: false, first: true };
     this.linearA = new Float64Array(nnz + 1);
     this.linearB = new Float64Array(n + 1);
@@ -262,7 +265,11 @@ const REFINE_AFTER = 8;
 function trySolve(ws: NewtonWorkspace, solver: RealLinearSolver = ws.solver, refine = true): number {
   const status = solver.factor(ws.A);
   if (status !== 0) return status;
-  ws.system.ordering.symbolic ??= ws.solver.symbolic;
+  const ordering = ws.system.ordering;
+  if (ordering.symbolic === null) {
+    ordering.symbolic = ws.solver.symbolic;
+    ordering.fill = ws.solver.factorSizes();
+  }
   ws.previous.set(ws.x);
   ws.x.set(ws.b);
   solver.solve(ws.x);

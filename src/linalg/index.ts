@@ -1,5 +1,5 @@
 export { type CompressedPattern, compressPattern } from './csc.js';
-export type { SymbolicLu } from './lu-types.js';
+export type { FactorCapacity, SymbolicLu } from './lu-types.js';
 export { formatMatrixMarket, type MatrixMarketMatrix, parseMatrixMarket } from './matrix-market.js';
 export type { Ordering } from './ordering.js';
 export { reportSmallPivots, type SmallPivotReport } from './rank-report.js';

@@ -19,6 +19,12 @@ export interface SymbolicLu {
   readonly q: Int32Array;
   /** prefRow[j] is the row matched to column j: the pivot preferred for column j. */
   readonly prefRow: Int32Array;
+  /**
+   * Entries a factorization whose pivots fall on the preferred rows stores below the diagonal of L,
+   * and as many above the diagonal of U: the fill of the symmetrized pattern in the order q
+   * (fill-count.ts), room a first factorization reserves at once.
+   */
+  readonly fill: number;
 }
 
 /** Pivot rows and the patterns of L and U of one fresh factorization (storage grows by doubling). */
@@ -54,35 +60,51 @@ export interface PivotTolerances {
   readonly singularTolerance: number;
 }
 
-/**
- * Room to reserve in each of L and U before a first factorization of a matrix on `pattern`: the
- * entries of A plus a diagonal. Circuit matrices ordered by AMD fill in little (the stage chains of
- * bench/ keep nnz(L) + nnz(U) = nnz(A)); where they fill more (a mesh, about six times), the
- * factorization grows its storage by doubling, once per fresh factorization at most a few times.
- */
-export function initialFactorCapacity(pattern: { readonly n: number; readonly Ap: Int32Array }): number {
-  return pattern.Ap[pattern.n]! + pattern.n;
+/** Entries to reserve in L and in U before a factorization (see {@link initialFactorCapacity}). */
+export interface FactorCapacity {
+  readonly lower: number;
+  readonly upper: number;
 }
 
-/** Allocate a real factorization of order n with room for about `capacity` entries in L and in U. */
-export function createNumericLu(n: number, capacity: number): NumericLu {
-  const cap = Math.max(capacity, n, 1);
+/**
+ * Room to reserve in L and in U before a first factorization of a matrix on `pattern`. With the
+ * sizes an earlier factorization on the same pattern and ordering measured (the AC analyses after
+ * the DC solve), those sizes plus n: the storage check before a column asks for room for that
+ * column's worst case (n − k more entries), and a factorization whose pivots follow the earlier
+ * one's then never grows. Without them, the entries of A plus a diagonal: circuit matrices ordered
+ * by AMD fill in little (the stage chains of bench/ keep nnz(L) + nnz(U) = nnz(A)); where they fill
+ * more (a mesh, about six times) the factorization grows its storage by half at a time.
+ */
+export function initialFactorCapacity(
+  pattern: { readonly n: number; readonly Ap: Int32Array },
+  measured?: FactorCapacity,
+): FactorCapacity {
+  const n = pattern.n;
+  if (measured !== undefined) return { lower: measured.lower + n, upper: measured.upper + n };
+  const size = pattern.Ap[n]! + n;
+  return { lower: size, upper: size };
+}
+
+/** Allocate a real factorization of order n with room for `capacity` entries in L and in U. */
+export function createNumericLu(n: number, capacity: FactorCapacity): NumericLu {
+  const lower = Math.max(capacity.lower, n, 1);
+  const upper = Math.max(capacity.upper, n, 1);
   return {
     n,
     pinv: new Int32Array(n),
     prow: new Int32Array(n),
     Lp: new Int32Array(n + 1),
-    Li: new Int32Array(cap),
-    Lx: new Float64Array(cap),
+    Li: new Int32Array(lower),
+    Lx: new Float64Array(lower),
     Up: new Int32Array(n + 1),
-    Ui: new Int32Array(cap),
-    Ux: new Float64Array(cap),
+    Ui: new Int32Array(upper),
+    Ux: new Float64Array(upper),
     Ud: new Float64Array(n),
   };
 }
 
-/** Allocate a complex factorization of order n with room for about `capacity` entries in L and in U. */
-export function createComplexNumericLu(n: number, capacity: number): ComplexNumericLu {
+/** Allocate a complex factorization of order n with room for `capacity` entries in L and in U. */
+export function createComplexNumericLu(n: number, capacity: FactorCapacity): ComplexNumericLu {
   const real = createNumericLu(n, capacity);
   return {
     ...real,
@@ -92,20 +114,49 @@ export function createComplexNumericLu(n: number, capacity: number): ComplexNume
   };
 }
 
-/** Grow L so that it holds at least `need` entries, doubling (cs_sprealloc in cs_lu). */
+/**
+ * Before a first factorization (nothing stored yet): make room for `entries` in L and in U at once,
+ * the count of the symbolic analysis plus n (see {@link initialFactorCapacity}), where the storage
+ * is smaller.
+ */
+export function reserveFactorStorage(N: NumericLu, entries: number): void {
+  const size = entries + N.n;
+  const C = N as Partial<ComplexNumericLu>;
+  if (N.Li.length < size) {
+    N.Li = new Int32Array(size);
+    N.Lx = new Float64Array(size);
+    if (C.Lz !== undefined) C.Lz = new Float64Array(size);
+  }
+  if (N.Ui.length < size) {
+    N.Ui = new Int32Array(size);
+    N.Ux = new Float64Array(size);
+    if (C.Uz !== undefined) C.Uz = new Float64Array(size);
+  }
+}
+
+/**
+ * The size storage grows to when it must hold `need` entries: half as much again (cs_sprealloc in
+ * cs_lu doubles; by halves, the old and new arrays held together during the copy, and the room
+ * left unused at the end, are smaller on a matrix that fills in a lot).
+ */
+function grownSize(size: number, need: number): number {
+  return Math.max(size + (size >> 1), need);
+}
+
+/** Grow L so that it holds at least `need` entries. */
 export function growL(N: NumericLu, need: number): void {
   if (need <= N.Li.length) return;
-  const size = Math.max(2 * N.Li.length, need);
+  const size = grownSize(N.Li.length, need);
   N.Li = copyInt(N.Li, size);
   N.Lx = copyFloat(N.Lx, size);
   const C = N as Partial<ComplexNumericLu>;
   if (C.Lz !== undefined) C.Lz = copyFloat(C.Lz, size);
 }
 
-/** Grow U so that it holds at least `need` entries, doubling. */
+/** Grow U so that it holds at least `need` entries. */
 export function growU(N: NumericLu, need: number): void {
   if (need <= N.Ui.length) return;
-  const size = Math.max(2 * N.Ui.length, need);
+  const size = grownSize(N.Ui.length, need);
   N.Ui = copyInt(N.Ui, size);
   N.Ux = copyFloat(N.Ux, size);
   const C = N as Partial<ComplexNumericLu>;

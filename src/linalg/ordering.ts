@@ -9,6 +9,7 @@
  * `imatch[j]` the row matched to column j; `rowPos[i]` the column whose matched row is i.
  */
 import { amdOrder, symmetrizedPattern } from './amd.js';
+import { choleskyFillCount } from './fill-count.js';
 import type { SymbolicLu } from './lu-types.js';
 import { maximumMatching } from './matching.js';
 import type { CscPattern } from './types.js';
@@ -30,12 +31,16 @@ export function analyzePattern(A: CscPattern, Ax: Float64Array, ordering: Orderi
       q[k] = k;
       imatch[k] = k;
     }
-    return { n, q, prefRow: imatch };
+    const { Cp, Ci } = symmetrizedPattern(n, Ap, Ai, null);
+    return { n, q, prefRow: imatch, fill: choleskyFillCount(n, Cp, Ci, q) };
   }
   maximumMatching(A, Ax, tau, imatch);
   const rowPos = new Int32Array(n);
   for (let j = 0; j < n; j++) rowPos[imatch[j]!] = j;
-  const { Cp, Ci } = symmetrizedPattern(n, Ap, Ai, rowPos);
-  const q = amdOrder(n, Cp, Ci);
-  return { n, q: q.slice(), prefRow: imatch }; // slice: amdOrder returns a view on n+1 entries
+  const { Cp, Ci, nnz } = symmetrizedPattern(n, Ap, Ai, rowPos);
+  // The ordering destroys its input: the count reads a copy of the pattern.
+  const CpKept = Cp.slice();
+  const CiKept = Ci.slice(0, nnz);
+  const q = amdOrder(n, Cp, Ci).slice(); // slice: amdOrder returns a view on n+1 entries
+  return { n, q, prefRow: imatch, fill: choleskyFillCount(n, CpKept, CiKept, q) };
 }

@@ -13,6 +13,7 @@ import {
   type ComplexNumericLu,
   createComplexNumericLu,
   initialFactorCapacity,
+  reserveFactorStorage,
   type SymbolicLu,
 } from './lu-types.js';
 import { analyzePattern } from './ordering.js';
@@ -42,9 +43,11 @@ export function createSparseComplexSolver(
   const tol = tolerancesOf(options);
   const ordering = options.ordering ?? 'amd';
   const ws = createLuWorkspace(n, nnz, true);
-  const N: ComplexNumericLu = createComplexNumericLu(n, initialFactorCapacity(pattern));
+  const N: ComplexNumericLu = createComplexNumericLu(n, initialFactorCapacity(pattern, options.capacity));
   let S: SymbolicLu | null = options.symbolic ?? null;
   let valid = false;
+  /** Whether the storage is sized: by measured sizes given, else at the first fresh factorization. */
+  let reserved = options.capacity !== undefined;
   let factorizations = 0;
   let refactorizations = 0;
   let fallbacks = 0;
@@ -81,6 +84,10 @@ export function createSparseComplexSolver(
       }
       if (!ws.rowScaleCurrent) computeRowScaleComplex(pattern.Ap, pattern.Ai, Ax, Az, ws);
       factorizations++;
+      if (!reserved) {
+        reserveFactorStorage(N, S.fill);
+        reserved = true;
+      }
       let status = luFactorComplex(pattern, Ax, Az, S, N, ws, tol);
       if (status !== 0 && !analysedNow && ordering === 'amd') {
         // As in solver.ts: an analysis from other values (another frequency) is redone on these.

@@ -12,9 +12,11 @@
 import { luFactor } from './lu.js';
 import {
   createNumericLu,
+  type FactorCapacity,
   initialFactorCapacity,
   type NumericLu,
   type PivotTolerances,
+  reserveFactorStorage,
   type SymbolicLu,
 } from './lu-types.js';
 import { analyzePattern, type Ordering } from './ordering.js';
@@ -41,6 +43,12 @@ export interface SparseSolverOptions {
   readonly singularTolerance?: number;
   /** A symbolic analysis to reuse (for example the real solver's, for the complex solver). */
   readonly symbolic?: SymbolicLu;
+  /**
+   * The entries an earlier factorization on the same pattern and ordering stored in L and in U
+   * ({@link SparseRealSolver.factorSizes}): room for them is reserved before the first factorization.
+   * Without it the storage starts at the size of the matrix and grows as the factorization fills in.
+   */
+  readonly capacity?: FactorCapacity;
 }
 
 /** Counters of the work a sparse solver did, for benchmarks and diagnostics. */
@@ -95,6 +103,8 @@ export interface SparseRealSolver extends RealLinearSolver {
    * forces a fresh factorization.
    */
   usePivotOrder(order: PivotOrder): void;
+  /** The entries stored in L (unit diagonal excluded) and in U (diagonal excluded) by the last factorization. */
+  factorSizes(): FactorCapacity;
   statistics(): LuStatistics;
 }
 
@@ -115,9 +125,11 @@ export function createSparseRealSolver(
   const tol = tolerancesOf(options);
   const ordering = options.ordering ?? 'amd';
   const ws: LuWorkspace = createLuWorkspace(n, pattern.Ap[n]!, false);
-  const N: NumericLu = createNumericLu(n, initialFactorCapacity(pattern));
+  const N: NumericLu = createNumericLu(n, initialFactorCapacity(pattern, options.capacity));
   let S: SymbolicLu | null = options.symbolic ?? null;
   let valid = false;
+  /** Whether the storage is sized: by measured sizes given, else at the first fresh factorization. */
+  let reserved = options.capacity !== undefined;
   let factorizations = 0;
   let refactorizations = 0;
   let fallbacks = 0;
@@ -146,6 +158,10 @@ export function createSparseRealSolver(
       }
       if (!ws.rowScaleCurrent) computeRowScale(pattern.Ap, pattern.Ai, Ax, ws);
       factorizations++;
+      if (!reserved) {
+        reserveFactorStorage(N, S.fill);
+        reserved = true;
+      }
       let status = luFactor(pattern, Ax, S, N, ws, tol);
       if (status !== 0 && !analysedNow && ordering === 'amd') {
         // The matching and order came from other values (an earlier Newton iterate or frequency);
@@ -209,6 +225,9 @@ export function createSparseRealSolver(
       adopted = order;
       factorizationsAtAdoption = factorizations;
       valid = true;
+    },
+    factorSizes(): FactorCapacity {
+      return { lower: N.Lp[n]!, upper: N.Up[n]! };
     },
     statistics(): LuStatistics {
       return { factorizations, refactorizations, fallbacks, reanalyses, nnzL: N.Lp[n]!, nnzU: N.Up[n]! + n };
