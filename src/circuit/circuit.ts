@@ -7,7 +7,7 @@ import type { ValueSpec } from '../devices/descriptor.js';
 import { DIODE_PARAMETERS, type DiodeModel } from '../devices/diode/diode-model.js';
 import { MOSFET_PARAMETERS, type MosfetModel } from '../devices/mosfet/mosfet-model.js';
 import { checkOpAmpOptions, OP_AMP_PARAMETERS, type OpAmpOptions } from '../devices/op-amp/op-amp-model.js';
-import { parseParameters } from '../devices/parameters.js';
+import { type ParameterTable, parseParameters } from '../devices/parameters.js';
 import { KINDS } from '../devices/registry.js';
 import { duplicateName, invalidCircuit, invalidValue, unknownElement } from '../errors/messages.js';
 import { describeGiven } from '../errors/wording.js';
@@ -84,6 +84,13 @@ export class Circuit {
   #elements: ElementRecord[] = [];
   #byName = new Map<string, ElementRecord>();
   #revision = 0;
+  /**
+   * Parsed models by the object the caller gave and the table that read it, so that elements built
+   * from one model object share one parsed (frozen) model, and their devices one table of values:
+   * 100,000 transistors of two models hold two. An entry serves only while the object still holds
+   * the same keys and values, since a caller may change it between two elements.
+   */
+  readonly #models = new WeakMap<object, ParsedModel>();
 
   /**
    * A counter that grows with every change, so that caches built from the circuit (compiled
@@ -305,7 +312,7 @@ export class Circuit {
       name,
       anode: node(anode, [...path, 'anode']),
       cathode: node(cathode, [...path, 'cathode']),
-      model: parseParameters(DIODE_PARAMETERS, model, [...path, 'model'], 'diode'),
+      model: this.#parseModel(DIODE_PARAMETERS, model, [...path, 'model'], 'diode'),
     });
   }
 
@@ -321,7 +328,7 @@ export class Circuit {
       base: t.base,
       emitter: t.emitter,
       polarity,
-      model: parseParameters(BJT_PARAMETERS, model, [...path, 'model'], 'bipolar transistor', ['polarity']),
+      model: this.#parseModel(BJT_PARAMETERS, model, [...path, 'model'], 'bipolar transistor', ['polarity']),
     });
   }
 
@@ -338,7 +345,7 @@ export class Circuit {
       source: t.source,
       body: t.body ?? t.source,
       polarity,
-      model: parseParameters(MOSFET_PARAMETERS, model, [...path, 'model'], 'MOSFET', ['polarity']),
+      model: this.#parseModel(MOSFET_PARAMETERS, model, [...path, 'model'], 'MOSFET', ['polarity']),
     });
   }
 
@@ -427,6 +434,29 @@ export class Circuit {
     return index;
   }
 
+  /** {@link parseParameters}, once per model object while it keeps its values. */
+  #parseModel<K extends string>(
+    table: ParameterTable<K>,
+    given: unknown,
+    path: readonly (string | number)[],
+    kindName: string,
+    skip: readonly string[] = [],
+  ): Partial<Record<K, number>> {
+    if (given === undefined) return NO_PARAMETERS as Partial<Record<K, number>>;
+    if (given === null || typeof given !== 'object')
+      return parseParameters(table, given, path, kindName, skip);
+    // Plain `{}` (a diode's default model) is a new object per element: one parsed model serves all.
+    if (Object.keys(given).length === 0 && !Array.isArray(given))
+      return NO_PARAMETERS as Partial<Record<K, number>>;
+    const known = this.#models.get(given);
+    if (known !== undefined && known.table === table && holdsValues(given, known.values)) {
+      return known.parsed as Partial<Record<K, number>>;
+    }
+    const parsed = Object.freeze(parseParameters(table, given, path, kindName, skip));
+    this.#models.set(given, { table, values: Object.entries(given), parsed });
+    return parsed;
+  }
+
   #add(record: ElementRecord): this {
     // Records are shared with callers (elements, element()); freezing their nested objects too keeps
     // every value as checked.
@@ -436,6 +466,27 @@ export class Circuit {
     this.#revision++;
     return this;
   }
+}
+
+/** The parsed model of every element given no parameters (a diode's default model). */
+const NO_PARAMETERS: Readonly<Record<string, number>> = Object.freeze({});
+
+/** A model as parsed, with the table that read it and the entries of the object it came from. */
+interface ParsedModel {
+  readonly table: ParameterTable<string>;
+  readonly values: readonly (readonly [string, unknown])[];
+  readonly parsed: object;
+}
+
+/** Whether `given` has exactly the entries `values`, in that order (the same values by Object.is). */
+function holdsValues(given: object, values: readonly (readonly [string, unknown])[]): boolean {
+  const keys = Object.keys(given);
+  if (keys.length !== values.length) return false;
+  for (let k = 0; k < keys.length; k++) {
+    const [key, value] = values[k]!;
+    if (keys[k] !== key || !Object.is((given as Record<string, unknown>)[key], value)) return false;
+  }
+  return true;
 }
 
 /** The `noiseless` flag of a resistor's options, checked. */

@@ -143,6 +143,48 @@ export function updateWithDefaults<K extends string>(
   }
 }
 
+/**
+ * {@link withDefaults} once per table and model object: the devices built from one model (the
+ * builder gives the elements made from one model object one frozen parsed model) share one table of
+ * values instead of a table each. A device that takes other values copies it first
+ * ({@link revaluedDefaults}).
+ */
+export function sharedDefaults<K extends string>(
+  table: ParameterTable<K>,
+  given: Partial<Record<K, number>>,
+): Readonly<Record<K, number>> {
+  let byModel = sharedTables.get(table);
+  if (byModel === undefined) {
+    byModel = new WeakMap();
+    sharedTables.set(table, byModel);
+  }
+  let values = byModel.get(given);
+  if (values === undefined) {
+    values = Object.freeze(withDefaults(table, given));
+    byModel.set(given, values);
+  }
+  return values as Readonly<Record<K, number>>;
+}
+
+const sharedTables = new WeakMap<ParameterTable<string>, WeakMap<object, Readonly<Record<string, number>>>>();
+
+/**
+ * The table of values for `given`, from `values`, the table for `before`: changed in place when the
+ * device owns it, else on a copy (a table from {@link sharedDefaults} is never changed). The device
+ * owns the table returned.
+ */
+export function revaluedDefaults<K extends string>(
+  table: ParameterTable<K>,
+  values: Readonly<Record<K, number>>,
+  owned: boolean,
+  before: Partial<Record<K, number>>,
+  given: Partial<Record<K, number>>,
+): Record<K, number> {
+  const out = owned ? (values as Record<K, number>) : { ...values };
+  updateWithDefaults(table, out, before, given);
+  return out;
+}
+
 /** Each table's keys and defaults, listed once: a value change re-reads a model often. */
 const listedTables = new WeakMap<
   ParameterTable<string>,

@@ -9,6 +9,7 @@ import { conditionsAt, solveFromCurrent, startFromGuess } from '../../src/analys
 import { resolveOptions } from '../../src/analysis/options.js';
 import {
   acAnalysis,
+  type BjtModel,
   Circuit,
   dcSweep,
   GROUND,
@@ -300,6 +301,45 @@ describe('values changed in place (as a Monte Carlo sample changes them)', () =>
     expect(prepared.compilations).toBe(1);
     expect(before.voltage('level')).toBe(levelBefore);
     expect(prepared.operatingPoint().voltage('level')).not.toBe(levelBefore);
+  });
+
+  it('change one of several transistors built from one model object, and leave the others as they were', () => {
+    // Two stages built from one model object share one parsed model and one table of values; an
+    // in-place change of one stage's β must reach that stage only (common practice, no source:
+    // the answer must equal a circuit built with the two values given apart).
+    const shared = { polarity: 'npn', forwardBeta: 100, earlyVoltage: 60 } as const;
+    const pair = (first: BjtModel, second: BjtModel) =>
+      new Circuit()
+        .voltageSource('supply', 'vcc', GROUND, { dc: 9 })
+        .resistor('biasTop', 'vcc', 'base', '470k')
+        .resistor('biasBottom', 'base', GROUND, '100k')
+        .bjt('input', { collector: 'in', base: 'base', emitter: GROUND }, first)
+        .resistor('inputLoad', 'vcc', 'in', '10k')
+        .bjt('mirror', { collector: 'out', base: 'base', emitter: GROUND }, second)
+        .resistor('mirrorLoad', 'vcc', 'out', '10k');
+    const circuit = pair(shared, shared);
+    const input = circuit.elements.findIndex((e) => e.name === 'input');
+    const mirror = circuit.elements.findIndex((e) => e.name === 'mirror');
+    expect((circuit.elements[input] as { model: object }).model).toBe(
+      (circuit.elements[mirror] as { model: object }).model,
+    );
+    const prepared = prepareCircuit(circuit);
+    prepared.operatingPoint();
+    const changed = pair({ ...shared, forwardBeta: 300 }, shared);
+    prepared.revalueInPlace([input], [changed.elements[input]!]);
+    const options = resolveOptions({});
+    const solver = prepared.solver(options);
+    startFromGuess(solver);
+    const solved = solveFromCurrent(solver, conditionsAt(options.temperature, options));
+    const fresh = operatingPoint(changed);
+    for (const node of ['in', 'out', 'base']) {
+      expect(solved.voltage(node)).toBeCloseTo(fresh.voltage(node), 9);
+    }
+    // Same junction, same collector current: the base currents tell the two β apart (ib = ic/β).
+    for (const stage of ['input', 'mirror']) {
+      expect(solved.bjt(stage).ib).toBeCloseTo(fresh.bjt(stage).ib, 12);
+    }
+    expect(solved.bjt('mirror').ib / solved.bjt('input').ib).toBeCloseTo(3, 2);
   });
 
   it('bind a new device where a value adds an unknown, and still answer as a fresh compile', () => {

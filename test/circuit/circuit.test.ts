@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import {
+  type BjtModel,
   Circuit,
   type ErrorCode,
   GROUND,
@@ -720,5 +721,46 @@ describe('Circuit builder removes and replaces elements', () => {
     expectRejected(() => loadedDivider().remove('sense'), 'unknown-element', 'sense');
     expectRejected(() => loadedDivider().replace('sense', () => undefined), 'unknown-element', 'sense');
     expectRejected(() => loadedDivider().without('load', 'sense'), 'unknown-element', 'sense');
+  });
+});
+
+describe('Circuit builder shares a model given once', () => {
+  // Common practice, no source: elements built from one model object need one parsed model, which
+  // keeps a circuit of many like transistors small; a model object changed between two elements
+  // must still give each element the values it had when that element was added.
+  const model: BjtModel = { polarity: 'npn', forwardBeta: 120, earlyVoltage: 75 };
+
+  it('gives the elements built from one model object one parsed model', () => {
+    const c = new Circuit()
+      .bjt('left', { collector: 'a', base: 'b', emitter: GROUND }, model)
+      .bjt('right', { collector: 'c', base: 'b', emitter: GROUND }, model)
+      .diode('clampA', 'a', GROUND)
+      .diode('clampB', 'c', GROUND, {});
+    const record = (name: string) => c.element(name) as { model: object };
+    expect(record('left').model).toBe(record('right').model);
+    expect(record('left').model).toEqual({ forwardBeta: 120, earlyVoltage: 75 });
+    expect(record('clampA').model).toBe(record('clampB').model);
+    expect(Object.isFrozen(record('left').model)).toBe(true);
+  });
+
+  it('reads a model object afresh once its values changed', () => {
+    const changing = { ...model };
+    const c = new Circuit().bjt('first', { collector: 'a', base: 'b', emitter: GROUND }, changing);
+    changing.forwardBeta = 250;
+    c.bjt('second', { collector: 'c', base: 'b', emitter: GROUND }, changing);
+    delete (changing as { earlyVoltage?: number }).earlyVoltage;
+    c.bjt('third', { collector: 'd', base: 'b', emitter: GROUND }, changing);
+    expect((c.element('first') as { model: object }).model).toEqual({ forwardBeta: 120, earlyVoltage: 75 });
+    expect((c.element('second') as { model: object }).model).toEqual({ forwardBeta: 250, earlyVoltage: 75 });
+    expect((c.element('third') as { model: object }).model).toEqual({ forwardBeta: 250 });
+  });
+
+  it('still refuses a bad value in a model object it has read before', () => {
+    const reused = { ...model };
+    const c = new Circuit().bjt('good', { collector: 'a', base: 'b', emitter: GROUND }, reused);
+    reused.forwardBeta = -3;
+    expect(() => c.bjt('bad', { collector: 'c', base: 'b', emitter: GROUND }, reused)).toThrow(
+      QuiescentError,
+    );
   });
 });

@@ -38,7 +38,7 @@ import {
   saturationCurrentAt,
 } from '../junction.js';
 import { flickerNoise, shotNoise, thermalNoise } from '../noise-densities.js';
-import { updateWithDefaults, withDefaults } from '../parameters.js';
+import { revaluedDefaults, sharedDefaults } from '../parameters.js';
 import { addConductance, conductanceSlots, NO_SLOTS } from '../stamp.js';
 import { BJT_PARAMETERS } from './bjt-model.js';
 import type { BjtRecord } from './record.js';
@@ -61,7 +61,9 @@ function present(
 export class Bjt implements Device {
   readonly nonlinear = true;
   readonly name: string;
-  private readonly p: ReturnType<typeof withDefaults<keyof typeof BJT_PARAMETERS>>;
+  private p: Readonly<Record<keyof typeof BJT_PARAMETERS, number>>;
+  /** Whether {@link p} is this device's own (else shared with the devices of the same model). */
+  private ownsValues = false;
   /** +1 for npn, −1 for pnp. */
   private sign: number;
   /** The junctions' nodes: the terminals, or the internal nodes behind the terminal resistances. */
@@ -117,7 +119,7 @@ export class Bjt implements Device {
 
   constructor(public record: BjtRecord) {
     this.name = record.name;
-    this.p = withDefaults(BJT_PARAMETERS, record.model);
+    this.p = sharedDefaults(BJT_PARAMETERS, record.model);
     this.sign = 1;
     this.hasSeries = false;
     this.take(record, this.p);
@@ -132,9 +134,10 @@ export class Bjt implements Device {
     ) {
       return false;
     }
-    updateWithDefaults(BJT_PARAMETERS, p, this.record.model, record.model);
+    this.p = revaluedDefaults(BJT_PARAMETERS, p, this.ownsValues, this.record.model, record.model);
+    this.ownsValues = true;
     this.record = record;
-    this.take(record, p);
+    this.take(record, this.p);
     return true;
   }
   /** The constants of the load that follow from the model values alone; the next prepare redoes the rest. */

@@ -30,7 +30,7 @@ import {
   saturationCurrentAt,
 } from '../junction.js';
 import { flickerNoise, shotNoise, thermalNoise } from '../noise-densities.js';
-import { updateWithDefaults, withDefaults } from '../parameters.js';
+import { revaluedDefaults, sharedDefaults } from '../parameters.js';
 import { addConductance, addCurrent, conductanceSlots, NO_SLOTS } from '../stamp.js';
 import { DIODE_PARAMETERS } from './diode-model.js';
 import type { DiodeRecord } from './record.js';
@@ -39,7 +39,9 @@ import type { DiodeRecord } from './record.js';
 export class Diode implements Device {
   readonly nonlinear = true;
   readonly name: string;
-  private readonly p: ReturnType<typeof withDefaults<keyof typeof DIODE_PARAMETERS>>;
+  private p: Readonly<Record<keyof typeof DIODE_PARAMETERS, number>>;
+  /** Whether {@link p} is this device's own (else shared with the devices of the same model). */
+  private ownsValues = false;
   private a = 0;
   private c = 0;
   /** The junction's anode side: the anode itself, or the internal node behind the series resistance. */
@@ -64,14 +66,15 @@ export class Diode implements Device {
 
   constructor(public record: DiodeRecord) {
     this.name = record.name;
-    this.p = withDefaults(DIODE_PARAMETERS, record.model);
+    this.p = sharedDefaults(DIODE_PARAMETERS, record.model);
     this.take(this.p);
   }
   /** Take other model values; a series resistance appearing or vanishing needs a new binding. */
   revalue(record: DiodeRecord): boolean {
     const series = record.model.seriesResistance ?? DIODE_PARAMETERS.seriesResistance.defaultValue;
     if (series > 0 !== this.p.seriesResistance > 0) return false;
-    updateWithDefaults(DIODE_PARAMETERS, this.p, this.record.model, record.model);
+    this.p = revaluedDefaults(DIODE_PARAMETERS, this.p, this.ownsValues, this.record.model, record.model);
+    this.ownsValues = true;
     this.record = record;
     this.take(this.p);
     return true;

@@ -25,7 +25,7 @@ import type {
   NonlinearCurrent,
 } from '../device.js';
 import { channelThermalNoise, chargeBasedChannelThermalNoise, flickerNoise } from '../noise-densities.js';
-import { updateWithDefaults, withDefaults } from '../parameters.js';
+import { revaluedDefaults, sharedDefaults } from '../parameters.js';
 import { addConductance, conductanceSlots, NO_SLOTS } from '../stamp.js';
 import {
   type ChargeModelConstants,
@@ -49,7 +49,9 @@ const NO_CHARGE_STATE = new Float64Array(0);
 export class Mosfet implements Device {
   readonly nonlinear = true;
   readonly name: string;
-  private readonly p: ReturnType<typeof withDefaults<keyof typeof MOSFET_PARAMETERS>>;
+  private p: Readonly<Record<keyof typeof MOSFET_PARAMETERS, number>>;
+  /** Whether {@link p} is this device's own (else shared with the devices of the same model). */
+  private ownsValues = false;
   /** +1 for nmos, −1 for pmos. */
   private sign = 1;
   /** |Vth0| in the mirrored frame, at the analysis temperature. */
@@ -99,12 +101,13 @@ export class Mosfet implements Device {
 
   constructor(public record: MosfetRecord) {
     this.name = record.name;
-    this.p = withDefaults(MOSFET_PARAMETERS, record.model);
+    this.p = sharedDefaults(MOSFET_PARAMETERS, record.model);
     this.take(record);
   }
   /** Take other model values: a MOSFET's unknowns and slots never depend on them. */
   revalue(record: MosfetRecord): boolean {
-    updateWithDefaults(MOSFET_PARAMETERS, this.p, this.record.model, record.model);
+    this.p = revaluedDefaults(MOSFET_PARAMETERS, this.p, this.ownsValues, this.record.model, record.model);
+    this.ownsValues = true;
     this.record = record;
     this.take(record);
     return true;
