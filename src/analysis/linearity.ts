@@ -243,6 +243,9 @@ export function linearity(ac: AcAnalysis, options: LinearityOptions = {}): Linea
   };
 }
 
+/** The junctions of a device without any. */
+const NO_PROBES: readonly JunctionProbe[] = [];
+
 /** Each junction's own figures at its worst frequency. */
 function junctionEntries(ac: AcAnalysis, budget: number): JunctionLinearity[] {
   const op = ac.operatingPoint;
@@ -251,10 +254,19 @@ function junctionEntries(ac: AcAnalysis, budget: number): JunctionLinearity[] {
   const frequencies = ac.frequencies;
   const junctionLimit = junctionAmplitudeForBound(budget);
   const channelLimit = channelAmplitudeForBound(budget);
+  const probed = system.devices.map((device) => device.junctions?.(op.x, op.conditions) ?? NO_PROBES);
+  // Every junction's amplitudes are a view on one buffer: a typed array each would cost an array
+  // buffer each (about 7 MB for 33,000 junctions).
+  let count = 0;
+  for (const probes of probed) count += probes.length;
+  const allAmplitudes = new Float64Array(count * frequencies.length);
+  let next = 0;
   const junctions: JunctionLinearity[] = [];
-  for (const device of system.devices) {
-    for (const probe of device.junctions?.(op.x, op.conditions) ?? []) {
-      const amplitudes = new Float64Array(frequencies.length);
+  for (let d = 0; d < system.devices.length; d++) {
+    const device = system.devices[d]!;
+    for (const probe of probed[d]!) {
+      const amplitudes = allAmplitudes.subarray(next, next + frequencies.length);
+      next += frequencies.length;
       let worst = -1;
       for (let k = 0; k < frequencies.length; k++) {
         const base = k * stride;
