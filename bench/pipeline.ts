@@ -9,8 +9,10 @@
  *   family, elements, unknowns, iterations, buildMs, compileMs, firstOperatingPointMs,
  *   repeatedOperatingPointMs, acPerFrequencyMs, linearityMs, peakRssMb
  * (times in ms, medians of repeats; acPerFrequencyMs is the marginal cost of one more frequency, the
- * set-up of an analysis left out, from the fastest of the repeats; peakRssMb is the process's peak resident memory after one pass:
- * build, operating point, a two-frequency AC analysis and its linearity report).
+ * set-up of an analysis left out, from the fastest of the repeats; peakRssMb is the peak resident
+ * memory of a process that makes one pass, build, operating point, a two-frequency AC analysis and
+ * its linearity report, on the library bundled and run by plain Node, as the built package runs:
+ * bench/pipeline-memory.ts).
  *
  * Usage: npm run bench:pipeline [-- --families bipolar,mesh,cmos] [--sizes 1000,10000,100000]
  *                               [--export DIR]
@@ -19,11 +21,13 @@
  * outside LU can time the floor on the same matrices.
  */
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { join, resolve } from 'node:path';
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { dirname, join, resolve } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { fileURLToPath } from 'node:url';
 import { parseArgs } from 'node:util';
+import { buildSync } from 'esbuild';
 import { AcWorkspace } from '../src/analysis/ac-workspace.js';
 import { preparedFor } from '../src/analysis/prepared.js';
 import { acAnalysis, linearity, operatingPoint } from '../src/index.js';
@@ -40,6 +44,7 @@ const { values } = parseArgs({
     sizes: { type: 'string', default: '1000,10000,100000' },
     export: { type: 'string' },
     case: { type: 'string' },
+    'peak-rss': { type: 'string' },
   },
 });
 
@@ -71,15 +76,12 @@ function fastest(repeats: number, run: () => void): number {
   return best;
 }
 
-function runCase(family: PipelineFamily, size: number, exportDir: string | undefined): void {
-  // Peak memory is that of one pass as a user makes it (build, operating point, a short AC sweep,
-  // the linearity report), read before the timing repeats build more circuits.
-  {
-    const { circuit } = pipelineCircuit(family, size);
-    const op = operatingPoint(circuit);
-    linearity(acAnalysis(op, { frequencies: [FREQUENCY, 2 * FREQUENCY] }));
-  }
-  const peakRssMb = process.resourceUsage().maxRSS / 1024;
+function runCase(
+  family: PipelineFamily,
+  size: number,
+  exportDir: string | undefined,
+  peakRssMb: number,
+): void {
   const repeats = size >= 100_000 ? 3 : size >= 10_000 ? 5 : 11;
   let built = pipelineCircuit(family, size);
   const buildMs = timed(repeats, () => {
@@ -172,6 +174,7 @@ if (values.case !== undefined) {
     family as PipelineFamily,
     Number(size),
     values.export === undefined ? undefined : resolve(values.export),
+    Number(values['peak-rss']),
   );
 } else {
   const families = values.families!.split(',') as PipelineFamily[];
@@ -181,14 +184,37 @@ if (values.case !== undefined) {
   }
   const sizes = values.sizes!.split(',').map(Number);
   const self = fileURLToPath(import.meta.url);
+  // The memory pass runs on the library bundled as the built package is (esbuild, as the build's
+  // tsup uses), in a process of its own per case.
+  const bundleDir = mkdtempSync(join(tmpdir(), 'quiescent-pipeline-'));
+  const probe = join(bundleDir, 'pipeline-memory.mjs');
+  buildSync({
+    entryPoints: [join(dirname(self), 'pipeline-memory.ts')],
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    outfile: probe,
+    logLevel: 'warning',
+  });
   let failed = 0;
   for (const family of families) {
     for (const size of sizes) {
-      const args = ['--import', 'tsx', self, '--case', `${family}:${size}`];
+      const memory = spawnSync(process.execPath, ['--max-old-space-size=8192', probe, `${family}:${size}`], {
+        encoding: 'utf8',
+        stdio: ['ignore', 'pipe', 'inherit'],
+      });
+      const peakRssMb = Number(memory.stdout.trim());
+      if (memory.status !== 0 || !(peakRssMb > 0)) {
+        failed++;
+        continue;
+      }
+      const args = ['--import', 'tsx', self, '--case', `${family}:${size}`, '--peak-rss', String(peakRssMb)];
       if (values.export !== undefined) args.push('--export', resolve(values.export));
       const run = spawnSync(process.execPath, ['--max-old-space-size=8192', ...args], { stdio: 'inherit' });
       if (run.status !== 0) failed++;
     }
   }
+  rmSync(bundleDir, { recursive: true, force: true });
   process.exit(failed === 0 ? 0 : 1);
 }
