@@ -99,6 +99,19 @@ export function noSuchParameter(
   );
 }
 
+/**
+ * The function of a parameter of `record` its circuit's solution follows most nearly linearly (see
+ * `ParameterSpec.solutionFollows`): `'linear'` for the parameter itself.
+ */
+export function solutionFollows(
+  record: ElementRecord,
+  parameter: string,
+): 'linear' | 'reciprocal' | 'logarithm' {
+  const model = modelOf(record);
+  if (model === null || !Object.hasOwn(model.table, parameter)) return 'linear';
+  return model.table[parameter]!.solutionFollows ?? 'linear';
+}
+
 /** The present value of a parameter of `record` (a model parameter's default when not given). */
 export function parameterValue(record: ElementRecord, parameter: string): number {
   parameterVariant(record, parameter); // checks the name

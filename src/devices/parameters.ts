@@ -16,6 +16,14 @@ export interface ParameterSpec {
   readonly unit: Unit | 'none';
   readonly defaultValue: number;
   readonly range: ParameterRange;
+  /**
+   * The function of the parameter a circuit's solution follows most nearly linearly, where that is
+   * not the parameter itself: a current gain acts through the base current I_C/β, so through 1/β
+   * (`'reciprocal'`); a saturation current moves a junction's voltage by n·Vt·ln of its ratio
+   * (`'logarithm'`). A first-order prediction of the solution after a large change (a Monte Carlo
+   * sample's start) extrapolates in it.
+   */
+  readonly solutionFollows?: 'reciprocal' | 'logarithm';
 }
 
 /** A table of parameter specifications, keyed by parameter name. */

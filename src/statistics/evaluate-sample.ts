@@ -6,7 +6,7 @@
  * that is what makes a run bit-identical for any number of workers and any split.
  */
 
-import { parameterVariant } from '../analysis/element-parameters.js';
+import { parameterVariant, solutionFollows } from '../analysis/element-parameters.js';
 import {
   conditionsAt,
   type OperatingPoint,
@@ -53,6 +53,11 @@ export class SampleEvaluator {
    * moves every junction.
    */
   readonly #directions: readonly (Float64Array | null)[] | null;
+  /**
+   * How each varied parameter's change enters the prediction: the parameter itself, or the function
+   * of it the solution follows most nearly linearly (1/β, ln I_S; see `ParameterSpec.solutionFollows`).
+   */
+  readonly #follows: readonly ('linear' | 'reciprocal' | 'logarithm')[];
   /** The pivot order of the nominal solve's last factorization (null: a fresh search per sample). */
   readonly #pivots: PivotOrder | null;
 
@@ -69,6 +74,12 @@ export class SampleEvaluator {
     this.#elements = variedElements(this.#base, varied);
     this.#positions = this.#elements.map((e) => e.position);
     this.#records = this.#elements.map((e) => e.nominal);
+    const system = this.#base.system;
+    this.#follows = varied.map((p) =>
+      p.element === null
+        ? 'linear'
+        : solutionFollows(system.records[system.deviceIndex.get(p.element)!]!, p.parameter),
+    );
     // The nominal solve comes first on every worker, so the LU ordering of the pattern is always the
     // nominal circuit's, whichever sample a worker starts with.
     let nominal: OperatingPoint | QuiescentError;
@@ -179,7 +190,12 @@ export class SampleEvaluator {
     else solver.workspace.solver.invalidate();
   }
 
-  /** x ← the nominal solution moved to first order by the sample's changes. */
+  /**
+   * x ← the nominal solution moved to first order by the sample's changes, each taken in the
+   * function of its parameter the solution follows most nearly linearly: with u = f(p),
+   * Δx ≈ (dx/dp)·(dp/du)·(f(p) − f(p₀)), so that a β drawn at twice its nominal value moves the
+   * start as a halved base current does.
+   */
   #predict(values: Float64Array, x: Float64Array): void {
     const start = this.#start!;
     const directions = this.#directions!;
@@ -187,8 +203,15 @@ export class SampleEvaluator {
     x.set(start);
     for (let j = 0; j < directions.length; j++) {
       const d = directions[j] ?? null;
-      const delta = values[j]! - this.#varied[j]!.nominal;
+      const p0 = this.#varied[j]!.nominal;
+      const p = values[j]!;
+      let delta = p - p0;
       if (d === null || delta === 0) continue;
+      const follows = this.#follows[j];
+      if (follows === 'reciprocal') delta = -p0 * p0 * (1 / p - 1 / p0);
+      else if (follows === 'logarithm') delta = p0 * Math.log(p / p0);
+      // A parameter at an infinite nominal value (no Early effect) gives no direction to move in.
+      if (!Number.isFinite(delta)) continue;
       for (let u = 0; u < n; u++) x[u]! += d[u]! * delta;
     }
   }

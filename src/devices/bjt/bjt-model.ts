@@ -59,12 +59,17 @@ export interface BjtModel {
 
 /** Parameter table of the bipolar transistor (polarity excluded). */
 export const BJT_PARAMETERS: ParameterTable<Exclude<keyof BjtModel, 'polarity'>> = {
-  saturationCurrent: { unit: 'A', defaultValue: 1e-15, range: 'positive' },
-  forwardBeta: { unit: 'none', defaultValue: 100, range: 'positive' },
-  reverseBeta: { unit: 'none', defaultValue: 1, range: 'positive' },
+  saturationCurrent: { unit: 'A', defaultValue: 1e-15, range: 'positive', solutionFollows: 'logarithm' },
+  forwardBeta: { unit: 'none', defaultValue: 100, range: 'positive', solutionFollows: 'reciprocal' },
+  reverseBeta: { unit: 'none', defaultValue: 1, range: 'positive', solutionFollows: 'reciprocal' },
   forwardEmissionCoefficient: { unit: 'none', defaultValue: 1, range: 'positive' },
   reverseEmissionCoefficient: { unit: 'none', defaultValue: 1, range: 'positive' },
-  earlyVoltage: { unit: 'V', defaultValue: Number.POSITIVE_INFINITY, range: 'positive-or-infinite' },
+  earlyVoltage: {
+    unit: 'V',
+    defaultValue: Number.POSITIVE_INFINITY,
+    range: 'positive-or-infinite',
+    solutionFollows: 'reciprocal',
+  },
   baseEmitterCapacitance: { unit: 'F', defaultValue: 0, range: 'non-negative' },
   baseCollectorCapacitance: { unit: 'F', defaultValue: 0, range: 'non-negative' },
   forwardTransitTime: { unit: 's', defaultValue: 0, range: 'non-negative' },

@@ -38,7 +38,7 @@ export interface DiodeModel {
 
 /** Parameter table of the diode: units, defaults and admissible ranges. */
 export const DIODE_PARAMETERS: ParameterTable<keyof DiodeModel> = {
-  saturationCurrent: { unit: 'A', defaultValue: 1e-14, range: 'positive' },
+  saturationCurrent: { unit: 'A', defaultValue: 1e-14, range: 'positive', solutionFollows: 'logarithm' },
   emissionCoefficient: { unit: 'none', defaultValue: 1, range: 'positive' },
   seriesResistance: { unit: 'Ω', defaultValue: 0, range: 'non-negative' },
   junctionCapacitance: { unit: 'F', defaultValue: 0, range: 'non-negative' },
