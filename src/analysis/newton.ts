@@ -13,6 +13,8 @@ import { diagnoseSingular } from './singular-diagnosis.js';
 export class NewtonWorkspace {
   readonly x: Float64Array;
   readonly previous: Float64Array;
+  /** The iterate a search started from, which every fallback strategy starts from again. */
+  readonly start: Float64Array;
   readonly A: Float64Array;
   readonly b: Float64Array;
   readonly residual: Float64Array;
@@ -51,6 +53,7 @@ export class NewtonWorkspace {
     const { n, nnz } = system;
     this.x = new Float64Array(n + 1);
     this.previous = new Float64Array(n + 1);
+    this.start = new Float64Array(n + 1);
     this.A = new Float64Array(nnz + 1);
     this.b = new Float64Array(n + 1);
     this.residual = new Float64Array(n + 1);

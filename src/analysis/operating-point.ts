@@ -194,7 +194,9 @@ export function solveFromCurrent(solver: Solver, conditions: Conditions): Operat
     return new OperatingPoint(system, ws.x.slice(), conditions, attempts);
   }
   const attempts: StrategyAttempt[] = [];
-  const start = ws.x.slice();
+  // Kept in the workspace: a copy per call would be garbage the size of the circuit every call.
+  const start = ws.start;
+  start.set(ws.x);
   // On failure, the iterate closest to solving the circuit as given is kept for the diagnosis.
   let closest = start;
   let closestExcess = Number.POSITIVE_INFINITY;
