@@ -44,6 +44,27 @@ describe('the sparse real LU solver', () => {
     );
   });
 
+  // Storage reserved too small must grow and change nothing (Davis, CSparse cs_lu's reallocation,
+  // 2006): the solution equals that of a solver that reserved the counted fill.
+  it('grows storage reserved too small and solves as a solver that reserved enough', () => {
+    fc.assert(
+      fc.property(mnaCase, ({ rand, m }) => {
+        const n = m.pattern.n;
+        const cramped = createRealSolver(m.pattern, { capacity: { lower: 0, upper: 0 } });
+        const roomy = createRealSolver(m.pattern);
+        expect(cramped.factor(m.Ax)).toBe(0);
+        expect(roomy.factor(m.Ax)).toBe(0);
+        expect(cramped.factorSizes()).toEqual(roomy.factorSizes());
+        const b = rhs(rand, n);
+        const c = b.slice();
+        cramped.solve(b);
+        roomy.solve(c);
+        expect(Array.from(b)).toEqual(Array.from(c));
+      }),
+      { numRuns: 80 },
+    );
+  });
+
   // Aᵀx = b checked by its own scaled residual (Davis, CSparse cs_demo.c, 2006).
   it('solves the transposed system', () => {
     fc.assert(
