@@ -86,11 +86,16 @@ export class Circuit {
   #revision = 0;
   /**
    * Parsed models by the object the caller gave and the table that read it, so that elements built
-   * from one model object share one parsed (frozen) model, and their devices one table of values:
-   * 100,000 transistors of two models hold two. An entry serves only while the object still holds
-   * the same keys and values, since a caller may change it between two elements.
+   * from one model object parse it once. An entry serves only while the object still holds the same
+   * keys and values, since a caller may change it between two elements.
    */
   readonly #models = new WeakMap<object, ParsedModel>();
+  /**
+   * Parsed models by table and content, so that elements given equal models (the same object, or
+   * equal literals written element by element) share one frozen parsed model, and their devices one
+   * table of values: 100,000 transistors of two models hold two.
+   */
+  readonly #modelsByContent = new Map<ParameterTable<string>, Map<string, object>>();
 
   /**
    * A counter that grows with every change, so that caches built from the circuit (compiled
@@ -452,9 +457,26 @@ export class Circuit {
     if (known !== undefined && known.table === table && holdsValues(given, known.values)) {
       return known.parsed as Partial<Record<K, number>>;
     }
-    const parsed = Object.freeze(parseParameters(table, given, path, kindName, skip));
+    const parsed = this.#shared(table, parseParameters(table, given, path, kindName, skip));
     this.#models.set(given, { table, values: Object.entries(given), parsed });
-    return parsed;
+    return parsed as Partial<Record<K, number>>;
+  }
+
+  /** The model of this circuit equal to `parsed` (same table, keys in the same order, same values), frozen. */
+  #shared(table: ParameterTable<string>, parsed: Readonly<Record<string, number | undefined>>): object {
+    let byContent = this.#modelsByContent.get(table);
+    if (byContent === undefined) {
+      byContent = new Map();
+      this.#modelsByContent.set(table, byContent);
+    }
+    // A number's shortest decimal form names it exactly (0 and −0 alike, which no model tells apart).
+    let key = '';
+    for (const name in parsed) key += `${name}=${parsed[name]};`;
+    const known = byContent.get(key);
+    if (known !== undefined) return known;
+    const frozen = Object.freeze(parsed);
+    byContent.set(key, frozen);
+    return frozen;
   }
 
   #add(record: ElementRecord): this {

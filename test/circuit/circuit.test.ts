@@ -743,6 +743,17 @@ describe('Circuit builder shares a model given once', () => {
     expect(Object.isFrozen(record('left').model)).toBe(true);
   });
 
+  it('gives elements equal models written apart one parsed model, and unequal ones their own', () => {
+    const c = new Circuit()
+      .diode('first', 'a', GROUND, { junctionCapacitance: '2p', saturationCurrent: 1e-14 })
+      .diode('second', 'b', GROUND, { junctionCapacitance: 2e-12, saturationCurrent: '10f' })
+      .diode('third', 'c', GROUND, { junctionCapacitance: '3p', saturationCurrent: 1e-14 });
+    const model = (name: string) => (c.element(name) as { model: object }).model;
+    expect(model('first')).toBe(model('second'));
+    expect(model('third')).not.toBe(model('first'));
+    expect(model('third')).toEqual({ junctionCapacitance: 3e-12, saturationCurrent: 1e-14 });
+  });
+
   it('reads a model object afresh once its values changed', () => {
     const changing = { ...model };
     const c = new Circuit().bjt('first', { collector: 'a', base: 'b', emitter: GROUND }, changing);
