@@ -27,7 +27,7 @@ export interface SymbolicLu {
   readonly fill: number;
 }
 
-/** Pivot rows and the patterns of L and U of one fresh factorization (storage grows by doubling). */
+/** Pivot rows and the patterns of L and U of one fresh factorization (storage grows as it fills in). */
 interface LuPattern {
   readonly n: number;
   readonly pinv: Int32Array;

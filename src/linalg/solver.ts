@@ -46,7 +46,8 @@ export interface SparseSolverOptions {
   /**
    * The entries an earlier factorization on the same pattern and ordering stored in L and in U
    * ({@link SparseRealSolver.factorSizes}): room for them is reserved before the first factorization.
-   * Without it the storage starts at the size of the matrix and grows as the factorization fills in.
+   * Without it the first fresh factorization reserves the fill its symbolic analysis counted
+   * (`SymbolicLu.fill`), and the storage grows where pivoting strays from that count.
    */
   readonly capacity?: FactorCapacity;
 }
