@@ -109,16 +109,18 @@ export class AcWorkspace {
   /** Fill {@link AcWorkspace.Ar}, {@link AcWorkspace.Ai} and the excitation with the system at `frequency` (Hz). */
   assembleAt(frequency: number): void {
     const omega = 2 * Math.PI * frequency;
-    const { Ar, Ai } = this;
-    const gr = this.#conductanceRe;
-    const gi = this.#conductanceIm;
-    const cr = this.#capacitanceRe;
-    const ci = this.#capacitanceIm;
     const perFrequency = this.#perFrequency;
-    if (perFrequency.length === 0) {
-      // One pass forms the values and the norms the factorization and the residual check need.
-      this.#formWithNorms(omega);
+    // With G real, C imaginary and nothing stamped per frequency (every kind of the library but a
+    // finite-bandwidth op-amp), one pass over two arrays forms the values and the norms.
+    const fused = this.#plainAdmittance && perFrequency.length === 0;
+    if (fused) {
+      this.#formPlainWithNorms(omega);
     } else {
+      const { Ar, Ai } = this;
+      const gr = this.#conductanceRe;
+      const gi = this.#conductanceIm;
+      const cr = this.#capacitanceRe;
+      const ci = this.#capacitanceIm;
       for (let p = 0; p < Ar.length; p++) {
         Ar[p] = gr[p]! + omega * cr[p]!;
         Ai[p] = gi[p]! + omega * ci[p]!;
@@ -126,56 +128,44 @@ export class AcWorkspace {
     }
     this.sourceRe.set(this.#baseSourceRe);
     this.sourceIm.set(this.#baseSourceIm);
-    if (perFrequency.length === 0) return;
-    const ctx = this.#context;
-    ctx.omega = omega;
-    // Prepared once, at construction: only the frequency changes here.
-    for (const d of perFrequency) d.loadAc(ctx);
-    this.#measureNorms();
+    if (perFrequency.length > 0) {
+      const ctx = this.#context;
+      ctx.omega = omega;
+      // Prepared once, at construction: only the frequency changes here.
+      for (const d of perFrequency) d.loadAc(ctx);
+    }
+    if (!fused) this.#measureNorms();
   }
 
-  /** Ar + j·Ai = G + jωC, with every row's largest |Re| + |Im| and the largest of all. */
-  #formWithNorms(omega: number): void {
+  /**
+   * Ar = G and Ai = ωC where G is real and C imaginary (the values of the general form up to the
+   * sign of a zero), with every row's largest |Re| + |Im| and the largest of all, in one pass.
+   */
+  #formPlainWithNorms(omega: number): void {
     const { Ar, Ai } = this;
-    const gr = this.#conductanceRe;
-    const gi = this.#conductanceIm;
-    const cr = this.#capacitanceRe;
-    const ci = this.#capacitanceIm;
+    const g = this.#conductanceRe;
+    const c = this.#capacitanceIm;
     const rows = this.system.pattern.Ai;
     const rowMax = this.#rowMax;
     rowMax.fill(0);
     let aNorm = 0;
     const nnz = rows.length;
-    if (this.#plainAdmittance) {
-      // The values of the general loop below (up to the sign of a zero), from half the reads.
-      for (let p = 0; p < nnz; p++) {
-        const re = gr[p]! + 0;
-        const im = 0 + omega * ci[p]!;
-        Ar[p] = re;
-        Ai[p] = im;
-        const a = Math.abs(re) + Math.abs(im);
-        const i = rows[p]!;
-        if (a > rowMax[i]!) rowMax[i] = a;
-        if (a > aNorm) aNorm = a;
-      }
-    } else {
-      for (let p = 0; p < nnz; p++) {
-        const re = gr[p]! + omega * cr[p]!;
-        const im = gi[p]! + omega * ci[p]!;
-        Ar[p] = re;
-        Ai[p] = im;
-        const a = Math.abs(re) + Math.abs(im);
-        const i = rows[p]!;
-        if (a > rowMax[i]!) rowMax[i] = a;
-        if (a > aNorm) aNorm = a;
-      }
+    for (let p = 0; p < nnz; p++) {
+      const re = g[p]! + 0;
+      const im = 0 + omega * c[p]!;
+      Ar[p] = re;
+      Ai[p] = im;
+      const a = Math.abs(re) + Math.abs(im);
+      const i = rows[p]!;
+      if (a > rowMax[i]!) rowMax[i] = a;
+      if (a > aNorm) aNorm = a;
     }
-    Ar[nnz] = gr[nnz]! + omega * cr[nnz]!;
-    Ai[nnz] = gi[nnz]! + omega * ci[nnz]!;
+    Ar[nnz] = g[nnz]! + 0;
+    Ai[nnz] = 0 + omega * c[nnz]!;
     this.#aNorm = aNorm;
   }
 
-  /** The norms of {@link AcWorkspace.#formWithNorms} for values already in Ar, Ai. */
+  /** Every row's largest |Re| + |Im| of the values in Ar, Ai, and the largest of all. */
   #measureNorms(): void {
     const { Ar, Ai } = this;
     const rows = this.system.pattern.Ai;
