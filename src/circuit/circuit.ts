@@ -84,17 +84,6 @@ export class Circuit {
   #elements: ElementRecord[] = [];
   #byName = new Map<string, ElementRecord>();
   #revision = 0;
-  /**
-   * Parsed models by the object the caller gave and the table that read it, so that elements built
-   * from one model object parse it once. An entry serves only while the object still holds the same
-   * keys and values, since a caller may change it between two elements.
-   */
-  readonly #models = new WeakMap<object, ParsedModel>();
-  /**
-   * Parsed models by table and content, so that elements given equal models (the same object, or
-   * equal literals written element by element) share one frozen parsed model, and their devices one
-   * table of values: 100,000 transistors of two models hold two.
-   */
   readonly #modelsByContent = new Map<ParameterTable<string>, Map<string, object>>();
 
   /**
@@ -439,7 +428,10 @@ export class Circuit {
     return index;
   }
 
-  /** {@link parseParameters}, once per model object while it keeps its values. */
+  /**
+   * {@link parseParameters}, returning this circuit's one frozen copy of the parsed model (equal
+   * models: the same table, keys in the same order, the same values).
+   */
   #parseModel<K extends string>(
     table: ParameterTable<K>,
     given: unknown,
@@ -447,23 +439,7 @@ export class Circuit {
     kindName: string,
     skip: readonly string[] = [],
   ): Partial<Record<K, number>> {
-    if (given === undefined) return NO_PARAMETERS as Partial<Record<K, number>>;
-    if (given === null || typeof given !== 'object')
-      return parseParameters(table, given, path, kindName, skip);
-    // Plain `{}` (a diode's default model) is a new object per element: one parsed model serves all.
-    if (Object.keys(given).length === 0 && !Array.isArray(given))
-      return NO_PARAMETERS as Partial<Record<K, number>>;
-    const known = this.#models.get(given);
-    if (known !== undefined && known.table === table && holdsValues(given, known.values)) {
-      return known.parsed as Partial<Record<K, number>>;
-    }
-    const parsed = this.#shared(table, parseParameters(table, given, path, kindName, skip));
-    this.#models.set(given, { table, values: Object.entries(given), parsed });
-    return parsed as Partial<Record<K, number>>;
-  }
-
-  /** The model of this circuit equal to `parsed` (same table, keys in the same order, same values), frozen. */
-  #shared(table: ParameterTable<string>, parsed: Readonly<Record<string, number | undefined>>): object {
+    const parsed = parseParameters(table, given, path, kindName, skip);
     let byContent = this.#modelsByContent.get(table);
     if (byContent === undefined) {
       byContent = new Map();
@@ -473,10 +449,9 @@ export class Circuit {
     let key = '';
     for (const name in parsed) key += `${name}=${parsed[name]};`;
     const known = byContent.get(key);
-    if (known !== undefined) return known;
-    const frozen = Object.freeze(parsed);
-    byContent.set(key, frozen);
-    return frozen;
+    if (known !== undefined) return known as Partial<Record<K, number>>;
+    byContent.set(key, Object.freeze(parsed));
+    return parsed;
   }
 
   #add(record: ElementRecord): this {
@@ -488,27 +463,6 @@ export class Circuit {
     this.#revision++;
     return this;
   }
-}
-
-/** The parsed model of every element given no parameters (a diode's default model). */
-const NO_PARAMETERS: Readonly<Record<string, number>> = Object.freeze({});
-
-/** A model as parsed, with the table that read it and the entries of the object it came from. */
-interface ParsedModel {
-  readonly table: ParameterTable<string>;
-  readonly values: readonly (readonly [string, unknown])[];
-  readonly parsed: object;
-}
-
-/** Whether `given` has exactly the entries `values`, in that order (the same values by Object.is). */
-function holdsValues(given: object, values: readonly (readonly [string, unknown])[]): boolean {
-  const keys = Object.keys(given);
-  if (keys.length !== values.length) return false;
-  for (let k = 0; k < keys.length; k++) {
-    const [key, value] = values[k]!;
-    if (keys[k] !== key || !Object.is((given as Record<string, unknown>)[key], value)) return false;
-  }
-  return true;
 }
 
 /** The `noiseless` flag of a resistor's options, checked. */
