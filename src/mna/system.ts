@@ -72,18 +72,12 @@ export interface DeviceLookup {
  * an element up by name, and the table costs about 36 bytes an element (3.6 MB at 100,000).
  */
 export class PositionIndex {
-  #map: Map<string, number> | null = null;
-  readonly #records: readonly { readonly name: string }[];
+  readonly #map: () => ReadonlyMap<string, number>;
   constructor(records: readonly { readonly name: string }[]) {
-    this.#records = records;
+    this.#map = once(() => new Map(records.map((record, k) => [record.name, k])));
   }
   get(name: string): number | undefined {
-    if (this.#map === null) {
-      const map = new Map<string, number>();
-      for (let k = 0; k < this.#records.length; k++) map.set(this.#records[k]!.name, k);
-      this.#map = map;
-    }
-    return this.#map.get(name);
+    return this.#map().get(name);
   }
 }
 
