@@ -10,7 +10,7 @@
  */
 import type { NumericLu, PivotTolerances, SymbolicLu } from './lu-types.js';
 import type { CscPattern } from './types.js';
-import { computeRowScale, type LuWorkspace } from './workspace.js';
+import type { LuWorkspace } from './workspace.js';
 
 /**
  * Overwrite the values of N with the factors of A(prow, q) on N's patterns. Returns 0, or −1 when
@@ -36,6 +36,8 @@ export function luRefactor(
   const E = ws.entryStep;
   const tau = tol.pivotTolerance;
   const singular = tol.singularTolerance;
+  const stepScale = ws.stepScale;
+  let scaled = false;
   let uBegin = Up[0]!;
   let lBegin = Lp[0]!;
   for (let k = 0; k < n; k++) {
@@ -112,8 +114,20 @@ export function luRefactor(
       const b = Math.abs(v);
       if (b > lMax) lMax = b;
     }
-    // Rows of later columns were never scattered, so x is zero when this returns.
-    if (!(a >= lMax) && !passesScaledTest(A, Ax, N, ws, k, tau)) return -1;
+    // Rows of later columns were never scattered, so x is zero when this returns. The row-scaled
+    // test: scale(pivot row) ≥ τ·max |L(i, k)|·scale(row i), the scales computed on first use.
+    if (!(a >= lMax)) {
+      if (!scaled) {
+        computeStepScale(A, Ax, E, stepScale);
+        scaled = true;
+      }
+      let scaledMax = 0;
+      for (let p = lBegin; p < lEnd; p++) {
+        const s = Math.abs(Lx[p]!) * stepScale[Li[p]!]!;
+        if (s > scaledMax) scaledMax = s;
+      }
+      if (!(stepScale[k]! >= tau * scaledMax)) return -1;
+    }
     Ud[k] = pivot;
     lBegin = lEnd;
   }
@@ -121,26 +135,19 @@ export function luRefactor(
 }
 
 /**
- * The row-scaled threshold test of step k, once L(:, k) holds x/pivot: rowScale(pivot row) ≥
- * τ · max |L(i, k)|·rowScale(row i), the scales computed from Ax on first use in this call.
+ * stepScale[k] = 1 / max_j |A(row of step k, j)| (1 for an all-zero row): the fresh factorization's
+ * row scales, indexed by pivot step through E so that the test reads no row permutation. Computed
+ * only by a refactorization that meets a pivot which is not the largest of its column outright.
  */
-function passesScaledTest(
-  A: CscPattern,
-  Ax: Float64Array,
-  N: NumericLu,
-  ws: LuWorkspace,
-  k: number,
-  tau: number,
-): boolean {
-  if (!ws.rowScaleCurrent) computeRowScale(A.Ap, A.Ai, Ax, ws);
-  const { prow, Lp, Li, Lx } = N;
-  const rowScale = ws.rowScale;
-  let lMax = 0;
-  for (let p = Lp[k]!; p < Lp[k + 1]!; p++) {
-    const s = Math.abs(Lx[p]!) * rowScale[prow[Li[p]!]!]!;
-    if (s > lMax) lMax = s;
+function computeStepScale(A: CscPattern, Ax: Float64Array, E: Int32Array, stepScale: Float64Array): void {
+  stepScale.fill(0);
+  const nnz = A.Ap[A.n]!;
+  for (let p = 0; p < nnz; p++) {
+    const a = Math.abs(Ax[p]!);
+    const k = E[p]!;
+    if (a > stepScale[k]!) stepScale[k] = a;
   }
-  return rowScale[prow[k]!]! >= tau * lMax;
+  for (let k = 0; k < A.n; k++) stepScale[k] = stepScale[k]! > 0 ? 1 / stepScale[k]! : 1;
 }
 
 /** Zero x on the rows Li[p1 … p2) and report failure (−1). */

@@ -32,6 +32,8 @@ export interface LuWorkspace {
    * fails (rarely), so most refactorizations skip that pass over A.
    */
   rowScaleCurrent: boolean;
+  /** The reciprocal row maxima indexed by pivot step, for the refactorization's scaled test. */
+  readonly stepScale: Float64Array;
   /** entryStep[p] = pinv[Ai[p]] of the last fresh factorization, for each of the nnz entries. */
   readonly entryStep: Int32Array;
   /** End of the part of L(:, j) the depth-first search scans (Lp[j+1] until j is pruned). */
@@ -55,6 +57,7 @@ export function createLuWorkspace(n: number, nnz: number, complex: boolean): LuW
     stack: new Int32Array(2 * n),
     rowScale: new Float64Array(n),
     rowScaleCurrent: false,
+    stepScale: new Float64Array(n),
     entryStep: new Int32Array(nnz),
     lend: new Int32Array(n),
     pruned: new Uint8Array(n),
