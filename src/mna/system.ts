@@ -294,17 +294,23 @@ class TripletBuffer {
 }
 
 /**
- * Slot arrays handed to devices as views on a few large chunks, in request order, so that binding
- * allocates no array per device and one pass fills them all.
+ * Slot arrays handed to devices as views on a few chunks, in request order, so that binding
+ * allocates no array per device and one pass fills them all. The chunks double from a small first
+ * one up to a cap: the views keep their chunks alive as long as the compiled system, so a small
+ * circuit must not hold a chunk sized for a large one (a fixed 256 KB chunk made every compiled
+ * 30-element circuit hold 256 KB, and compiling many small circuits mostly collecting garbage).
  */
 class SlotStore {
-  static readonly CHUNK = 1 << 16;
+  static readonly FIRST_CHUNK = 256;
+  static readonly LARGEST_CHUNK = 1 << 16;
   readonly #chunks: Int32Array[] = [];
   readonly #used: number[] = [];
+  #nextChunk = SlotStore.FIRST_CHUNK;
   take(length: number): Int32Array {
     let last = this.#chunks.length - 1;
     if (last < 0 || this.#used[last]! + length > this.#chunks[last]!.length) {
-      this.#chunks.push(new Int32Array(Math.max(SlotStore.CHUNK, length)));
+      this.#chunks.push(new Int32Array(Math.max(this.#nextChunk, length)));
+      this.#nextChunk = Math.min(2 * this.#nextChunk, SlotStore.LARGEST_CHUNK);
       this.#used.push(0);
       last++;
     }
