@@ -3,7 +3,8 @@
  * (pipeline-circuits.ts) at about 1,000, 10,000 and 100,000 elements: building the circuit,
  * compiling it, the first operating point (compile included), a repeated operating point of the
  * unchanged circuit, the AC analysis per frequency, the linearity report, and the peak memory.
- * Each case runs in its own Node process, so that peak memory and JIT state belong to that case.
+ * Each case runs in its own Node process, so that peak memory and JIT state belong to that case, and
+ * the smaller cases make untimed passes first (warmUpPasses), so that every figure is of optimized code.
  *
  * Output: one JSON line per case with exactly the keys
  *   family, elements, unknowns, iterations, buildMs, compileMs, firstOperatingPointMs,
