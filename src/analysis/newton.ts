@@ -4,7 +4,12 @@
  */
 import type { Conditions, DcLoadContext, Device } from '../devices/device.js';
 import { singularMatrix } from '../errors/messages.js';
-import { createRealSolver, type RealLinearSolver, type SparseRealSolver } from '../linalg/index.js';
+import {
+  createRealSolver,
+  type RealLinearSolver,
+  type SparseRealSolver,
+  TypedArena,
+} from '../linalg/index.js';
 import type { CompiledSystem } from '../mna/system.js';
 import type { ResolvedOptions } from './options.js';
 import { diagnoseSingular } from './singular-diagnosis.js';
@@ -51,15 +56,17 @@ export class NewtonWorkspace {
   constructor(system: CompiledSystem) {
     this.system = system;
     const { n, nnz } = system;
-    this.x = new Float64Array(n + 1);
-    this.previous = new Float64Array(n + 1);
-    this.start = new Float64Array(n + 1);
-    this.A = new Float64Array(nnz + 1);
-    this.b = new Float64Array(n + 1);
-    this.residual = new Float64Array(n + 1);
-    this.rowScale = new Float64Array(n + 1);
-    this.anchor = new Float64Array(n + 1);
-    this.correction = new Float64Array(n + 1);
+    // One buffer for every array of the workspace: they live and die together (see TypedArena).
+    const arena = new TypedArena(9 * (n + 1) + 2 * (nnz + 1));
+    this.x = arena.float64(n + 1);
+    this.previous = arena.float64(n + 1);
+    this.start = arena.float64(n + 1);
+    this.A = arena.float64(nnz + 1);
+    this.b = arena.float64(n + 1);
+    this.residual = arena.float64(n + 1);
+    this.rowScale = arena.float64(n + 1);
+    this.anchor = arena.float64(n + 1);
+    this.correction = arena.float64(n + 1);
     // One ordering per topology: a later workspace on the same pattern starts from the first's.
     const { symbolic, fill } = system.ordering;
     this.solver = createRealSolver(
@@ -67,8 +74,8 @@ export class NewtonWorkspace {
       symbolic === null ? {} : fill === null ? { symbolic } : { symbolic, capacity: fill },
     );
     this.context = { x: this.x, A: this.A, b: this.b, sourceScale: 1, limited: false, first: true };
-    this.linearA = new Float64Array(nnz + 1);
-    this.linearB = new Float64Array(n + 1);
+    this.linearA = arena.float64(nnz + 1);
+    this.linearB = arena.float64(n + 1);
     this.nonlinearDevices = system.devices.filter((d) => d.nonlinear);
     this.#linearContext = {
       x: this.x,

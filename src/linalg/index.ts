@@ -14,4 +14,5 @@ export {
   createSparseComplexSolver as createComplexSolver,
   type SparseComplexSolver,
 } from './solver-complex.js';
+export { TypedArena } from './typed-arena.js';
 export type { ComplexLinearSolver, CscPattern, FactorStatus, RealLinearSolver } from './types.js';

@@ -11,6 +11,7 @@
  * column in the topological order the sparse triangular solve visited it; `Ud` the diagonal of U.
  * A trailing `z` (Lz, Uz, Udz) is the imaginary part of the array it follows.
  */
+import { TypedArena } from './typed-arena.js';
 
 /** Column order and preferred pivot rows, computed once per pattern. */
 export interface SymbolicLu {
@@ -87,31 +88,36 @@ export function initialFactorCapacity(
 
 /** Allocate a real factorization of order n with room for `capacity` entries in L and in U. */
 export function createNumericLu(n: number, capacity: FactorCapacity): NumericLu {
-  const lower = Math.max(capacity.lower, n, 1);
-  const upper = Math.max(capacity.upper, n, 1);
-  return {
-    n,
-    pinv: new Int32Array(n),
-    prow: new Int32Array(n),
-    Lp: new Int32Array(n + 1),
-    Li: new Int32Array(lower),
-    Lx: new Float64Array(lower),
-    Up: new Int32Array(n + 1),
-    Ui: new Int32Array(upper),
-    Ux: new Float64Array(upper),
-    Ud: new Float64Array(n),
-  };
+  return allocateLu(n, capacity, false);
 }
 
 /** Allocate a complex factorization of order n with room for `capacity` entries in L and in U. */
 export function createComplexNumericLu(n: number, capacity: FactorCapacity): ComplexNumericLu {
-  const real = createNumericLu(n, capacity);
-  return {
-    ...real,
-    Lz: new Float64Array(real.Lx.length),
-    Uz: new Float64Array(real.Ux.length),
-    Udz: new Float64Array(n),
+  return allocateLu(n, capacity, true) as ComplexNumericLu;
+}
+
+/**
+ * The arrays of order n share one buffer; L and U have their own, since a factorization that fills
+ * in more than reserved replaces them with larger ones (see TypedArena).
+ */
+function allocateLu(n: number, capacity: FactorCapacity, complex: boolean): NumericLu | ComplexNumericLu {
+  const lower = Math.max(capacity.lower, n, 1);
+  const upper = Math.max(capacity.upper, n, 1);
+  const arena = new TypedArena(complex ? 2 * n : n, 4 * n + 2);
+  const real: NumericLu = {
+    n,
+    pinv: arena.int32(n),
+    prow: arena.int32(n),
+    Lp: arena.int32(n + 1),
+    Li: new Int32Array(lower),
+    Lx: new Float64Array(lower),
+    Up: arena.int32(n + 1),
+    Ui: new Int32Array(upper),
+    Ux: new Float64Array(upper),
+    Ud: arena.float64(n),
   };
+  if (!complex) return real;
+  return { ...real, Lz: new Float64Array(lower), Uz: new Float64Array(upper), Udz: arena.float64(n) };
 }
 
 /**

@@ -11,6 +11,8 @@
  * pruned extent of each column of L during a fresh factorization (prune.ts).
  */
 
+import { TypedArena } from './typed-arena.js';
+
 /** Scratch arrays owned by one solver; nothing in the kernels allocates beyond these. */
 export interface LuWorkspace {
   readonly n: number;
@@ -48,20 +50,23 @@ export interface LuWorkspace {
 
 /** Allocate the workspace of a solver of order n for nnz entries; `complex` adds the imaginary vectors. */
 export function createLuWorkspace(n: number, nnz: number, complex: boolean): LuWorkspace {
+  const c = complex ? n : 0;
+  // One buffer for all of them: they live and die with the solver (see TypedArena).
+  const arena = new TypedArena(4 * n + 2 * c, 4 * n + nnz, n);
   return {
     n,
-    x: new Float64Array(n),
-    z: new Float64Array(complex ? n : 0),
-    y: new Float64Array(n),
-    yz: new Float64Array(complex ? n : 0),
-    stack: new Int32Array(2 * n),
-    rowScale: new Float64Array(n),
+    x: arena.float64(n),
+    z: arena.float64(c),
+    y: arena.float64(n),
+    yz: arena.float64(c),
+    stack: arena.int32(2 * n),
+    rowScale: arena.float64(n),
     rowScaleCurrent: false,
-    stepScale: new Float64Array(n),
-    entryStep: new Int32Array(nnz),
-    lend: new Int32Array(n),
-    pruned: new Uint8Array(n),
-    mark: new Int32Array(n),
+    stepScale: arena.float64(n),
+    entryStep: arena.int32(nnz),
+    lend: arena.int32(n),
+    pruned: arena.uint8(n),
+    mark: arena.int32(n),
     generation: 0,
   };
 }
