@@ -232,15 +232,18 @@ export function prepareCircuit(circuit: Circuit): PreparedCircuit {
   return new PreparedCircuit(circuit.elements);
 }
 
-/** The prepared circuit kept for `circuit` at its present revision (built on first use). */
-const cache = new WeakMap<Circuit, { revision: number; prepared: PreparedCircuit }>();
+/** The prepared circuit kept on a circuit (`Circuit.analysisCache`) and the revision it was built at. */
+interface CachedPrepared {
+  readonly revision: number;
+  readonly prepared: PreparedCircuit;
+}
 
 /** @internal The cached prepared circuit of `circuit`, compiled again only when the circuit changed. */
 export function preparedFor(circuit: Circuit): PreparedCircuit {
-  const entry = cache.get(circuit);
+  const entry = circuit.analysisCache as CachedPrepared | undefined;
   if (entry !== undefined && entry.revision === circuit.revision) return entry.prepared;
   const prepared = new PreparedCircuit(circuit.elements);
-  cache.set(circuit, { revision: circuit.revision, prepared });
+  circuit.analysisCache = { revision: circuit.revision, prepared } satisfies CachedPrepared;
   return prepared;
 }
 

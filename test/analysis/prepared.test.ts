@@ -56,6 +56,14 @@ describe('the cached compile behind operatingPoint', () => {
     expect(second).toBeLessThan(first);
   });
 
+  it("keeps its cache off the circuit's own properties, so a copy or a comparison never meets it", () => {
+    const solved = referenceArm();
+    operatingPoint(solved);
+    expect(Object.keys(solved)).toEqual(Object.keys(referenceArm()));
+    expect(structuredClone(solved)).toEqual(structuredClone(referenceArm()));
+    expect(JSON.stringify(solved)).toBe(JSON.stringify(referenceArm()));
+  });
+
   it('gives a repeated solve the same answer as the first, bit for bit', () => {
     const circuit = referenceArm();
     const a = operatingPoint(circuit);
