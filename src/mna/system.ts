@@ -153,7 +153,8 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
 
   // Slot requests land in chunks of one shared store, in request order: each device keeps a view
   // on its part, and one pass over the store fills every view once the pattern is compressed.
-  const triplets = new TripletBuffer();
+  // Room for four entries a device and the node diagonal: a few doublings at most for any mix.
+  const triplets = new TripletBuffer(4 * devices.length + nodeCount);
   const store = new SlotStore();
   const bind: BindContext = {
     ...lookups(nodeIndex, branchIndex),
@@ -273,11 +274,15 @@ function elementsTouching(
   return elementsAt;
 }
 
-/** Growable (row, column) triplet arrays. */
+/** Growable (row, column) triplet arrays, starting with room for `capacity` pairs. */
 class TripletBuffer {
-  rows = new Int32Array(1024);
-  cols = new Int32Array(1024);
+  rows: Int32Array;
+  cols: Int32Array;
   count = 0;
+  constructor(capacity: number) {
+    this.rows = new Int32Array(Math.max(capacity, 16));
+    this.cols = new Int32Array(Math.max(capacity, 16));
+  }
   push(row: number, col: number): void {
     if (this.count === this.rows.length) {
       const rows = new Int32Array(2 * this.count);
