@@ -3,7 +3,8 @@
  * 10-element diode ladder (a 5 V supply, five resistors and four diodes to ground), solved by
  * `operatingPoint` on an unchanged circuit, by a prepared circuit, by one point of a `dcSweep`, and by
  * the floor: a dense Newton written by hand for this one circuit (nodal equations in the four
- * ladder nodes, Gaussian elimination, the same junction step limit and the same tolerances).
+ * ladder nodes, Gaussian elimination, the same junction step limit and the same tolerances); and a
+ * first call, the same circuit built anew and solved once (the building itself timed apart).
  *
  * Run: npx tsx bench/small-circuit.ts   (one JSON line: µs per solve and ratios to the floor)
  */
@@ -94,6 +95,10 @@ const floorUs = microseconds(handNewton);
 const operatingPointUs = microseconds(() => operatingPoint(circuit));
 const preparedUs = microseconds(() => prepared.operatingPoint());
 const sweepPointUs = microseconds(() => dcSweep(circuit, { source: 'supply', values: [SUPPLY] }));
+// A first call: a circuit built anew and solved once (compile, ordering and set-up included), less
+// the building, which is the caller's own code.
+const buildUs = microseconds(ladder);
+const firstCallUs = microseconds(() => operatingPoint(ladder())) - buildUs;
 const round = (x: number) => Number(x.toPrecision(3));
 console.log(
   JSON.stringify({
@@ -102,7 +107,10 @@ console.log(
     operatingPointUs: round(operatingPointUs),
     preparedUs: round(preparedUs),
     sweepPointUs: round(sweepPointUs),
+    buildUs: round(buildUs),
+    firstCallUs: round(firstCallUs),
     operatingPointRatio: round(operatingPointUs / floorUs),
     preparedRatio: round(preparedUs / floorUs),
+    firstCallRatio: round(firstCallUs / floorUs),
   }),
 );
