@@ -153,8 +153,9 @@ export function compileCircuit(records: readonly ElementRecord[]): CompiledSyste
 
   // Slot requests land in chunks of one shared store, in request order: each device keeps a view
   // on its part, and one pass over the store fills every view once the pattern is compressed.
-  // Room for four entries a device and the node diagonal: a few doublings at most for any mix.
-  const triplets = new TripletBuffer(4 * devices.length + nodeCount);
+  // A small circuit starts with the room it needs; a large one grows from 1,024 by doubling (a
+  // start sized from the device count overshot the need of the 100,000-element CMOS chain by 20 MB).
+  const triplets = new TripletBuffer(Math.min(4 * devices.length + nodeCount, 1024));
   const store = new SlotStore();
   const bind: BindContext = {
     ...lookups(nodeIndex, branchIndex),
