@@ -22,8 +22,8 @@ describe('TypedArena', () => {
         expect(arrays.map((a) => a.length)).toEqual([...doubles, ...integers, ...bytes]);
         for (const a of arrays) expect(a.every((v) => v === 0)).toBe(true);
         // Fill each with its own mark (all marks fit a byte), then check none was overwritten.
-        arrays.forEach((a, k) => a.fill(k + 1));
-        arrays.forEach((a, k) => expect(a.every((v) => v === k + 1)).toBe(true));
+        for (const [k, a] of arrays.entries()) a.fill(k + 1);
+        for (const [k, a] of arrays.entries()) expect(a.every((v) => v === k + 1)).toBe(true);
       }),
     );
   });
