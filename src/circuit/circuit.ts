@@ -97,6 +97,7 @@ export class Circuit {
   get analysisCache(): unknown {
     return this.#analysisCache;
   }
+  /** @internal See the getter. */
   set analysisCache(value: unknown) {
     this.#analysisCache = value;
   }
