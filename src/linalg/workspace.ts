@@ -30,8 +30,10 @@ export interface LuWorkspace {
   readonly rowScale: Float64Array;
   /**
    * Whether rowScale belongs to the values now being factored: the solvers clear it on every
-   * factor() call, and the refactorization computes the scales only when a plain threshold test
-   * fails (rarely), so most refactorizations skip that pass over A.
+   * factor() call (the AC analysis hands the complex solver its row maxima), and the complex
+   * refactorization computes the scales only when a pivot is not the largest of its column outright
+   * (at transistor columns), so a refactorization of a circuit without transistors skips that pass
+   * over A. The real refactorization keeps its scales by pivot step instead (`stepScale`).
    */
   rowScaleCurrent: boolean;
   /** The reciprocal row maxima indexed by pivot step, for the refactorization's scaled test. */
