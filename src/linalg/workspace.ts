@@ -4,7 +4,8 @@
  * value vector and a 2n integer vector, cs_lu.c).
  *
  * Key to the names: `n` order; `x`/`z` dense real/imaginary accumulators, all zero between uses;
- * `rowScale` reciprocal row maxima, `rowScaleCurrent` whether they belong to the values being factored;
+ * `rowScale` reciprocal row maxima, `rowScaleCurrent` whether they belong to the values being factored,
+ * `stepScale` the same indexed by pivot step (the real refactorization's);
  * `entryStep` the pivot step of the row of each entry of A (pinv[Ai[p]], refreshed by every fresh
  * factorization, so that the refactorization scatters A with one indirection fewer); `stack` 2n integers, [0, n) the depth-first output and stack, [n, 2n) the saved edge positions;
  * `mark` visit marks, a node j counts as visited when mark[j] === generation; `lend`/`pruned` the
