@@ -116,7 +116,6 @@ export interface JobHooks {
   readonly stopped?: () => boolean;
 }
 
-/** A job prepared to run sample by sample: the evaluator, the draws and the result's arrays. */
 /**
  * What the ranges of one run share: the varied parameters, the measures, the draws and the evaluator
  * (the circuit compiled, its nominal point solved, the prediction made). A worker that receives
@@ -147,6 +146,7 @@ export function setUpKey(job: MonteCarloJob): string {
   return JSON.stringify([job.document, options]);
 }
 
+/** A job prepared to run sample by sample: the evaluator, the draws and the result's arrays. */
 export class JobRun {
   readonly start: number;
   readonly end: number;

@@ -57,6 +57,7 @@ describe('the cached compile behind operatingPoint', () => {
   });
 
   it("keeps its cache off the circuit's own properties, so a copy or a comparison never meets it", () => {
+    // Common practice, no source: a cache is invisible to the object's own keys, clones and JSON.
     const solved = referenceArm();
     operatingPoint(solved);
     expect(Object.keys(solved)).toEqual(Object.keys(referenceArm()));
