@@ -177,18 +177,17 @@ export function sharedDefaults<K extends string>(
 const sharedTables = new WeakMap<ParameterTable<string>, WeakMap<object, Readonly<Record<string, number>>>>();
 
 /**
- * The table of values for `given`, from `values`, the table for `before`: changed in place when the
- * device owns it, else on a copy (a table from {@link sharedDefaults} is never changed). The device
- * owns the table returned.
+ * The table of values for `given`, from `values`, the table for `before`: a shared table (frozen,
+ * from {@link sharedDefaults}) is copied first and never changed; a device's own table (one this
+ * returned before) is changed in place. The device owns the table returned.
  */
 export function revaluedDefaults<K extends string>(
   table: ParameterTable<K>,
   values: Readonly<Record<K, number>>,
-  owned: boolean,
   before: Partial<Record<K, number>>,
   given: Partial<Record<K, number>>,
 ): Record<K, number> {
-  const out = owned ? (values as Record<K, number>) : { ...values };
+  const out = Object.isFrozen(values) ? { ...values } : (values as Record<K, number>);
   updateWithDefaults(table, out, before, given);
   return out;
 }

@@ -62,8 +62,6 @@ export class Bjt implements Device {
   readonly nonlinear = true;
   readonly name: string;
   private p: Readonly<Record<keyof typeof BJT_PARAMETERS, number>>;
-  /** Whether {@link p} is this device's own (else shared with the devices of the same model). */
-  private ownsValues = false;
   /** +1 for npn, −1 for pnp. */
   private sign: number;
   /** The junctions' nodes: the terminals, or the internal nodes behind the terminal resistances. */
@@ -134,8 +132,7 @@ export class Bjt implements Device {
     ) {
       return false;
     }
-    this.p = revaluedDefaults(BJT_PARAMETERS, p, this.ownsValues, this.record.model, record.model);
-    this.ownsValues = true;
+    this.p = revaluedDefaults(BJT_PARAMETERS, p, this.record.model, record.model);
     this.record = record;
     this.take(record, this.p);
     return true;

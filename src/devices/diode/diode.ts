@@ -40,8 +40,6 @@ export class Diode implements Device {
   readonly nonlinear = true;
   readonly name: string;
   private p: Readonly<Record<keyof typeof DIODE_PARAMETERS, number>>;
-  /** Whether {@link p} is this device's own (else shared with the devices of the same model). */
-  private ownsValues = false;
   private a = 0;
   private c = 0;
   /** The junction's anode side: the anode itself, or the internal node behind the series resistance. */
@@ -73,8 +71,7 @@ export class Diode implements Device {
   revalue(record: DiodeRecord): boolean {
     const series = record.model.seriesResistance ?? DIODE_PARAMETERS.seriesResistance.defaultValue;
     if (series > 0 !== this.p.seriesResistance > 0) return false;
-    this.p = revaluedDefaults(DIODE_PARAMETERS, this.p, this.ownsValues, this.record.model, record.model);
-    this.ownsValues = true;
+    this.p = revaluedDefaults(DIODE_PARAMETERS, this.p, this.record.model, record.model);
     this.record = record;
     this.take(this.p);
     return true;

@@ -50,8 +50,6 @@ export class Mosfet implements Device {
   readonly nonlinear = true;
   readonly name: string;
   private p: Readonly<Record<keyof typeof MOSFET_PARAMETERS, number>>;
-  /** Whether {@link p} is this device's own (else shared with the devices of the same model). */
-  private ownsValues = false;
   /** +1 for nmos, −1 for pmos. */
   private sign = 1;
   /** |Vth0| in the mirrored frame, at the analysis temperature. */
@@ -106,8 +104,7 @@ export class Mosfet implements Device {
   }
   /** Take other model values: a MOSFET's unknowns and slots never depend on them. */
   revalue(record: MosfetRecord): boolean {
-    this.p = revaluedDefaults(MOSFET_PARAMETERS, this.p, this.ownsValues, this.record.model, record.model);
-    this.ownsValues = true;
+    this.p = revaluedDefaults(MOSFET_PARAMETERS, this.p, this.record.model, record.model);
     this.record = record;
     this.take(record);
     return true;
