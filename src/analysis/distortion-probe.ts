@@ -4,7 +4,7 @@
  * solutions whose only excitation is the injected nonlinear currents.
  */
 import { GROUND } from '../circuit/elements.js';
-import type { Conditions } from '../devices/device.js';
+import type { BiasPoint } from '../devices/device.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import type { CompiledSystem } from '../mna/system.js';
 import type { Probe } from './ac-analysis.js';
@@ -13,12 +13,6 @@ import { probeLabel } from './probe-label.js';
 
 /** Writes the probe's phasor for solution (xr, xi) at angular frequency ω into out[0], out[1]. */
 export type ProbeReader = (xr: Float64Array, xi: Float64Array, omega: number, out: Float64Array) => void;
-
-/** The solution small-signal readers are linearized at, with its conditions (an operating point is one). */
-export interface LinearizationPoint {
-  readonly x: Float64Array;
-  readonly conditions: Conditions;
-}
 
 /**
  * A reader for `probe`, checked at once. `AcAnalysis.response` reads the stored solutions through
@@ -34,7 +28,7 @@ export interface LinearizationPoint {
  */
 export function probeReader(
   system: CompiledSystem,
-  at: LinearizationPoint,
+  at: BiasPoint,
   probe: Probe,
   harmonic: boolean,
   option = 'output',
@@ -67,7 +61,7 @@ export function voltageReader(a: number, b: number): ProbeReader {
  */
 export function currentReader(
   system: CompiledSystem,
-  { x, conditions }: LinearizationPoint,
+  at: BiasPoint,
   element: string,
   harmonic: boolean,
 ): ProbeReader {
@@ -94,7 +88,7 @@ export function currentReader(
       out[1] = 0;
     };
   }
-  return (xr, xi, omega, out) => acCurrent(xr, xi, omega, x, conditions, out);
+  return (xr, xi, omega, out) => acCurrent(xr, xi, omega, at, out);
 }
 
 /** A short text naming a probe, for reports and messages. */

@@ -3,9 +3,10 @@
  * The adjoint method solves Aᵀ·z = c once and reads the output's response to any excitation b as
  * zᵀ·b, so it needs c itself rather than a reader of solutions.
  */
+import type { BiasPoint } from '../devices/device.js';
 import type { CompiledSystem } from '../mna/system.js';
 import type { Probe } from './ac-analysis.js';
-import { type LinearizationPoint, type ProbeReader, probeReader } from './distortion-probe.js';
+import { type ProbeReader, probeReader } from './distortion-probe.js';
 import { nodeAt } from './operating-point.js';
 
 /** Writes the coefficients c of an output at angular frequency ω. */
@@ -27,7 +28,7 @@ export class OutputFunctional {
    * @param omegas - angular frequencies at which the support of an element current is found
    * @throws QuiescentError `unknown-node`, `unknown-element`, `invalid-value` for a probe that cannot be read
    */
-  constructor(system: CompiledSystem, at: LinearizationPoint, probe: Probe, omegas: readonly number[]) {
+  constructor(system: CompiledSystem, at: BiasPoint, probe: Probe, omegas: readonly number[]) {
     const n = system.n;
     this.#xr = new Float64Array(n + 1);
     this.#xi = new Float64Array(n + 1);

@@ -21,7 +21,7 @@
  */
 import { Complex } from 'complex.js';
 import { GROUND } from '../circuit/elements.js';
-import type { Conditions, Device } from '../devices/device.js';
+import type { BiasPoint, Conditions, Device } from '../devices/device.js';
 import { thermalVoltage } from '../devices/junction.js';
 import { invalidValue, unknownElement } from '../errors/messages.js';
 import { QuiescentError } from '../errors/quiescent-error.js';
@@ -631,20 +631,18 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
   let outputElement = -1;
   const cr = new Float64Array(n + 1);
   const ci = new Float64Array(n + 1);
-  let readCurrent:
-    | ((device: Device, at: Float64Array, conditions: Conditions, out: Float64Array) => void)
-    | undefined;
+  let readCurrent: ((device: Device, at: BiasPoint, out: Float64Array) => void) | undefined;
   if (output !== null && typeof output === 'object' && 'element' in output) {
     currentReader(system, context.op, output.element, false); // checks the element
     outputElement = system.deviceIndex.get(output.element)!;
-    readCurrent = (device, at, conditions, out) => device.acCurrent!(Xr, Xi, omega, at, conditions, out);
+    readCurrent = (device, at, out) => device.acCurrent!(Xr, Xi, omega, at, out);
     const unit = new Float64Array(n + 1);
     const zero = new Float64Array(n + 1);
     const out = new Float64Array(2);
     const own = system.devices[outputElement]!;
     for (const u of context.unknownsOf(outputElement).unknowns) {
       unit[u] = 1;
-      own.acCurrent!(unit, zero, omega, x, context.conditions, out);
+      own.acCurrent!(unit, zero, omega, context.op, out);
       unit[u] = 0;
       cr[u] = out[0]!;
       ci[u] = out[1]!;
@@ -686,6 +684,7 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
   const Sr = new Float64Array(n + 1);
   const Si = new Float64Array(n + 1);
   const xv = x.slice();
+  const perturbed: BiasPoint = { x: xv, conditions };
   const two = new Float64Array(2);
   const twoDown = new Float64Array(2);
   for (let k = 0; k < system.devices.length; k++) {
@@ -696,10 +695,10 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
       const h = 1e-7 * Math.max(1, Math.abs(x[u]!));
       xv[u] = x[u]! + h;
       acShare(device, e, xv, omega, Xr, Xi, conditions, context.scratch, system, Rr, Ri);
-      if (k === outputElement) readCurrent!(device, xv, conditions, two);
+      if (k === outputElement) readCurrent!(device, perturbed, two);
       xv[u] = x[u]! - h;
       acShare(device, e, xv, omega, Xr, Xi, conditions, context.scratch, system, Sr, Si);
-      if (k === outputElement) readCurrent!(device, xv, conditions, twoDown);
+      if (k === outputElement) readCurrent!(device, perturbed, twoDown);
       xv[u] = x[u]!;
       let dr = 0;
       let di = 0;
@@ -774,8 +773,8 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
         dYi -= etaI[u]! * dF[u]!;
       }
       if (k === outputElement) {
-        readCurrent!(step.plus, x, conditions, two);
-        readCurrent!(step.minus, x, conditions, twoDown);
+        readCurrent!(step.plus, context.op, two);
+        readCurrent!(step.minus, context.op, twoDown);
         dYr += (two[0]! - twoDown[0]!) / step.span;
         dYi += (two[1]! - twoDown[1]!) / step.span;
       }
@@ -803,7 +802,7 @@ function acSensitivity(ac: AcAnalysis, options: AcSensitivityOptions): AcSensiti
         dYi -= lr[u]! * gi + li[u]! * gr + etaI[u]! * f;
       }
       if (k === outputElement) {
-        readCurrent!(device, x, at, two);
+        readCurrent!(device, { x, conditions: at }, two);
         dYr += (sign * two[0]!) / (2 * TEMPERATURE_STEP);
         dYi += (sign * two[1]!) / (2 * TEMPERATURE_STEP);
       }

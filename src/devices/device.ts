@@ -61,6 +61,15 @@ export interface AcLoadContext {
   readonly conditions: Conditions;
 }
 
+/**
+ * The bias point small-signal readings are linearized at: the DC solution x and the conditions it was
+ * solved at (an operating point is one).
+ */
+export interface BiasPoint {
+  readonly x: Float64Array;
+  readonly conditions: Conditions;
+}
+
 /** The conditions an analysis runs at, handed to every device before it loads. */
 export interface Conditions {
   /** Temperature in kelvin. */
@@ -186,15 +195,11 @@ export interface Device {
   loadPencil?(G: Float64Array, C: Float64Array, x: Float64Array, conditions: Conditions): void;
   /** The DC current of a two-terminal element or controlled-source output, by the sign conventions. */
   current?(x: Float64Array, conditions: Conditions): number;
-  /** The AC current phasor at ω from solution (xr, xi), written to out[0] (real) and out[1] (imaginary). */
-  acCurrent?(
-    xr: Float64Array,
-    xi: Float64Array,
-    omega: number,
-    x: Float64Array,
-    conditions: Conditions,
-    out: Float64Array,
-  ): void;
+  /**
+   * The AC current phasor at ω from solution (xr, xi) of the circuit linearized `at`, written to
+   * out[0] (real) and out[1] (imaginary).
+   */
+  acCurrent?(xr: Float64Array, xi: Float64Array, omega: number, at: BiasPoint, out: Float64Array): void;
   /** Operating values and small-signal parameters at x. */
   report?(x: Float64Array, conditions: Conditions): DeviceReport;
   /** Junctions and channels to check for linearity at x. */

@@ -1,6 +1,6 @@
 /** The capacitor: open at DC, admittance jωC at angular frequency ω. */
 
-import type { AcLoadContext, BindContext, Conditions, DcLoadContext, Device } from '../device.js';
+import type { AcLoadContext, BiasPoint, BindContext, DcLoadContext, Device } from '../device.js';
 import { addConductance, conductanceSlots, NO_SLOTS } from '../stamp.js';
 import type { CapacitorRecord } from './record.js';
 
@@ -31,14 +31,7 @@ export class Capacitor implements Device {
   current(_x: Float64Array): number {
     return 0;
   }
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    omega: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, omega: number, _at: BiasPoint, out: Float64Array): void {
     const wc = omega * this.record.capacitance;
     const vr = xr[this.a]! - xr[this.b]!;
     const vi = xi[this.a]! - xi[this.b]!;

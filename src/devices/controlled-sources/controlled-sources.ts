@@ -6,8 +6,8 @@
 import type {
   AcLoadContext,
   AllocationContext,
+  BiasPoint,
   BindContext,
-  Conditions,
   DcLoadContext,
   Device,
 } from '../device.js';
@@ -63,14 +63,7 @@ export class Vcvs implements Device {
   current(x: Float64Array): number {
     return x[this.k]!;
   }
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    _w: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, _w: number, _at: BiasPoint, out: Float64Array): void {
     out[0] = xr[this.k]!;
     out[1] = xi[this.k]!;
   }
@@ -106,14 +99,7 @@ export class Vccs implements Device {
   current(x: Float64Array): number {
     return this.record.transconductance * (x[this.cp]! - x[this.cm]!);
   }
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    _w: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, _w: number, _at: BiasPoint, out: Float64Array): void {
     out[0] = this.record.transconductance * (xr[this.cp]! - xr[this.cm]!);
     out[1] = this.record.transconductance * (xi[this.cp]! - xi[this.cm]!);
   }
@@ -154,14 +140,7 @@ export class Ccvs implements Device {
   current(x: Float64Array): number {
     return x[this.k]!;
   }
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    _w: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, _w: number, _at: BiasPoint, out: Float64Array): void {
     out[0] = xr[this.k]!;
     out[1] = xi[this.k]!;
   }
@@ -199,14 +178,7 @@ export class Cccs implements Device {
   current(x: Float64Array): number {
     return this.record.gain * x[this.control]!;
   }
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    _w: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, _w: number, _at: BiasPoint, out: Float64Array): void {
     out[0] = this.record.gain * xr[this.control]!;
     out[1] = this.record.gain * xi[this.control]!;
   }

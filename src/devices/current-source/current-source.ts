@@ -1,6 +1,6 @@
 /** The independent current source: its value flows from `from`, through the source, into `to`. */
 
-import type { AcLoadContext, BindContext, Conditions, DcLoadContext, Device } from '../device.js';
+import type { AcLoadContext, BiasPoint, BindContext, Conditions, DcLoadContext, Device } from '../device.js';
 import { addCurrent } from '../stamp.js';
 import type { CurrentSourceRecord } from './record.js';
 
@@ -42,14 +42,7 @@ export class CurrentSource implements Device {
     this.prepare(conditions);
     return this.dc;
   }
-  acCurrent(
-    _xr: Float64Array,
-    _xi: Float64Array,
-    _omega: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(_xr: Float64Array, _xi: Float64Array, _omega: number, _at: BiasPoint, out: Float64Array): void {
     const { magnitude, phase } = this.record.ac;
     const theta = (phase * Math.PI) / 180;
     out[0] = magnitude * Math.cos(theta);

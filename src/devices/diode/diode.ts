@@ -10,6 +10,7 @@
 import type {
   AcLoadContext,
   AllocationContext,
+  BiasPoint,
   BindContext,
   Conditions,
   DcLoadContext,
@@ -162,14 +163,8 @@ export class Diode implements Device {
     if (this.seriesConductance > 0) addConductance(ctx.Ar, this.sSeries, 0, this.seriesConductance);
   }
   /** The small-signal current anode to cathode: (g + jωC) times the junction voltage phasor. */
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    omega: number,
-    x: Float64Array,
-    conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, omega: number, at: BiasPoint, out: Float64Array): void {
+    const { x, conditions } = at;
     this.prepare(conditions);
     const v = x[this.j]! - x[this.c]!;
     this.evaluate(v);

@@ -3,8 +3,8 @@
 import type {
   AcLoadContext,
   AllocationContext,
+  BiasPoint,
   BindContext,
-  Conditions,
   DcLoadContext,
   Device,
 } from '../device.js';
@@ -43,14 +43,7 @@ export class Inductor implements Device {
   current(x: Float64Array): number {
     return x[this.k]!;
   }
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    _omega: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, _omega: number, _at: BiasPoint, out: Float64Array): void {
     out[0] = xr[this.k]!;
     out[1] = xi[this.k]!;
   }

@@ -8,8 +8,8 @@
 import type {
   AcLoadContext,
   AllocationContext,
+  BiasPoint,
   BindContext,
-  Conditions,
   DcLoadContext,
   Device,
 } from '../device.js';
@@ -47,14 +47,7 @@ export class LoopProbe implements Device {
   current(x: Float64Array): number {
     return x[this.branch]!;
   }
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    _omega: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, _omega: number, _at: BiasPoint, out: Float64Array): void {
     out[0] = xr[this.branch]!;
     out[1] = xi[this.branch]!;
   }

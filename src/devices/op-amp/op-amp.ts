@@ -11,8 +11,8 @@ import { GROUND } from '../../values/ground.js';
 import type {
   AcLoadContext,
   AllocationContext,
+  BiasPoint,
   BindContext,
-  Conditions,
   DcLoadContext,
   Device,
   DeviceReport,
@@ -178,14 +178,7 @@ export class OpAmp implements Device {
   current(x: Float64Array): number {
     return x[this.k]!;
   }
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    _w: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, _w: number, _at: BiasPoint, out: Float64Array): void {
     out[0] = xr[this.k]!;
     out[1] = xi[this.k]!;
   }

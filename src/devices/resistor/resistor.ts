@@ -2,6 +2,7 @@
 
 import type {
   AcLoadContext,
+  BiasPoint,
   BindContext,
   Conditions,
   DcLoadContext,
@@ -41,14 +42,7 @@ export class Resistor implements Device {
   current(x: Float64Array): number {
     return (x[this.a]! - x[this.b]!) / this.record.resistance;
   }
-  acCurrent(
-    xr: Float64Array,
-    xi: Float64Array,
-    _omega: number,
-    _x: Float64Array,
-    _conditions: Conditions,
-    out: Float64Array,
-  ): void {
+  acCurrent(xr: Float64Array, xi: Float64Array, _omega: number, _at: BiasPoint, out: Float64Array): void {
     out[0] = (xr[this.a]! - xr[this.b]!) / this.record.resistance;
     out[1] = (xi[this.a]! - xi[this.b]!) / this.record.resistance;
   }
